@@ -1,0 +1,40 @@
+import type { Metadata } from "next";
+import { InviteForm } from "@/components/admin/invite-form";
+import { PageHeader } from "@/components/ui/page-header";
+import { requireUser } from "@/lib/auth/session";
+import { listProjectsWithCounts, listUsers } from "@/lib/projects/admin";
+
+export const metadata: Metadata = { title: "People" };
+
+export default async function AdminPeoplePage() {
+  const user = await requireUser();
+  const [people, projects] = await Promise.all([listUsers(user), listProjectsWithCounts(user)]);
+  return (
+    <>
+      <PageHeader title="People" subtitle="Everyone with an account, and invitations to new people." />
+      <div className="grid gap-4 lg:grid-cols-[1fr_24rem]">
+        <section className="card overflow-x-auto">
+          <table className="w-full text-left text-sm" data-testid="people-table">
+            <thead className="bg-ink-50 text-ink-700">
+              <tr>
+                <th className="px-3 py-2">Name</th>
+                <th className="px-3 py-2">E-mail</th>
+                <th className="px-3 py-2">Status</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-ink-100">
+              {people.map((p) => (
+                <tr key={p.id}>
+                  <td className="px-3 py-2 font-semibold">{p.name}{p.isAdmin ? <span className="ml-2 rounded bg-ink-100 px-1.5 py-0.5 text-xs">admin</span> : null}</td>
+                  <td className="px-3 py-2">{p.email}</td>
+                  <td className="px-3 py-2">{p.hasPassword ? "Active" : "Invited"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+        <InviteForm projects={projects.map((p) => ({ id: p.id, name: p.name }))} />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,15 @@
+import { redirect } from "next/navigation";
+import { AppShell } from "@/components/shell/app-shell";
+import { getSessionUser } from "@/lib/auth/session";
+import { listUserProjects } from "@/lib/users/queries";
+
+export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
+  const user = await getSessionUser();
+  if (!user) redirect("/signin");
+  const projects = await listUserProjects(user.id);
+  return (
+    <AppShell user={user} projects={projects}>
+      {children}
+    </AppShell>
+  );
+}

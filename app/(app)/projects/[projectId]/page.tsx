@@ -1,0 +1,61 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/page-header";
+import { ROLE_LABELS } from "@/lib/auth/roles";
+import { requireUser } from "@/lib/auth/session";
+import { AppError } from "@/lib/errors";
+import { getProjectForMember } from "@/lib/projects/queries";
+
+export const metadata: Metadata = { title: "Project" };
+
+export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const user = await requireUser();
+  if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
+  let data;
+  try {
+    data = await getProjectForMember(user, projectId);
+  } catch (error) {
+    if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
+      return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden">You are not a member of it. Ask your administrator if you should be.</Notice>;
+    }
+    throw error;
+  }
+  const { project, role, members } = data;
+  return (
+    <>
+      <PageHeader title={project.name} subtitle={`${project.code} · your role: ${role ? ROLE_LABELS[role] : "none"}`} />
+      <div className="grid gap-4 lg:grid-cols-3">
+        <section className="card p-4 lg:col-span-2" aria-labelledby="placements-title">
+          <h2 id="placements-title" className="text-lg font-bold">Placements</h2>
+          <p className="mt-2 text-muted" data-testid="no-placements">No placements yet.</p>
+        </section>
+        <section className="card p-4" aria-labelledby="project-facts">
+          <h2 id="project-facts" className="text-lg font-bold">Project</h2>
+          <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
+            <dt className="text-muted">Site</dt>
+            <dd>{project.siteAddress || "Not set"}</dd>
+            <dt className="text-muted">Time zone</dt>
+            <dd>{project.timeZone}</dd>
+            <dt className="text-muted">Units</dt>
+            <dd>{project.unitSystem === "IP" ? "Inch-pound" : "SI (metric)"}</dd>
+            <dt className="text-muted">Specification</dt>
+            <dd>{project.specEditions || "Not recorded"}</dd>
+            <dt className="text-muted">Truck time limit</dt>
+            <dd>{project.dischargeLimitMinutes} min from batching</dd>
+          </dl>
+          <h3 className="mt-4 font-bold">Members</h3>
+          <ul className="mt-1 text-sm" data-testid="member-list">
+            {members.map((m) => (
+              <li key={m.userId} className="flex justify-between gap-2 py-1">
+                <span>{m.name}</span>
+                <span className="text-muted">{ROLE_LABELS[m.role]}</span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      </div>
+    </>
+  );
+}

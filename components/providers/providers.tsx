@@ -1,0 +1,20 @@
+"use client";
+
+import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { SessionProvider } from "next-auth/react";
+import { useState } from "react";
+import { ServiceWorkerRegistration } from "./service-worker";
+
+export function Providers({ children }: { children: React.ReactNode }) {
+  const [queryClient] = useState(
+    () => new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1 } } }),
+  );
+  return (
+    <SessionProvider refetchOnWindowFocus={false}>
+      <QueryClientProvider client={queryClient}>
+        <ServiceWorkerRegistration />
+        {children}
+      </QueryClientProvider>
+    </SessionProvider>
+  );
+}

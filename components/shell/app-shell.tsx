@@ -1,0 +1,84 @@
+"use client";
+
+import clsx from "clsx";
+import { CalendarDays, FolderKanban, Gauge, ShieldCheck } from "lucide-react";
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+import { LogoMark } from "@/components/brand/logo-mark";
+import type { UserProject } from "@/lib/users/queries";
+import { ContrastToggle } from "./contrast-toggle";
+import { ProjectSwitcher } from "./project-switcher";
+import { SyncStatus } from "./sync-status";
+import { UserMenu } from "./user-menu";
+
+export type ShellUser = { id: string; name: string; email: string; isAdmin: boolean };
+
+const NAV = [
+  { href: "/today", label: "Today", icon: CalendarDays },
+  { href: "/projects", label: "Projects", icon: FolderKanban },
+  { href: "/tools/evaporation", label: "Calculator", icon: Gauge },
+];
+
+export function AppShell({ user, projects, children }: { user: ShellUser; projects: UserProject[]; children: React.ReactNode }) {
+  const pathname = usePathname();
+  const nav = user.isAdmin ? [...NAV, { href: "/admin", label: "Admin", icon: ShieldCheck }] : NAV;
+  const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
+
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
+        <div className="mx-auto flex max-w-7xl items-center gap-3 px-3 py-2 lg:px-6">
+          <Link href="/today" className="flex items-center gap-2" aria-label="Placewright, today">
+            <LogoMark className="h-9 w-9" />
+            <span className="hidden text-lg font-bold tracking-tight sm:inline">Placewright</span>
+          </Link>
+          <ProjectSwitcher projects={projects} />
+          <nav aria-label="Main" className="ml-2 hidden items-center gap-1 md:flex">
+            {nav.map(({ href, label }) => (
+              <Link
+                key={href}
+                href={href}
+                aria-current={isActive(href) ? "page" : undefined}
+                className={clsx(
+                  "rounded-md px-3 py-2 text-sm font-semibold",
+                  isActive(href) ? "bg-white/15 text-white" : "text-ink-200 hover:bg-white/10 hover:text-white",
+                )}
+              >
+                {label}
+              </Link>
+            ))}
+          </nav>
+          <div className="ml-auto flex items-center gap-1">
+            <SyncStatus />
+            <ContrastToggle />
+            <UserMenu user={user} />
+          </div>
+        </div>
+      </header>
+
+      <main className="mx-auto w-full max-w-7xl flex-1 px-3 pb-28 pt-4 md:pb-10 lg:px-6">{children}</main>
+
+      {/* Phone: the main places sit under the thumb. */}
+      <nav
+        aria-label="Main"
+        className="no-print fixed inset-x-0 bottom-0 z-20 grid border-t border-ink-200 bg-white md:hidden"
+        style={{ gridTemplateColumns: `repeat(${nav.length}, minmax(0, 1fr))` }}
+      >
+        {nav.map(({ href, label, icon: Icon }) => (
+          <Link
+            key={href}
+            href={href}
+            aria-current={isActive(href) ? "page" : undefined}
+            className={clsx(
+              "flex min-h-16 flex-col items-center justify-center gap-1 text-xs font-semibold",
+              isActive(href) ? "text-lichen-700" : "text-ink-600",
+            )}
+          >
+            <Icon className="h-6 w-6" aria-hidden="true" />
+            {label}
+          </Link>
+        ))}
+      </nav>
+    </div>
+  );
+}

@@ -1,0 +1,47 @@
+"use client";
+
+import { LogOut, UserRound } from "lucide-react";
+import { signOut } from "next-auth/react";
+import { useEffect, useRef, useState } from "react";
+import type { ShellUser } from "./app-shell";
+
+export function UserMenu({ user }: { user: ShellUser }) {
+  const [open, setOpen] = useState(false);
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!open) return;
+    const close = (e: MouseEvent) => ref.current && !ref.current.contains(e.target as Node) && setOpen(false);
+    document.addEventListener("mousedown", close);
+    return () => document.removeEventListener("mousedown", close);
+  }, [open]);
+
+  return (
+    <div className="relative" ref={ref}>
+      <button
+        type="button"
+        aria-expanded={open}
+        aria-haspopup="menu"
+        onClick={() => setOpen((o) => !o)}
+        data-testid="user-menu"
+        className="inline-flex min-h-11 min-w-11 items-center justify-center gap-2 rounded-md px-2 text-sm font-semibold text-white hover:bg-white/10"
+      >
+        <UserRound className="h-5 w-5" aria-hidden="true" />
+        <span className="hidden max-w-[10rem] truncate lg:inline">{user.name}</span>
+      </button>
+      {open ? (
+        <div role="menu" className="absolute right-0 mt-2 w-64 rounded-lg border border-ink-200 bg-white p-2 text-ink-900 shadow-lg">
+          <p className="px-2 pt-1 font-semibold" data-testid="signed-in-name">{user.name}</p>
+          <p className="truncate px-2 pb-2 text-sm text-muted">{user.email}</p>
+          <button
+            type="button"
+            role="menuitem"
+            onClick={() => signOut({ callbackUrl: "/signin" })}
+            className="flex min-h-touch w-full items-center gap-2 rounded-md px-2 text-left font-semibold hover:bg-ink-100"
+          >
+            <LogOut className="h-5 w-5" aria-hidden="true" /> Sign out
+          </button>
+        </div>
+      ) : null}
+    </div>
+  );
+}

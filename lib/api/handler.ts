@@ -1,0 +1,97 @@
+import { NextResponse, type NextRequest } from "next/server";
+import { z, type ZodType } from "zod";
+import { requireUser } from "@/lib/auth/session";
+import type { SessionUser } from "@/lib/auth/options";
+import { AppError, invalidInput } from "@/lib/errors";
+import { ConcreteInputError } from "@/lib/concrete/errors";
+
+export type ErrorBody = { error: { code: string; message: string; fields?: Record<string, string> } };
+
+/** Field errors keyed by dotted path, with the schema's own (site-user) messages. */
+export function zodFields(error: z.ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join(".") : "_";
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+export function parseOrThrow<T>(schema: ZodType<T>, input: unknown): T {
+  const result = schema.safeParse(input);
+  if (!result.success) {
+    const fields = zodFields(result.error);
+    const first = Object.entries(fields)[0];
+    throw invalidInput(first ? first[1] : "The request is not valid.", fields);
+  }
+  return result.data;
+}
+
+export function errorResponse(error: unknown): NextResponse<ErrorBody> {
+  if (error instanceof AppError) {
+    return NextResponse.json(
+      { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}), ...(error.details ?? {}) } },
+      { status: error.status },
+    );
+  }
+  if (error instanceof ConcreteInputError) {
+    return NextResponse.json(
+      { error: { code: "invalid_input", message: error.message, fields: { [error.field]: error.message } } },
+      { status: 400 },
+    );
+  }
+  // Never leak a stack trace or SQL text; log it on the server instead.
+  console.error(error);
+  return NextResponse.json(
+    { error: { code: "internal", message: "Something went wrong on the server. Your data was not changed." } },
+    { status: 500 },
+  );
+}
+
+async function readJson(req: NextRequest): Promise<unknown> {
+  const text = await req.text();
+  if (!text) return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw invalidInput("The request body is not valid JSON.", { _: "The request body is not valid JSON." });
+  }
+}
+
+type Ctx<P, B> = { req: NextRequest; user: SessionUser; params: P; body: B };
+
+/**
+ * The one wrapper for authenticated route handlers: authenticate → validate → call lib → respond.
+ * Authorization against the project happens in lib (it needs the record's project), via lib/auth.
+ */
+export function apiRoute<P = Record<string, string>, B = undefined>(
+  options: { body?: ZodType<B> },
+  handler: (ctx: Ctx<P, B>) => Promise<unknown>,
+) {
+  return async (req: NextRequest, context: { params: Promise<P> }) => {
+    try {
+      const user = await requireUser();
+      const params = (await context.params) ?? ({} as P);
+      const body = options.body ? parseOrThrow(options.body, await readJson(req)) : (undefined as B);
+      const result = await handler({ req, user, params, body });
+      if (result instanceof Response) return result;
+      return NextResponse.json(result ?? { ok: true });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
+
+/** Same as apiRoute for routes that anyone may call (sign-in link requests, invitations). */
+export function publicRoute<B>(options: { body?: ZodType<B> }, handler: (ctx: { req: NextRequest; body: B }) => Promise<unknown>) {
+  return async (req: NextRequest) => {
+    try {
+      const body = options.body ? parseOrThrow(options.body, await readJson(req)) : (undefined as B);
+      const result = await handler({ req, body });
+      if (result instanceof Response) return result;
+      return NextResponse.json(result ?? { ok: true });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

@@ -1,0 +1,29 @@
+import type { Executor } from "@/db";
+import { auditEntries } from "@/db/schema";
+
+export type AuditInput = {
+  projectId: string | null;
+  userId: string | null;
+  deviceId?: string | null;
+  recordType: string;
+  recordId?: string | null;
+  action: string;
+  before?: unknown;
+  after?: unknown;
+  note?: string;
+};
+
+/** Appends an audit entry. Call it inside the transaction of the change it records. */
+export async function writeAudit(tx: Executor, entry: AuditInput): Promise<void> {
+  await tx.insert(auditEntries).values({
+    projectId: entry.projectId,
+    userId: entry.userId,
+    deviceId: entry.deviceId ?? null,
+    recordType: entry.recordType,
+    recordId: entry.recordId ?? null,
+    action: entry.action,
+    before: entry.before ?? null,
+    after: entry.after ?? null,
+    note: entry.note ?? null,
+  });
+}

@@ -1,0 +1,87 @@
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { z } from "zod";
+import { AppError } from "@/lib/errors";
+import { consumeSignInToken, findUserByEmail } from "@/lib/users/queries";
+import { verifyPassword } from "./password";
+import { assertNotLocked, clearFailures, recordFailure } from "./rate-limit";
+import { hashToken } from "./tokens";
+
+export type SessionUser = { id: string; email: string; name: string; isAdmin: boolean };
+
+const passwordCredentials = z.object({
+  email: z.string().trim().toLowerCase().email("Enter the e-mail address you were invited with."),
+  password: z.string().min(1, "Enter your password."),
+});
+
+export const WRONG_PASSWORD = "That e-mail and password do not match. Check both, or send yourself a sign-in link.";
+
+// next-auth passes a thrown Error's message back to the sign-in form as `error`.
+async function authorizePassword(raw: Record<string, string> | undefined): Promise<SessionUser> {
+  const parsed = passwordCredentials.safeParse(raw ?? {});
+  if (!parsed.success) throw new Error(parsed.error.issues[0]?.message ?? "Enter your e-mail and password.");
+  const { email, password } = parsed.data;
+  try {
+    await assertNotLocked(email);
+    const user = await findUserByEmail(email);
+    const ok = user && !user.disabledAt && (await verifyPassword(user.passwordHash, password));
+    if (!ok || !user) {
+      await recordFailure(email);
+      throw new Error(WRONG_PASSWORD);
+    }
+    await clearFailures(email);
+    return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
+  } catch (error) {
+    if (error instanceof AppError) throw new Error(error.message);
+    throw error;
+  }
+}
+
+async function authorizeLink(raw: Record<string, string> | undefined): Promise<SessionUser> {
+  const token = raw?.token ?? "";
+  const user = token ? await consumeSignInToken(hashToken(token)) : undefined;
+  if (!user || user.disabledAt) {
+    throw new Error("This sign-in link has expired or was already used. Ask for a new one.");
+  }
+  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
+}
+
+export const authOptions: NextAuthOptions = {
+  session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
+  pages: { signIn: "/signin" },
+  providers: [
+    CredentialsProvider({
+      id: "password",
+      name: "E-mail and password",
+      credentials: { email: { type: "email" }, password: { type: "password" } },
+      authorize: (credentials) => authorizePassword(credentials as Record<string, string>),
+    }),
+    CredentialsProvider({
+      id: "link",
+      name: "Sign-in link",
+      credentials: { token: { type: "text" } },
+      authorize: (credentials) => authorizeLink(credentials as Record<string, string>),
+    }),
+  ],
+  callbacks: {
+    jwt({ token, user }) {
+      if (user) {
+        const u = user as SessionUser;
+        token.sub = u.id;
+        token.name = u.name;
+        token.email = u.email;
+        token.isAdmin = u.isAdmin;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      session.user = {
+        id: token.sub ?? "",
+        email: token.email ?? "",
+        name: token.name ?? "",
+        isAdmin: Boolean(token.isAdmin),
+      };
+      return session;
+    },
+  },
+};

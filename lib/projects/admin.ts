@@ -1,0 +1,91 @@
+import { and, asc, count, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { memberships, projects, users } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/options";
+import { authorizeAdmin } from "@/lib/auth/authorize";
+import type { ProjectRole } from "@/lib/auth/roles";
+import { writeAudit } from "@/lib/audit";
+import { AppError, notFound } from "@/lib/errors";
+import { findUserByEmail } from "@/lib/users/queries";
+import type { ProjectInput } from "./schemas";
+
+export async function createProject(actor: SessionUser, input: ProjectInput) {
+  authorizeAdmin(actor, "admin.projects");
+  return db.transaction(async (tx) => {
+    const [clash] = await tx.select({ id: projects.id }).from(projects).where(eq(projects.code, input.code));
+    if (clash) throw new AppError("conflict", `The code ${input.code} is taken by another project.`, { code: "Already used." });
+    const [project] = await tx.insert(projects).values(input).returning();
+    await writeAudit(tx, { projectId: project.id, userId: actor.id, recordType: "project", recordId: project.id, action: "create", after: project });
+    return project;
+  });
+}
+
+export async function listProjectsWithCounts(actor: SessionUser) {
+  authorizeAdmin(actor, "admin.projects");
+  return db
+    .select({ id: projects.id, name: projects.name, code: projects.code, unitSystem: projects.unitSystem, timeZone: projects.timeZone, members: count(memberships.userId) })
+    .from(projects)
+    .leftJoin(memberships, eq(memberships.projectId, projects.id))
+    .groupBy(projects.id)
+    .orderBy(asc(projects.name));
+}
+
+export async function getProjectForAdmin(actor: SessionUser, projectId: string) {
+  authorizeAdmin(actor, "admin.projects");
+  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
+  if (!project) throw notFound("Project");
+  const members = await db
+    .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.projectId, projectId))
+    .orderBy(asc(users.name));
+  return { project, members };
+}
+
+export async function addMember(actor: SessionUser, projectId: string, email: string, role: ProjectRole) {
+  authorizeAdmin(actor, "admin.projects");
+  const user = await findUserByEmail(email);
+  if (!user) {
+    throw new AppError("not_found", "No account uses that e-mail address. Invite the person first.", { email: "No account with this address." });
+  }
+  return db.transaction(async (tx) => {
+    const [project] = await tx.select({ id: projects.id }).from(projects).where(eq(projects.id, projectId));
+    if (!project) throw notFound("Project");
+    const inserted = await tx.insert(memberships).values({ userId: user.id, projectId, role }).onConflictDoNothing().returning();
+    if (inserted.length === 0) {
+      throw new AppError("conflict", `${user.name} is already a member of this project. Change the role instead.`, { email: "Already a member." });
+    }
+    await writeAudit(tx, { projectId, userId: actor.id, recordType: "membership", recordId: user.id, action: "create", after: { email: user.email, role } });
+    return inserted[0];
+  });
+}
+
+export async function changeMemberRole(actor: SessionUser, projectId: string, userId: string, role: ProjectRole) {
+  authorizeAdmin(actor, "admin.projects");
+  return db.transaction(async (tx) => {
+    const [before] = await tx.select().from(memberships).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).for("update");
+    if (!before) throw notFound("Membership");
+    const [after] = await tx.update(memberships).set({ role }).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).returning();
+    await writeAudit(tx, { projectId, userId: actor.id, recordType: "membership", recordId: userId, action: "update", before: { role: before.role }, after: { role } });
+    return after;
+  });
+}
+
+export async function removeMember(actor: SessionUser, projectId: string, userId: string) {
+  authorizeAdmin(actor, "admin.projects");
+  return db.transaction(async (tx) => {
+    const [removed] = await tx.delete(memberships).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).returning();
+    if (!removed) throw notFound("Membership");
+    await writeAudit(tx, { projectId, userId: actor.id, recordType: "membership", recordId: userId, action: "delete", before: { role: removed.role } });
+  });
+}
+
+export async function listUsers(actor: SessionUser) {
+  authorizeAdmin(actor, "admin.users");
+  return db
+    .select({ id: users.id, name: users.name, email: users.email, isAdmin: users.isAdmin, hasPassword: users.passwordHash })
+    .from(users)
+    .orderBy(asc(users.name))
+    .then((rows) => rows.map((r) => ({ ...r, hasPassword: Boolean(r.hasPassword) })));
+}

@@ -1,0 +1,73 @@
+#!/usr/bin/env bash
+# Starts Placewright with demo data on http://localhost:3000.
+# Installs what is missing, starts a project-local PostgreSQL (durable defaults) and the local
+# mail/S3 fakes, migrates, seeds the demo scenario (idempotent), builds and serves the app.
+# Ctrl-C stops the app, the fakes and the cluster.
+source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
+
+APP_PORT="${PORT:-3000}"
+PG_PORT="${PG_PORT:-54329}"
+export SMTP_PORT="${SMTP_PORT:-2525}" MAILBOX_PORT="${MAILBOX_PORT:-2580}" S3_PORT="${S3_PORT:-4569}"
+RUN_DIR="$DATA_DIR/run"
+
+cleanup() {
+  local rc=$?
+  trap - EXIT INT TERM
+  log "Stopping the app, the fakes and PostgreSQL"
+  stop_pidfile "$RUN_DIR/app.pid"
+  stop_pidfile "$RUN_DIR/fakes.pid"
+  pg_down pg
+  exit "$rc"
+}
+
+port_busy "$APP_PORT" && die "Port $APP_PORT is busy. Stop the program that uses it (ss -ltnp 'sport = :$APP_PORT') or run with PORT=<another port>."
+
+ensure_debian_packages postgresql
+ensure_node_modules
+mkdir -p "$RUN_DIR"
+trap cleanup EXIT INT TERM
+
+pg_up pg "$PG_PORT" yes
+pg_ensure_db "$PG_PORT" placewright
+
+export DATABASE_URL="postgres://placewright@127.0.0.1:$PG_PORT/placewright"
+export NEXTAUTH_URL="http://localhost:$APP_PORT"
+SECRET_FILE="$DATA_DIR/nextauth-secret"
+[ -f "$SECRET_FILE" ] || (umask 077; head -c 32 /dev/urandom | base64 >"$SECRET_FILE")
+export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(cat "$SECRET_FILE")}"
+export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
+export MAILBOX_URL="http://127.0.0.1:$MAILBOX_PORT"
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_REGION=us-east-1 S3_BUCKET=placewright-photos
+export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER S3_FORCE_PATH_STYLE=true
+export APP_ORIGIN="http://localhost:$APP_PORT"
+
+start_fakes "$RUN_DIR"
+
+log "Applying migrations"
+(cd "$ROOT" && npx tsx scripts/migrate.mts) || die "Migrations failed: see the output above."
+log "Seeding the demo scenario"
+(cd "$ROOT" && npx tsx scripts/seed.mts) || die "Seeding failed: see the output above."
+
+if [ "${SKIP_BUILD:-0}" != "1" ]; then
+  log "Building (next build + service worker)"
+  (cd "$ROOT" && npm run --silent build) || die "The build failed: see the output above."
+fi
+
+cat <<MSG
+
+  Placewright is starting on http://localhost:$APP_PORT
+  Demo sign-ins (password for all: placewright-demo):
+    sam.super@example.test    superintendent
+    ines.inspect@example.test inspector
+    olu.office@example.test   office
+    oona.owner@example.test   owner
+    ada.admin@example.test    admin
+  Local mailbox (sign-in links, invitations, digests): http://127.0.0.1:$MAILBOX_PORT
+  Press Ctrl-C to stop everything.
+
+MSG
+
+cd "$ROOT"
+node node_modules/next/dist/bin/next start -H 0.0.0.0 -p "$APP_PORT" &
+echo $! >"$RUN_DIR/app.pid"
+wait "$(cat "$RUN_DIR/app.pid")"

@@ -1,0 +1,29 @@
+import path from "node:path";
+import { defineConfig } from "vitest/config";
+
+const alias = { "@": path.resolve(import.meta.dirname) };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], environment: "node" },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "integration",
+          include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          // One database: files run one after another, tests inside a file in order.
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 30_000,
+          setupFiles: ["tests/integration/setup.ts"],
+        },
+      },
+    ],
+  },
+});
