@@ -70,7 +70,7 @@ export function apiRoute<P = Record<string, string>, B = undefined>(
 ) {
   return async (req: NextRequest, context: { params: Promise<P> }) => {
     try {
-      const user = await requireUser();
+      const user = await requireUser(req);
       const params = (await context.params) ?? ({} as P);
       const body = options.body ? parseOrThrow(options.body, await readJson(req)) : (undefined as B);
       const result = await handler({ req, user, params, body });

@@ -1,0 +1,82 @@
+// Helpers for integration tests: real database rows, real session cookies, real route handlers.
+import { randomUUID } from "node:crypto";
+import { sql } from "drizzle-orm";
+import { NextRequest } from "next/server";
+import { encode } from "next-auth/jwt";
+import { db } from "@/db";
+import { memberships, projects, users } from "@/db/schema";
+import type { ProjectRole } from "@/lib/auth/roles";
+
+export type TestUser = { id: string; email: string; name: string; isAdmin: boolean };
+
+export async function createUser(opts: { isAdmin?: boolean; name?: string } = {}): Promise<TestUser> {
+  const tag = randomUUID().slice(0, 8);
+  const [row] = await db
+    .insert(users)
+    .values({ email: `user-${tag}@example.test`, name: opts.name ?? `Test User ${tag}`, isAdmin: opts.isAdmin ?? false })
+    .returning();
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin };
+}
+
+export async function createProject(opts: { unitSystem?: "SI" | "IP" } = {}) {
+  const tag = randomUUID().slice(0, 8).toUpperCase();
+  const [row] = await db
+    .insert(projects)
+    .values({ name: `Test Project ${tag}`, code: `T-${tag}`, timeZone: "America/Chicago", unitSystem: opts.unitSystem ?? "SI" })
+    .returning();
+  return row;
+}
+
+export async function addMembership(userId: string, projectId: string, role: ProjectRole) {
+  await db.insert(memberships).values({ userId, projectId, role });
+}
+
+/** A project with one member per role, plus an outsider who belongs to another project. */
+export async function projectWithTeam() {
+  const project = await createProject();
+  const team = {} as Record<ProjectRole, TestUser>;
+  for (const role of ["superintendent", "inspector", "office", "owner"] as const) {
+    team[role] = await createUser({ name: `${role} ${project.code}` });
+    await addMembership(team[role].id, project.id, role);
+  }
+  const otherProject = await createProject();
+  const outsider = await createUser({ name: `outsider ${project.code}` });
+  await addMembership(outsider.id, otherProject.id, "superintendent");
+  const admin = await createUser({ isAdmin: true, name: `admin ${project.code}` });
+  return { project, team, outsider, otherProject, admin };
+}
+
+/** The session cookie next-auth would set for this user (same secret, same encoding). */
+export async function sessionCookie(user: TestUser): Promise<string> {
+  const token = await encode({
+    token: { sub: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin },
+    secret: process.env.NEXTAUTH_SECRET!,
+  });
+  return `next-auth.session-token=${token}`;
+}
+
+type Handler<P> = (req: NextRequest, ctx: { params: Promise<P> }) => Promise<Response>;
+
+/** Calls a route handler the way Next does, as `user` (or anonymously), with a JSON or raw body. */
+export async function callRoute<P = Record<string, string>>(
+  handler: Handler<P>,
+  opts: { user?: TestUser | null; method?: string; url?: string; params?: P; body?: unknown; rawBody?: string },
+): Promise<{ status: number; json: any }> {
+  const headers = new Headers({ "content-type": "application/json" });
+  if (opts.user) headers.set("cookie", await sessionCookie(opts.user));
+  const body = opts.rawBody ?? (opts.body === undefined ? undefined : JSON.stringify(opts.body));
+  const req = new NextRequest(new URL(opts.url ?? "/api/test", "http://localhost:3100"), {
+    method: opts.method ?? (body === undefined ? "GET" : "POST"),
+    headers,
+    body,
+  });
+  const res = await handler(req, { params: Promise.resolve((opts.params ?? {}) as P) });
+  const text = await res.text();
+  return { status: res.status, json: text ? JSON.parse(text) : null };
+}
+
+/** Row count of a table, to show that a refused request changed nothing. */
+export async function countRows(table: string): Promise<number> {
+  const result = await db.execute(sql.raw(`select count(*)::int as n from "${table}"`));
+  return (result.rows[0] as { n: number }).n;
+}
