@@ -17,7 +17,7 @@ const passwordCredentials = z.object({
 export const WRONG_PASSWORD = "That e-mail and password do not match. Check both, or send yourself a sign-in link.";
 
 // next-auth passes a thrown Error's message back to the sign-in form as `error`.
-async function authorizePassword(raw: Record<string, string> | undefined): Promise<SessionUser> {
+export async function authorizePassword(raw: Record<string, string> | undefined): Promise<SessionUser> {
   const parsed = passwordCredentials.safeParse(raw ?? {});
   if (!parsed.success) throw new Error(parsed.error.issues[0]?.message ?? "Enter your e-mail and password.");
   const { email, password } = parsed.data;
@@ -37,7 +37,7 @@ async function authorizePassword(raw: Record<string, string> | undefined): Promi
   }
 }
 
-async function authorizeLink(raw: Record<string, string> | undefined): Promise<SessionUser> {
+export async function authorizeLink(raw: Record<string, string> | undefined): Promise<SessionUser> {
   const token = raw?.token ?? "";
   const user = token ? await consumeSignInToken(hashToken(token)) : undefined;
   if (!user || user.disabledAt) {

@@ -1,0 +1,154 @@
+import { describe, it, expect } from "vitest";
+
+import {
+  checkConcreteTempAtDischarge,
+  coldWeatherCautions,
+  hotWeatherCautions,
+  isColdWeather,
+  maxTemperatureDropC,
+  minimumConcreteTempC,
+  protectionPeriodDays,
+} from "../../../lib/concrete/cold-weather";
+import { ConcreteInputError } from "../../../lib/concrete/errors";
+import { fToC, inToMm } from "../../../lib/concrete/units";
+
+describe("minimumConcreteTempC", () => {
+  it("follows the section-size table: 13 / 10 / 7 / 5 °C [src: ACI 306R Line 1 / ACI 306.1 Table 3.1, secondary quotations]", () => {
+    expect(minimumConcreteTempC(200)).toBe(13);
+    expect(minimumConcreteTempC(600)).toBe(10);
+    expect(minimumConcreteTempC(1200)).toBe(7);
+    expect(minimumConcreteTempC(2500)).toBe(5);
+  });
+
+  it("puts exactly 300, 900 and 1800 mm in the column that starts or ends there [src: DOMAIN: '12 to 36 in']", () => {
+    expect(minimumConcreteTempC(299.9)).toBe(13);
+    expect(minimumConcreteTempC(300)).toBe(10);
+    expect(minimumConcreteTempC(900)).toBe(10);
+    expect(minimumConcreteTempC(900.1)).toBe(7);
+    expect(minimumConcreteTempC(1800)).toBe(7);
+    expect(minimumConcreteTempC(1800.1)).toBe(5);
+  });
+
+  it("uses the published °F row and inch boundaries for IP projects [src: ACI 306R, 55/50/45/40 °F]", () => {
+    expect(minimumConcreteTempC(inToMm(11.9), "IP")).toBeCloseTo(fToC(55), 10);
+    expect(minimumConcreteTempC(inToMm(12), "IP")).toBeCloseTo(fToC(50), 10);
+    expect(minimumConcreteTempC(inToMm(36), "IP")).toBeCloseTo(fToC(50), 10);
+    expect(minimumConcreteTempC(inToMm(72), "IP")).toBeCloseTo(fToC(45), 10);
+    expect(minimumConcreteTempC(inToMm(73), "IP")).toBeCloseTo(fToC(40), 10);
+  });
+
+  it("refuses a zero or negative dimension", () => {
+    expect(() => minimumConcreteTempC(0)).toThrow(ConcreteInputError);
+    expect(() => minimumConcreteTempC(-10)).toThrow(/Least section dimension/);
+  });
+});
+
+describe("maxTemperatureDropC", () => {
+  it("is 28 / 22 / 17 / 11 °C by section [memory: ACI 306R]", () => {
+    expect(maxTemperatureDropC(250)).toBe(28);
+    expect(maxTemperatureDropC(300)).toBe(22);
+    expect(maxTemperatureDropC(1000)).toBe(17);
+    expect(maxTemperatureDropC(2000)).toBe(11);
+  });
+
+  it("converts the °F drop as a difference, without the 32 °F offset [memory: 50 °F drop]", () => {
+    expect(maxTemperatureDropC(inToMm(10), "IP")).toBeCloseTo(27.78, 2);
+  });
+});
+
+describe("isColdWeather", () => {
+  it("current ACI 306R: cold when air is expected to fall below 4 °C [src: ACI 306R current definition]", () => {
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 3.5 }).cold).toBe(true);
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4 }).cold).toBe(false);
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 8 })).toEqual({
+      cold: false,
+      reason: "Air temperature stays above 4 °C during the protection period",
+    });
+  });
+
+  it("current ACI 306R: cold when air has fallen to 4 °C [src: ACI 306R 'has fallen to']", () => {
+    const result = isColdWeather({ definition: "aci306r-current", observedAirTempsC: [9, 6, 4], forecastMinAirTempC: 7 });
+    expect(result.cold).toBe(true);
+    expect(result.reason).toBe("Air temperature fell to 4.0 °C, at or below 4 °C");
+  });
+
+  it("uses 40 °F for IP projects and accepts a project override [src: ACI 306R 40 °F]", () => {
+    // 4.2 °C is 39.6 °F: cold by the inch-pound limit, not by the SI one.
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4.2, unitSystem: "IP" }).cold).toBe(true);
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4.2 }).cold).toBe(false);
+    expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4.2, thresholdC: 5 }).cold).toBe(true);
+  });
+
+  it("1990 definition: mean below 4 °C for more than 3 successive days [src: ACI 306.1-90, ACI 308.1]", () => {
+    const three = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [5, 3, 2, 1, 6, 3] });
+    expect(three.cold).toBe(false);
+    expect(three.reason).toMatch(/at most 3 successive days/);
+    const four = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [5, 3, 2, 1, 0, 6] });
+    expect(four.cold).toBe(true);
+    expect(four.reason).toBe("Average daily temperature was below 4 °C for 4 successive days (more than 3)");
+    // Exactly 4 °C is not "below 4 °C" and breaks the run.
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [3, 3, 4, 3, 3] }).cold).toBe(false);
+  });
+
+  it("refuses a check with no temperatures", () => {
+    expect(() => isColdWeather({ definition: "aci306r-current" })).toThrow(ConcreteInputError);
+    expect(() => isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [] })).toThrow(ConcreteInputError);
+    expect(() => isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [3, Number.NaN] })).toThrow(
+      /Temperature must be a number/,
+    );
+  });
+});
+
+describe("checkConcreteTempAtDischarge", () => {
+  it("35 °C maximum at discharge [src: ACI 305.1-14 §3.3.1; ACI 301]", () => {
+    expect(checkConcreteTempAtDischarge({ concreteTempC: 35 }).ok).toBe(true);
+    const hot = checkConcreteTempAtDischarge({ concreteTempC: 36 });
+    expect(hot).toMatchObject({ ok: false, tooHot: true, tooCold: false, limitC: 35 });
+    expect(hot.message).toBe("Concrete at 36.0 °C is above the 35.0 °C maximum at discharge");
+  });
+
+  it("takes the minimum from the section size [src: ACI 306.1 Table 3.1]", () => {
+    const cold = checkConcreteTempAtDischarge({ concreteTempC: 11, leastDimensionMm: 250 });
+    expect(cold).toMatchObject({ ok: false, tooHot: false, tooCold: true, limitC: 13, minC: 13 });
+    expect(checkConcreteTempAtDischarge({ concreteTempC: 11, leastDimensionMm: 600 }).ok).toBe(true);
+    expect(checkConcreteTempAtDischarge({ concreteTempC: 11, minC: 12 }).tooCold).toBe(true);
+  });
+
+  it("accepts a project maximum and reports in °F for IP projects", () => {
+    const result = checkConcreteTempAtDischarge({ concreteTempC: 33, maxC: 32, unitSystem: "IP" });
+    expect(result.tooHot).toBe(true);
+    expect(result.message).toBe("Concrete at 91.4 °F is above the 89.6 °F maximum at discharge");
+    expect(() => checkConcreteTempAtDischarge({ concreteTempC: Number.NaN })).toThrow(ConcreteInputError);
+  });
+});
+
+describe("protectionPeriodDays", () => {
+  it("2 / 3 / 6 days, 1 / 2 / 4 with accelerated set [memory: ACI 306R table, air-entrained]", () => {
+    expect(protectionPeriodDays({ serviceCategory: "no-load-not-exposed" })).toBe(2);
+    expect(protectionPeriodDays({ serviceCategory: "no-load-not-exposed", acceleratedSet: true })).toBe(1);
+    expect(protectionPeriodDays({ serviceCategory: "no-load-exposed" })).toBe(3);
+    expect(protectionPeriodDays({ serviceCategory: "no-load-exposed", acceleratedSet: true })).toBe(2);
+    expect(protectionPeriodDays({ serviceCategory: "partial-load-exposed" })).toBe(6);
+    expect(protectionPeriodDays({ serviceCategory: "partial-load-exposed", acceleratedSet: true })).toBe(4);
+  });
+
+  it("leaves full load to a strength-based decision", () => {
+    expect(protectionPeriodDays({ serviceCategory: "full-load-exposed" })).toBeNull();
+  });
+});
+
+describe("cautions", () => {
+  it("cold weather warns about unvented heaters and names who governs [common practice]", () => {
+    const text = coldWeatherCautions().join("\n");
+    expect(text).toMatch(/carbon monoxide/);
+    expect(text).toMatch(/vent/i);
+    expect(text).toMatch(/3\.5 MPa \(500 psi\)/);
+    expect(text).toMatch(/engineer of record/);
+  });
+
+  it("hot weather warns about heat stress and names who governs [common practice]", () => {
+    const text = hotWeatherCautions().join("\n");
+    expect(text).toMatch(/heat stress/);
+    expect(text).toMatch(/Project specifications, local codes and the engineer of record/);
+  });
+});
