@@ -114,7 +114,7 @@ describe("checkConcreteTempAtDischarge", () => {
     expect(checkConcreteTempAtDischarge({ concreteTempC: 11, minC: 12 }).tooCold).toBe(true);
   });
 
-  it("accepts a project maximum and reports in °F for IP projects", () => {
+  it("accepts a project maximum such as 32 °C for heated concrete, reported in °F for IP [src: ASTM C94 §12]", () => {
     const result = checkConcreteTempAtDischarge({ concreteTempC: 33, maxC: 32, unitSystem: "IP" });
     expect(result.tooHot).toBe(true);
     expect(result.message).toBe("Concrete at 91.4 °F is above the 89.6 °F maximum at discharge");

@@ -1,0 +1,11 @@
+// Pure concrete calculations for the field and office screens; no React, Next or database here.
+export * from "./errors";
+export * from "./units";
+export * from "./psychro";
+export * from "./evaporation";
+export * from "./cold-weather";
+export * from "./delivery";
+export * from "./tolerance";
+export * from "./yield";
+export * from "./strength";
+export * from "./maturity";
