@@ -21,7 +21,7 @@ export default async function ProjectsPage() {
             <li key={p.id}>
               <Link href={`/projects/${p.id}`} className="flex min-h-touch items-center justify-between gap-3 px-4 py-3 hover:bg-ink-50">
                 <span>
-                  <span className="block font-semibold text-ink-950">{p.name}</span>
+                  <span className="block font-semibold text-ink-950" data-testid="project-name">{p.name}</span>
                   <span className="text-sm text-muted">
                     {p.code} · {p.unitSystem === "IP" ? "inch-pound units" : "SI units"} · {p.timeZone}
                   </span>
