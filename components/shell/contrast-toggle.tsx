@@ -1,16 +1,23 @@
 "use client";
 
 import { Sun } from "lucide-react";
-import { useEffect, useState } from "react";
+import { useSyncExternalStore } from "react";
+
+const EVENT = "pw-contrast-change";
+
+function subscribe(callback: () => void) {
+  window.addEventListener(EVENT, callback);
+  return () => window.removeEventListener(EVENT, callback);
+}
+
+const isDaylight = () => document.documentElement.dataset.contrast === "daylight";
 
 /** Daylight mode: black on white, heavier borders, for direct sun. Remembered on the device. */
 export function ContrastToggle() {
-  const [daylight, setDaylight] = useState(false);
-  useEffect(() => setDaylight(document.documentElement.dataset.contrast === "daylight"), []);
+  const daylight = useSyncExternalStore(subscribe, isDaylight, () => false);
 
   const toggle = () => {
     const next = !daylight;
-    setDaylight(next);
     if (next) document.documentElement.dataset.contrast = "daylight";
     else delete document.documentElement.dataset.contrast;
     try {
@@ -18,6 +25,7 @@ export function ContrastToggle() {
     } catch {
       // Private mode: the choice lasts for this page only.
     }
+    window.dispatchEvent(new Event(EVENT));
   };
 
   return (
