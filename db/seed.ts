@@ -4,6 +4,7 @@ import { hashPassword } from "@/lib/auth/password";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { Database } from "./index";
 import { memberships, projects, users } from "./schema";
+import { seedRecords } from "./seed-records";
 
 export const DEMO_PASSWORD = "placewright-demo";
 
@@ -76,4 +77,5 @@ export async function seedFoundation(db: Database): Promise<void> {
 /** Every part of the demo scenario, in dependency order. */
 export async function seedDemo(db: Database): Promise<void> {
   await seedFoundation(db);
+  await seedRecords(db);
 }

@@ -55,3 +55,38 @@ describe("migrations and demo seed", () => {
     for (const u of DEMO_USERS) expect((emails.rows as { email: string }[]).map((r) => r.email)).toContain(u.email);
   });
 });
+
+describe("demo records", () => {
+  it("hold the scenario: every placement state, a late truck with water at the chute, the hot afternoon, the cold night, a low 28-day test", async () => {
+    await seedDemo(db);
+    const larkspur = "6f1c3e20-8d44-4b7e-b1a2-00000000000a";
+    const states = await db.execute(sql`select distinct state from placements where project_id in (${larkspur}, '6f1c3e20-8d44-4b7e-b1a2-00000000000b')`);
+    expect((states.rows as { state: string }[]).map((r) => r.state).sort()).toEqual(
+      ["cleared", "held", "placed", "placing", "planned", "ready", "signed"],
+    );
+    const late = await db.execute(
+      sql`select ticket_number from deliveries where project_id = ${larkspur}
+          and discharge_finished_at > batched_at + interval '90 minutes' and water_added_l > 0`,
+    );
+    expect(late.rows).toHaveLength(1);
+    const hot = await db.execute(sql`select max(evaporation_kg_m2_h) as e from weather_observations where project_id = ${larkspur}`);
+    expect(Number((hot.rows[0] as { e: number }).e)).toBeGreaterThan(1.0); // above the ACI 305R threshold
+    const cold = await db.execute(sql`select min(air_temp_c) as t from weather_observations`);
+    expect(Number((cold.rows[0] as { t: number }).t)).toBeLessThanOrEqual(-6);
+    const low = await db.execute(
+      sql`select avg(b.strength_mpa) as avg, max(m.fc_mpa) as fc from breaks b
+          join specimen_sets s on s.id = b.specimen_set_id join placements p on p.id = s.placement_id
+          join mix_designs m on m.id = p.mix_id where b.age_days = 28 group by s.id`,
+    );
+    expect((low.rows as { avg: number; fc: number }[]).some((r) => Number(r.avg) < Number(r.fc) - 3.45)).toBe(true);
+    // Change numbers are per project, unique, and the counter is at the highest one.
+    const seqs = await db.execute(sql`
+      select count(*)::int as n, count(distinct change_seq)::int as d, max(change_seq) as top,
+             (select last_seq from project_change_counters where project_id = ${larkspur}) as last
+      from (select change_seq from placements where project_id = ${larkspur} union all select change_seq from deliveries where project_id = ${larkspur}
+            union all select change_seq from mix_designs where project_id = ${larkspur}) x`);
+    const row = seqs.rows[0] as { n: number; d: number; top: string; last: string };
+    expect(row.d).toBe(row.n);
+    expect(Number(row.last)).toBeGreaterThanOrEqual(Number(row.top));
+  });
+});

@@ -1,10 +1,13 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
+import { PlacementList } from "@/components/placements/placement-list";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
+import { listPlacementsForScreen } from "@/lib/placements/queries";
 import { getProjectForMember } from "@/lib/projects/queries";
 
 export const metadata: Metadata = { title: "Project" };
@@ -23,13 +26,18 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     throw error;
   }
   const { project, role, members } = data;
+  const placements = await listPlacementsForScreen(user, projectId);
   return (
     <>
-      <PageHeader title={project.name} subtitle={`${project.code} · your role: ${role ? ROLE_LABELS[role] : "none"}`} />
+      <PageHeader
+        title={project.name}
+        subtitle={`${project.code} · your role: ${role ? ROLE_LABELS[role] : "none"}`}
+        actions={<Link href={`/projects/${projectId}/mixes`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="mixes-link">Mix designs</Link>}
+      />
       <div className="grid gap-4 lg:grid-cols-3">
         <section className="card p-4 lg:col-span-2" aria-labelledby="placements-title">
           <h2 id="placements-title" className="text-lg font-bold">Placements</h2>
-          <p className="mt-2 text-muted" data-testid="no-placements">No placements yet.</p>
+          <PlacementList placements={placements} unitSystem={project.unitSystem} timeZone={project.timeZone} />
         </section>
         <section className="card p-4" aria-labelledby="project-facts">
           <h2 id="project-facts" className="text-lg font-bold">Project</h2>

@@ -1,0 +1,35 @@
+import { doublePrecision, index, integer, pgEnum, pgTable, text, uuid, varchar } from "drizzle-orm/pg-core";
+import { instantColumn, syncedColumns } from "./columns";
+import { placements } from "./placements";
+import { syncedConstraints } from "./synced";
+import { DELIVERY_STATUSES } from "../../lib/records/enums";
+
+export const deliveryStatus = pgEnum("delivery_status", DELIVERY_STATUSES);
+
+/** A truck ticket, with what happened to the load at the site (ASTM C94 times and water). */
+export const deliveries = pgTable(
+  "deliveries",
+  {
+    ...syncedColumns(),
+    placementId: uuid("placement_id")
+      .notNull()
+      .references(() => placements.id),
+    ticketNumber: varchar("ticket_number", { length: 40 }).notNull(),
+    truck: varchar("truck", { length: 40 }).notNull().default(""),
+    volumeM3: doublePrecision("volume_m3").notNull(),
+    batchedAt: instantColumn("batched_at").notNull(),
+    arrivedAt: instantColumn("arrived_at").notNull(),
+    dischargeStartedAt: instantColumn("discharge_started_at"),
+    dischargeFinishedAt: instantColumn("discharge_finished_at"),
+    revolutions: integer("revolutions"),
+    waterAddedL: doublePrecision("water_added_l"),
+    waterFirstAt: instantColumn("water_first_at"),
+    waterLastAt: instantColumn("water_last_at"),
+    waterAddedBy: varchar("water_added_by", { length: 120 }),
+    waterAuthorisedBy: varchar("water_authorised_by", { length: 120 }),
+    admixtureNote: text("admixture_note"),
+    status: deliveryStatus("status").notNull().default("accepted"),
+    rejectReason: text("reject_reason"),
+  },
+  (t) => [...syncedConstraints("deliveries", t), index("deliveries_placement_idx").on(t.placementId)],
+);

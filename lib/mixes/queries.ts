@@ -1,0 +1,58 @@
+// Server-side reads for the mix design screens, through the records' own read path.
+import type { mixDesigns } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/options";
+import { can } from "@/lib/auth/can";
+import { AppError } from "@/lib/errors";
+import { getProjectForMember } from "@/lib/projects/queries";
+import { getRecord, listRecords } from "@/lib/records/read";
+import type { MixDesignValues } from "@/lib/records/schemas/mix-design";
+
+export type MixDesignRow = typeof mixDesigns.$inferSelect;
+
+/** The project and the user's role on it, or null when the user is not a member (or it does not exist). */
+export async function projectForScreen(user: SessionUser, projectId: string) {
+  try {
+    const { project, role } = await getProjectForMember(user, projectId);
+    return { project, role, canWriteMixes: can(user, "mix.write", role) };
+  } catch (error) {
+    if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) return null;
+    throw error;
+  }
+}
+
+export async function listMixes(user: SessionUser, projectId: string): Promise<MixDesignRow[]> {
+  const { items } = await listRecords({ user }, "mix-designs", projectId, { limit: "200" });
+  return (items as unknown as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
+}
+
+export async function getMix(user: SessionUser, projectId: string, id: string): Promise<MixDesignRow | null> {
+  try {
+    return (await getRecord({ user }, "mix-designs", projectId, id)) as unknown as MixDesignRow;
+  } catch (error) {
+    if (error instanceof AppError && error.code === "not_found") return null;
+    throw error;
+  }
+}
+
+/** The fields the form edits (no dates or bookkeeping), for a client component. */
+export function mixFormInput(row: MixDesignRow): MixDesignValues & { version: number } {
+  return {
+    id: row.id,
+    version: row.version,
+    code: row.code,
+    supplier: row.supplier,
+    fcMPa: row.fcMPa,
+    fcAgeDays: row.fcAgeDays === 56 ? 56 : 28,
+    maxWcm: row.maxWcm,
+    slumpTargetMm: row.slumpTargetMm,
+    slumpType: row.slumpType,
+    slumpToleranceMm: row.slumpToleranceMm,
+    airTargetPct: row.airTargetPct,
+    airTolerancePct: row.airTolerancePct,
+    maxConcreteTempC: row.maxConcreteTempC,
+    cementType: row.cementType,
+    scms: row.scms,
+    siteWaterAllowedLPerM3: row.siteWaterAllowedLPerM3,
+    lowBleed: row.lowBleed,
+  };
+}

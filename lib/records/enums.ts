@@ -1,0 +1,16 @@
+// Value lists shared by the database schema, the zod schemas and the screens. No imports, so a
+// client component can use them without pulling in the database layer.
+
+export const PLACEMENT_STATES = ["planned", "ready", "cleared", "placing", "placed", "signed", "held"] as const;
+export type PlacementState = (typeof PLACEMENT_STATES)[number];
+
+export const ELEMENT_TYPES = ["footing", "wall", "column", "beam", "slab-on-ground", "elevated-slab", "other"] as const;
+export type ElementType = (typeof ELEMENT_TYPES)[number];
+
+export const SLUMP_TYPES = ["target", "maximum"] as const;
+export const DELIVERY_STATUSES = ["accepted", "rejected"] as const;
+export const SUN_EXPOSURES = ["sun", "shade", "overcast"] as const;
+export const CHECKLIST_KINDS = ["readiness", "hot-weather", "cold-weather"] as const;
+export const CHECKLIST_ANSWERS = ["yes", "no", "na"] as const;
+export const STRENGTH_AGES_DAYS = [28, 56] as const;
+export const CYLINDER_DIAMETERS_MM = [100, 150] as const;

@@ -1,0 +1,100 @@
+// Checks shared by the write functions: ids in the URL, links to other records, the signed freeze.
+import { and, eq } from "drizzle-orm";
+import type { Executor } from "@/db";
+import { checklists, placements } from "@/db/schema";
+import { invalidInput, notFound } from "@/lib/errors";
+import { signedConflict } from "./db-errors";
+import { getRecordDef, type RecordDef } from "./registry";
+import type { RecordRow } from "./types";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** An id from a URL that is not a UUID cannot name anything: 404, not a database error. */
+export function assertUuid(value: string, what: string): void {
+  if (!UUID.test(value)) throw notFound(what);
+}
+
+/** The record with this id in this project, locked for the rest of the transaction; 404 otherwise. */
+export async function lockRecord(tx: Executor, def: RecordDef, projectId: string, id: string): Promise<RecordRow> {
+  const [row] = await tx
+    .select()
+    .from(def.table)
+    .where(and(eq(def.table.id, id), eq(def.table.projectId, projectId)))
+    .for("update");
+  if (!row) throw notFound(def.label);
+  return row as RecordRow;
+}
+
+/**
+ * The parent and referenced records must exist in the same project and not be deleted; a test's
+ * delivery must belong to the test's placement. Only the links present in `values` are checked.
+ */
+export async function checkLinks(
+  tx: Executor,
+  def: RecordDef,
+  projectId: string,
+  values: Record<string, unknown>,
+  record: Record<string, unknown> = values,
+): Promise<void> {
+  const links = [def.parent, ...(def.refs ?? [])].filter((link) => link !== undefined);
+  for (const link of links) {
+    const id = values[link.field];
+    if (id === undefined || id === null) continue;
+    const target = getRecordDef(link.type);
+    const [row] = await tx
+      .select()
+      .from(target.table)
+      .where(and(eq(target.table.id, id as string), eq(target.table.projectId, projectId)))
+      .for("share");
+    const name = target.label.toLowerCase();
+    if (!row) {
+      const message = `There is no ${name} with this id on this project`;
+      throw invalidInput(message, { [link.field]: message });
+    }
+    if ((row as RecordRow).deletedAt) {
+      const message = `That ${name} was deleted`;
+      throw invalidInput(message, { [link.field]: message });
+    }
+    if (link.samePlacement && (row as RecordRow).placementId !== record.placementId) {
+      const message = `That ${name} belongs to another placement`;
+      throw invalidInput(message, { [link.field]: message });
+    }
+  }
+}
+
+/** The placement whose sign-off freezes this record, if any. */
+async function freezingPlacementId(tx: Executor, def: RecordDef, row: Record<string, unknown>): Promise<string | null> {
+  switch (def.frozenBy) {
+    case "self":
+      return (row.id as string) ?? null;
+    case "placementId":
+      return (row.placementId as string | null | undefined) ?? null;
+    case "checklist": {
+      const [checklist] = await tx
+        .select({ placementId: checklists.placementId })
+        .from(checklists)
+        .where(eq(checklists.id, row.checklistId as string));
+      return checklist?.placementId ?? null;
+    }
+    default:
+      return null;
+  }
+}
+
+/**
+ * 409 when the record (or the placement it belongs to) is signed. The placement row is read FOR
+ * SHARE, so a sign-off running at the same time waits for this write, or this write sees it.
+ * The database trigger refuses the same changes; this check gives the friendly answer first.
+ */
+export async function assertNotSigned(tx: Executor, def: RecordDef, row: Record<string, unknown>): Promise<void> {
+  if (def.frozenBy === "self" && row.state === "signed") throw signedConflict();
+  const placementId = await freezingPlacementId(tx, def, row);
+  if (!placementId) return;
+  const [placement] = await tx
+    .select({ state: placements.state })
+    .from(placements)
+    .where(eq(placements.id, placementId))
+    .for("share");
+  if (placement?.state === "signed") throw signedConflict();
+}
+

@@ -1,0 +1,14 @@
+import { z } from "zod";
+import { clientId, instant, optionalText, recordId, requiredText, temperatureC } from "./fields";
+
+export const curingFields = {
+  method: requiredText("Curing method", 80),
+  readAt: instant("Reading time"),
+  tempC: temperatureC("Temperature"),
+  location: optionalText("Location", 120),
+  note: optionalText("Note", 1_000).nullable(),
+};
+export const curingCreateSchema = z
+  .object({ id: clientId, placementId: recordId("Placement"), ...curingFields })
+  .partial({ location: true, note: true });
+export const curingUpdateSchema = z.object(curingFields).partial();

@@ -1,0 +1,27 @@
+import { z } from "zod";
+import { ELEMENT_TYPES } from "@/lib/records/enums";
+import { choice, clientId, instant, measure, optionalText, recordId, requiredText } from "./fields";
+
+export const placementFields = {
+  element: requiredText("Element", 120),
+  level: optionalText("Level", 60),
+  grid: optionalText("Grid", 60),
+  elementType: choice("Element type", ELEMENT_TYPES),
+  leastDimensionMm: measure("Least dimension", 25, 10_000, "mm").nullable(),
+  plannedVolumeM3: measure("Planned volume", 0, 5_000, "m³").nullable(),
+  mixId: recordId("Mix").nullable(),
+  plannedStart: instant("Planned start"),
+};
+
+export const placementCreateSchema = z
+  .object({ id: clientId, ...placementFields })
+  .partial({ level: true, grid: true, leastDimensionMm: true, plannedVolumeM3: true, mixId: true });
+
+export const placementUpdateSchema = z.object(placementFields).partial().extend({
+  // The state is changed only through the workflow, which knows who may do what.
+  state: z
+    .never({ error: "Change the state with a transition (ready, cleared, held …), not by editing the placement" })
+    .optional(),
+});
+
+export type PlacementInput = z.input<typeof placementCreateSchema>;

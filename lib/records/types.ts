@@ -1,0 +1,22 @@
+import type { Executor } from "@/db";
+import type { SessionUser } from "@/lib/auth/options";
+
+/**
+ * Who is writing, from which device, and optionally the transaction to write in. The sync push
+ * passes its per-mutation transaction; every write then runs in a savepoint inside it, so a
+ * refused write rolls back alone and the push can record it as rejected.
+ */
+export type RecordContext = { user: SessionUser; deviceId?: string | null; tx?: Executor };
+
+/** The fields every synced record has; the rest depend on the type (see db/schema). */
+export type SyncedFields = {
+  id: string;
+  projectId: string;
+  version: number;
+  changeSeq: number;
+  createdAt: Date;
+  updatedAt: Date;
+  updatedBy: string | null;
+  deletedAt: Date | null;
+};
+export type RecordRow = SyncedFields & Record<string, unknown>;
