@@ -1,0 +1,237 @@
+// Pure helpers behind the evaporation calculator: parsing what was typed, unit switching, the
+// lib/concrete call with field errors, and the chart series. No React here, so it is unit-tested.
+import {
+  ConcreteInputError,
+  checkConcreteTempAtDischarge,
+  coldWeatherCautions,
+  describeEvaporation,
+  evaporationRateIP,
+  evaporationRateSI,
+  fromDisplay,
+  hotWeatherCautions,
+  isColdWeather,
+  toDisplay,
+  unitLabel,
+  type EvaporationDescription,
+  type UnitSystem,
+} from "@/lib/concrete";
+
+export type FieldName = "airTemp" | "humidity" | "wind" | "concreteTemp";
+export const FIELD_NAMES: FieldName[] = ["airTemp", "humidity", "wind", "concreteTemp"];
+
+/** What is in the four inputs, as typed, in the unit system named beside it. */
+export type Draft = Record<FieldName, string>;
+export type Readings = Record<FieldName, number>;
+
+// An afternoon that needs precautions, as a worked example the user overwrites.
+export const DEFAULT_DRAFTS: Record<UnitSystem, Draft> = {
+  IP: { airTemp: "90", humidity: "30", wind: "12", concreteTemp: "88" },
+  SI: { airTemp: "32", humidity: "30", wind: "20", concreteTemp: "31" },
+};
+
+export const FIELD_LABELS: Record<FieldName, string> = {
+  airTemp: "Air temperature",
+  humidity: "Relative humidity",
+  wind: "Wind speed",
+  concreteTemp: "Concrete temperature",
+};
+
+export function fieldUnit(field: FieldName, unitSystem: UnitSystem): string {
+  if (field === "humidity") return "%";
+  return unitLabel(field === "wind" ? "speed" : "temperature", unitSystem);
+}
+
+// Site phones type "1,5" as often as "1.5"; anything else that is not a plain decimal is refused
+// (Number() would accept "0x10" or "1e3", which nobody means on a slab).
+const DECIMAL = /^[-+\u2212]?(\d+([.,]\d*)?|[.,]\d+)$/;
+
+export function parseDecimal(text: string): number {
+  const trimmed = text.trim();
+  if (!DECIMAL.test(trimmed)) return Number.NaN;
+  return Number(trimmed.replace("\u2212", "-").replace(",", "."));
+}
+
+function roundForInput(value: number): string {
+  const rounded = Math.round(value * 10) / 10;
+  return String(Object.is(rounded, -0) ? 0 : rounded);
+}
+
+/** The same conditions in the other unit system; the untouched example maps to its own round numbers. */
+export function convertDraft(draft: Draft, from: UnitSystem, to: UnitSystem): Draft {
+  if (from === to) return draft;
+  const example = DEFAULT_DRAFTS[from];
+  if (FIELD_NAMES.every((f) => draft[f] === example[f])) return DEFAULT_DRAFTS[to];
+  const convert = (text: string, quantity: "temperature" | "speed") => {
+    const value = parseDecimal(text);
+    if (!Number.isFinite(value)) return text;
+    return roundForInput(toDisplay(quantity, fromDisplay(quantity, value, from), to));
+  };
+  return {
+    airTemp: convert(draft.airTemp, "temperature"),
+    humidity: draft.humidity,
+    wind: convert(draft.wind, "speed"),
+    concreteTemp: convert(draft.concreteTemp, "temperature"),
+  };
+}
+
+// lib/concrete names the failing input; map its field names onto the form's.
+const LIB_FIELDS: Record<string, FieldName> = {
+  airTempC: "airTemp",
+  airTempF: "airTemp",
+  relativeHumidityPct: "humidity",
+  windKmh: "wind",
+  windMph: "wind",
+  concreteTempC: "concreteTemp",
+  concreteTempF: "concreteTemp",
+};
+
+function describe(readings: Readings, unitSystem: UnitSystem, lowBleed: boolean): EvaporationDescription {
+  const { airTemp, humidity, wind, concreteTemp } = readings;
+  return unitSystem === "SI"
+    ? describeEvaporation({
+        unitSystem,
+        airTempC: airTemp,
+        relativeHumidityPct: humidity,
+        windKmh: wind,
+        concreteTempC: concreteTemp,
+        lowBleed,
+      })
+    : describeEvaporation({
+        unitSystem,
+        airTempF: airTemp,
+        relativeHumidityPct: humidity,
+        windMph: wind,
+        concreteTempF: concreteTemp,
+        lowBleed,
+      });
+}
+
+export type Evaluation =
+  | { ok: true; readings: Readings; description: EvaporationDescription }
+  | { ok: false; errors: Partial<Record<FieldName, string>> };
+
+// The library stops at the first bad input; to mark every bad field at once, each failing field
+// is noted and replaced by the example value before asking again.
+export function evaluate(draft: Draft, unitSystem: UnitSystem, lowBleed: boolean): Evaluation {
+  const errors: Partial<Record<FieldName, string>> = {};
+  const readings = {} as Readings;
+  for (const field of FIELD_NAMES) {
+    readings[field] = parseDecimal(draft[field]);
+    if (draft[field].trim() === "") errors[field] = `Enter the ${FIELD_LABELS[field].toLowerCase()}`;
+    else if (!Number.isFinite(readings[field])) errors[field] = `${FIELD_LABELS[field]} must be a number`;
+    if (errors[field]) readings[field] = parseDecimal(DEFAULT_DRAFTS[unitSystem][field]);
+  }
+  for (let attempt = 0; attempt <= FIELD_NAMES.length; attempt++) {
+    try {
+      const description = describe(readings, unitSystem, lowBleed);
+      return Object.keys(errors).length > 0 ? { ok: false, errors } : { ok: true, readings, description };
+    } catch (error) {
+      if (!(error instanceof ConcreteInputError)) throw error;
+      const field = LIB_FIELDS[error.field];
+      if (!field || errors[field]) throw error;
+      errors[field] = error.message;
+      readings[field] = parseDecimal(DEFAULT_DRAFTS[unitSystem][field]);
+    }
+  }
+  return { ok: false, errors };
+}
+
+// ACI 305R Fig. 2.1.5: 0.2 lb/ft²/h or 1.0 kg/m²/h, caution from half of it; half again for
+// low-bleed mixes (Silica Fume Association). The same numbers evaporationRisk applies (unit-tested).
+export function riskThresholds(unitSystem: UnitSystem, lowBleed: boolean) {
+  const factor = lowBleed ? 0.5 : 1;
+  return unitSystem === "SI"
+    ? { cautionAt: 0.5 * factor, highAt: 1.0 * factor }
+    : { cautionAt: 0.1 * factor, highAt: 0.2 * factor };
+}
+
+/** Rates are read to two decimals; the estimate is ±40 % anyway. */
+export const formatRate = (rate: number): string => rate.toFixed(2);
+
+// Nomograph range of the published chart: about 0–40 km/h (25 mph).
+export const CHART_WIND_MAX: Record<UnitSystem, number> = { SI: 40, IP: 25 };
+
+export interface ChartPoint {
+  wind: number;
+  rate: number;
+}
+
+/** Uno's rate at each whole wind speed for today's temperatures and humidity. */
+export function rateByWind(readings: Readings, unitSystem: UnitSystem): ChartPoint[] {
+  const top = Math.max(CHART_WIND_MAX[unitSystem], Math.ceil(readings.wind / 5) * 5);
+  const step = top > 60 ? 5 : 1;
+  const points: ChartPoint[] = [];
+  for (let wind = 0; wind <= top; wind += step) {
+    const rate =
+      unitSystem === "SI"
+        ? evaporationRateSI({
+            airTempC: readings.airTemp,
+            relativeHumidityPct: readings.humidity,
+            windKmh: wind,
+            concreteTempC: readings.concreteTemp,
+          })
+        : evaporationRateIP({
+            airTempF: readings.airTemp,
+            relativeHumidityPct: readings.humidity,
+            windMph: wind,
+            concreteTempF: readings.concreteTemp,
+          });
+    points.push({ wind, rate });
+  }
+  return points;
+}
+
+/** The first charted wind speed at which the rate reaches a level, or null within the chart. */
+export function windToReach(points: ChartPoint[], level: number): number | null {
+  return points.find((p) => p.rate >= level)?.wind ?? null;
+}
+
+// The chart in words, for screen readers and for anyone who cannot read the lines.
+export function chartSummary(points: ChartPoint[], unitSystem: UnitSystem, lowBleed: boolean): string {
+  const rateUnit = unitLabel("evaporationRate", unitSystem);
+  const speedUnit = unitLabel("speed", unitSystem);
+  const first = points[0];
+  const last = points[points.length - 1];
+  const { cautionAt, highAt } = riskThresholds(unitSystem, lowBleed);
+  const reach = (level: number, name: string) => {
+    const wind = windToReach(points, level);
+    if (wind === null) return `It stays below the ${name} level (${formatRate(level)}) up to ${last.wind} ${speedUnit}.`;
+    if (wind === 0) return `It is at or above the ${name} level (${formatRate(level)}) even in still air.`;
+    return `It reaches the ${name} level (${formatRate(level)}) at about ${wind} ${speedUnit}.`;
+  };
+  if (last.rate === 0) {
+    return `For these temperatures and humidity there is no evaporation at any wind speed up to ${last.wind} ${speedUnit}.`;
+  }
+  return [
+    `For these temperatures and humidity the rate rises from ${formatRate(first.rate)} ${rateUnit} in still air`,
+    `to ${formatRate(last.rate)} ${rateUnit} at ${last.wind} ${speedUnit}.`,
+    reach(cautionAt, "caution"),
+    reach(highAt, "high"),
+  ].join(" ");
+}
+
+// The governance line closes both lists in lib/concrete; the calculator shows it once, on its own.
+const withoutGovernance = (lines: string[]) => lines.filter((line) => !/engineer of record/i.test(line));
+
+// ACI 305.1 treats 27 °C (80 °F) and above as hot-weather temperatures; each system keeps its own number.
+const HOT_AIR: Record<UnitSystem, number> = { SI: 27, IP: 80 };
+
+export interface WeatherCautions {
+  hot: string[] | null;
+  cold: string[] | null;
+  /** Concrete above the maximum temperature at discharge (ACI 305.1 / ACI 301), in words. */
+  tooHotConcrete: string | null;
+}
+
+export function weatherCautions(readings: Readings, unitSystem: UnitSystem): WeatherCautions {
+  const airTempC = fromDisplay("temperature", readings.airTemp, unitSystem);
+  const concreteTempC = fromDisplay("temperature", readings.concreteTemp, unitSystem);
+  // ACI 306R, current definition: the air has fallen to 4 °C (40 °F).
+  const cold = isColdWeather({ definition: "aci306r-current", observedAirTempsC: [airTempC], unitSystem }).cold;
+  const discharge = checkConcreteTempAtDischarge({ concreteTempC, unitSystem });
+  return {
+    hot: readings.airTemp >= HOT_AIR[unitSystem] ? withoutGovernance(hotWeatherCautions()) : null,
+    cold: cold ? withoutGovernance(coldWeatherCautions()) : null,
+    tooHotConcrete: discharge.tooHot ? discharge.message : null,
+  };
+}
