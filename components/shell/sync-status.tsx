@@ -1,20 +1,36 @@
 "use client";
 
-import { Wifi, WifiOff } from "lucide-react";
-import { useSyncExternalStore } from "react";
+import clsx from "clsx";
+import { CloudCheck, CloudUpload, GitMerge, LogIn, RefreshCw, TriangleAlert, Wifi, WifiOff } from "lucide-react";
+import Link from "next/link";
+import { useEffect, useRef, useState } from "react";
+import { SyncDetails } from "@/components/sync/sync-details";
+import { useNow } from "@/components/sync/use-now";
+import { useSyncState, type SyncState } from "@/lib/sync/client/react";
+import { describeSince, plural } from "@/lib/sync/client/words";
 
-function subscribe(callback: () => void) {
-  window.addEventListener("online", callback);
-  window.addEventListener("offline", callback);
-  return () => {
-    window.removeEventListener("online", callback);
-    window.removeEventListener("offline", callback);
-  };
+type Look = { label: string; detail?: string; icon: typeof Wifi; tone: "plain" | "caution" | "danger"; spin?: boolean };
+
+/** What the control says, in words (the icon and colour only repeat it). */
+export function syncLook(state: SyncState, now: number): Look {
+  const waiting = state.waiting > 0 ? plural(state.waiting, "change") + " waiting" : undefined;
+  if (!state.online) return { label: "Offline", detail: waiting ?? "All saved on this device", icon: WifiOff, tone: "caution" };
+  // Until the counts are read, claim nothing about saved changes.
+  if (state.loading) return { label: "Online", icon: Wifi, tone: "plain" };
+  if (state.needsSignIn) return { label: "Sign in to sync", detail: waiting, icon: LogIn, tone: "caution" };
+  if (state.syncing) return { label: "Syncing", detail: waiting, icon: RefreshCw, tone: "plain", spin: true };
+  if (state.failed > 0 || (state.lastError && state.waiting > 0)) {
+    return { label: `${state.waiting} waiting`, detail: "Sync problem: tap for details", icon: TriangleAlert, tone: "caution" };
+  }
+  if (state.waiting > 0) return { label: `${state.waiting} waiting`, detail: waiting, icon: CloudUpload, tone: "plain" };
+  if (state.lastError) {
+    return { label: "All saved", detail: "Could not fetch the latest records: tap for details", icon: TriangleAlert, tone: "caution" };
+  }
+  const since = state.lastSyncAt && now ? `last sync ${describeSince(state.lastSyncAt, now)}` : undefined;
+  return { label: "All saved", detail: since, icon: CloudCheck, tone: "plain" };
 }
 
-/** Connection state in words and an icon. The outbox counts join it when field sync lands. */
-export function SyncStatus() {
-  const online = useSyncExternalStore(subscribe, () => navigator.onLine, () => true);
+function ConnectionOnly({ online }: { online: boolean }) {
   return (
     <span
       data-testid="sync-status"
@@ -24,5 +40,76 @@ export function SyncStatus() {
       <span className="hidden sm:inline">{online ? "Online" : "Offline"}</span>
       <span className="sr-only sm:hidden">{online ? "Online" : "Offline"}</span>
     </span>
+  );
+}
+
+/**
+ * The shell's sync control: Offline / Syncing / "N waiting" / "All saved" with the last sync, in
+ * words and an icon; conflicts to resolve as a link; a sheet with the waiting changes and errors.
+ * Without a SyncProvider above (pages that do not sync) it shows only online/offline.
+ */
+export function SyncStatus() {
+  const state = useSyncState();
+  const now = useNow();
+  const [open, setOpen] = useState(false);
+  const ref = useRef<HTMLDivElement>(null);
+
+  useEffect(() => {
+    if (!open) return;
+    const close = (e: MouseEvent) => ref.current && !ref.current.contains(e.target as Node) && setOpen(false);
+    const escape = (e: KeyboardEvent) => e.key === "Escape" && setOpen(false);
+    document.addEventListener("mousedown", close);
+    document.addEventListener("keydown", escape);
+    return () => {
+      document.removeEventListener("mousedown", close);
+      document.removeEventListener("keydown", escape);
+    };
+  }, [open]);
+
+  if (!state.available) return <ConnectionOnly online={state.online} />;
+
+  const look = syncLook(state, now);
+  const Icon = look.icon;
+  return (
+    <div className="relative flex items-center gap-1" ref={ref}>
+      {state.conflicts > 0 ? (
+        <Link
+          href="/field/conflicts"
+          data-testid="sync-conflicts"
+          className="inline-flex min-h-11 items-center gap-1.5 rounded-md bg-danger-50 px-2 text-sm font-semibold text-danger-800"
+        >
+          <GitMerge className="h-4 w-4" aria-hidden="true" />
+          {plural(state.conflicts, "conflict")}
+          <span className="sr-only"> to resolve</span>
+        </Link>
+      ) : null}
+      <button
+        type="button"
+        data-testid="sync-status"
+        data-state={look.label}
+        aria-expanded={open}
+        aria-haspopup="dialog"
+        onClick={() => setOpen((o) => !o)}
+        title={look.detail}
+        className={clsx(
+          "inline-flex min-h-11 items-center gap-1.5 rounded-md px-2 text-sm font-semibold",
+          look.tone === "plain" && "text-ink-100 hover:bg-white/10",
+          look.tone === "caution" && "bg-caution-100 text-caution-800",
+          look.tone === "danger" && "bg-danger-50 text-danger-800",
+        )}
+      >
+        <Icon className={clsx("h-4 w-4", look.spin && "motion-safe:animate-spin")} aria-hidden="true" />
+        <span className="hidden sm:inline">{look.label}</span>
+        <span className="sr-only sm:hidden">{look.label}</span>
+        {look.detail ? <span className="sr-only">. {look.detail}</span> : null}
+        {/* On a phone the count stays visible beside the icon. */}
+        {state.waiting > 0 ? (
+          <span aria-hidden="true" className="sm:hidden">
+            {state.waiting}
+          </span>
+        ) : null}
+      </button>
+      {open ? <SyncDetails state={state} onClose={() => setOpen(false)} /> : null}
+    </div>
   );
 }

@@ -9,24 +9,8 @@ import { notFound } from "@/lib/errors";
 import { computeBreak, computeWeather, type ComputeContext } from "./compute";
 import * as s from "./schemas";
 
-export const RECORD_TYPES = [
-  "mix-designs",
-  "placements",
-  "deliveries",
-  "field-tests",
-  "specimen-sets",
-  "breaks",
-  "weather-observations",
-  "checklists",
-  "checklist-items",
-  "curing-readings",
-  "diary-entries",
-  "diary-crew",
-  "diary-equipment",
-  "diary-delays",
-  "diary-visitors",
-] as const;
-export type RecordType = (typeof RECORD_TYPES)[number];
+export { RECORD_TYPES, type RecordType } from "./record-types";
+import { RECORD_TYPES, type RecordType } from "./record-types";
 
 /** The columns every synced table has (db/schema/columns.ts syncedColumns). */
 export type SyncedTable = PgTable & {

@@ -2,7 +2,7 @@
 // and the server (lib/sync/server). Every field write is one mutation; the server applies a device's
 // mutations in order, once each, and answers each with applied, conflict or rejected.
 import { z } from "zod";
-import { RECORD_TYPES } from "@/lib/records/registry";
+import { RECORD_TYPES } from "@/lib/records/record-types";
 
 /** Bumped when the local store or the wire format changes; a mismatch makes the pull reset. */
 export const SYNC_SCHEMA_VERSION = 1;

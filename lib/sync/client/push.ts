@@ -1,0 +1,302 @@
+// Sending the outbox (SYNC.md "POST /api/sync/push"): the waiting entries in order, at most
+// MAX_MUTATIONS_PER_PUSH at a time. The device keeps every entry until the server has said what became
+// of it (promise 1): applied → the entry leaves the outbox; conflict or rejected → the server has
+// stored the payload when it answers, so the entry leaves the outbox and the device keeps a copy in
+// `conflicts` for the person to see. Anything else keeps every entry:
+// - 409 gap: a device bug (an id is missing). Logged; the entries from the expected id on are
+//   renumbered (the server applied nothing after the gap, so none of them has been applied) and sent
+//   again. Nothing is dropped.
+// - 401: stop and ask the person to sign in again.
+// - 503 / network error / 429 / 502 / 504: transient, back off.
+// - other statuses: the entries are marked failed with the server's words, and retried with back-off.
+//
+// A change queued without a base version (it follows another waiting change to the same record, see
+// mutate.ts) is never sent in the same batch as that change: it waits for the answer, which fixes its
+// base version.
+import {
+  MAX_MUTATIONS_PER_PUSH,
+  SYNC_SCHEMA_VERSION,
+  type MutationResult,
+  type PushRequest,
+  type PushResponse,
+} from "@/lib/sync/protocol";
+import { ensureMeta, getMeta, setMeta, type ConflictRow, type OutboxEntry, type SyncDb } from "./db";
+import { applyEntry, rebuildRecord } from "./replay";
+
+export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
+
+export type PushOptions = {
+  fetch: FetchLike;
+  /** Default /api/sync/push. */
+  url?: string;
+  /**
+   * Entries left "sending" by a push that never finished (a closed tab) are sent again when older
+   * than this. The leading tab (Web Locks) passes 0: no other tab can be sending.
+   */
+  recoverSendingAfterMs?: number;
+  now?: () => Date;
+};
+
+export type PushOutcome =
+  | { kind: "idle" }
+  | { kind: "ok"; sent: number; applied: number; conflicts: number; rejected: number; more: boolean }
+  | { kind: "gap"; expectedId: number; message: string }
+  | { kind: "unauthenticated"; message: string }
+  | { kind: "transient"; message: string; status?: number }
+  | { kind: "failed"; message: string; status: number };
+
+export const MESSAGES = {
+  offline: "No connection to the server. Your changes stay on this device and are sent when the connection is back.",
+  busy: "The server is busy or being updated. Your changes stay on this device; trying again shortly.",
+  signIn: "Sign in again to sync. Your changes stay on this device.",
+  gap: "Some changes were out of order; they are being sent again in order.",
+  noAnswer: "The server did not answer this change; it will be sent again.",
+} as const;
+
+const TRANSIENT_STATUSES = new Set([408, 429, 502, 503, 504]);
+
+const recordKey = (entry: Pick<OutboxEntry, "recordType" | "recordId">) => `${entry.recordType}\u0000${entry.recordId}`;
+
+/** Picks the next batch and marks it "sending" (one transaction). */
+async function takeBatch(db: SyncDb, options: PushOptions): Promise<OutboxEntry[]> {
+  const now = (options.now ?? (() => new Date()))();
+  const recoverBefore = now.getTime() - (options.recoverSendingAfterMs ?? 0);
+  return db.transaction("rw", db.syncTables(), async () => {
+    const entries = await db.outbox.orderBy("seq").toArray();
+    const batch: OutboxEntry[] = [];
+    const seen = new Set<string>();
+    for (const entry of entries) {
+      if (batch.length >= MAX_MUTATIONS_PER_PUSH) break;
+      if (entry.state === "sending") {
+        const sentAt = entry.lastAttemptAt ? Date.parse(entry.lastAttemptAt) : 0;
+        // Order per device: nothing may overtake a change that may still be on its way.
+        if (sentAt > recoverBefore) break;
+      }
+      const key = recordKey(entry);
+      // A second change to a record already in this batch waits for the first one's answer.
+      if (seen.has(key)) break;
+      if (entry.name !== "create" && entry.baseVersion === undefined) {
+        // Its predecessor was answered without telling us (acknowledged by a pull): use what we know.
+        const row = await db.records(entry.recordType).get(entry.recordId);
+        entry.baseVersion = row && row.version >= 1 ? row.version : 1;
+      }
+      seen.add(key);
+      batch.push(entry);
+    }
+    for (const entry of batch) {
+      entry.state = "sending";
+      entry.attempts += 1;
+      entry.lastAttemptAt = now.toISOString();
+    }
+    await db.outbox.bulkPut(batch);
+    return batch;
+  });
+}
+
+/** Puts the batch back in the queue with a reason (nothing is dropped). */
+async function releaseBatch(db: SyncDb, batch: OutboxEntry[], state: "pending" | "failed", message: string) {
+  await db.transaction("rw", db.outbox, async () => {
+    for (const sent of batch) {
+      const entry = await db.outbox.get(sent.seq!);
+      if (!entry) continue;
+      entry.state = state;
+      entry.lastError = message;
+      await db.outbox.put(entry);
+    }
+  });
+}
+
+async function readError(res: Response): Promise<{ message?: string; reason?: string; expectedId?: number }> {
+  const body = (await res.json().catch(() => null)) as { error?: { message?: string; reason?: string; expectedId?: number } } | null;
+  return body?.error ?? {};
+}
+
+/** Sends one batch. */
+export async function pushOnce(db: SyncDb, options: PushOptions): Promise<PushOutcome> {
+  const { clientId } = await ensureMeta(db, SYNC_SCHEMA_VERSION);
+  const batch = await takeBatch(db, options);
+  if (batch.length === 0) return { kind: "idle" };
+
+  const body: PushRequest = {
+    clientId,
+    schemaVersion: SYNC_SCHEMA_VERSION,
+    mutations: batch.map((entry) => ({
+      id: entry.mutationId,
+      name: entry.name,
+      recordType: entry.recordType,
+      projectId: entry.projectId,
+      recordId: entry.recordId,
+      args: entry.args,
+      ...(entry.baseVersion !== undefined ? { baseVersion: entry.baseVersion } : {}),
+    })),
+  };
+
+  let res: Response;
+  try {
+    res = await options.fetch(options.url ?? "/api/sync/push", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body),
+      credentials: "same-origin",
+      cache: "no-store",
+    });
+  } catch {
+    await releaseBatch(db, batch, "pending", MESSAGES.offline);
+    return { kind: "transient", message: MESSAGES.offline };
+  }
+
+  if (res.status === 200) {
+    const json = (await res.json().catch(() => null)) as PushResponse | null;
+    if (!json || !Array.isArray(json.results) || typeof json.lastMutationId !== "number") {
+      const message = "The server's answer could not be read; the changes will be sent again.";
+      await releaseBatch(db, batch, "failed", message);
+      return { kind: "failed", message, status: 200 };
+    }
+    return applyResults(db, clientId, batch, json, options);
+  }
+  if (res.status === 401) {
+    await releaseBatch(db, batch, "pending", MESSAGES.signIn);
+    return { kind: "unauthenticated", message: MESSAGES.signIn };
+  }
+  if (res.status === 409) {
+    const error = await readError(res);
+    if (error.reason === "gap" && typeof error.expectedId === "number") {
+      console.error(`sync: the server expected change ${error.expectedId}; resending in order`, error.message);
+      await renumberFrom(db, error.expectedId, MESSAGES.gap);
+      return { kind: "gap", expectedId: error.expectedId, message: MESSAGES.gap };
+    }
+    const message = error.message ?? "The server refused these changes; they stay on this device.";
+    await releaseBatch(db, batch, "failed", message);
+    return { kind: "failed", message, status: 409 };
+  }
+  if (TRANSIENT_STATUSES.has(res.status)) {
+    await releaseBatch(db, batch, "pending", MESSAGES.busy);
+    return { kind: "transient", message: MESSAGES.busy, status: res.status };
+  }
+  const error = await readError(res);
+  const message = error.message
+    ? `${error.message} Your changes stay on this device.`
+    : `The server answered ${res.status}. Your changes stay on this device and will be sent again.`;
+  await releaseBatch(db, batch, "failed", message);
+  return { kind: "failed", message, status: res.status };
+}
+
+/** Applies the server's answers (one transaction). */
+async function applyResults(
+  db: SyncDb,
+  clientId: string,
+  batch: OutboxEntry[],
+  response: PushResponse,
+  options: PushOptions,
+): Promise<PushOutcome> {
+  const now = (options.now ?? (() => new Date()))().toISOString();
+  const counts = { applied: 0, conflicts: 0, rejected: 0 };
+  const byId = new Map<number, MutationResult>(response.results.map((result) => [result.id, result]));
+  const more = await db.transaction("rw", db.syncTables(), async () => {
+    for (const sent of batch) {
+      const result = byId.get(sent.mutationId);
+      const entry = await db.outbox.get(sent.seq!);
+      if (!entry) continue; // already acknowledged by a pull
+      if (!result) {
+        entry.state = "pending";
+        entry.lastError = MESSAGES.noAnswer;
+        await db.outbox.put(entry);
+        continue;
+      }
+      const table = db.records(entry.recordType);
+      let successorBase: number;
+      if (result.result === "applied") {
+        counts.applied += 1;
+        const version = result.version ?? (entry.baseVersion !== undefined ? entry.baseVersion + 1 : 1);
+        // The server copy now includes this change (the next pull brings the exact row).
+        const row = await table.get(entry.recordId);
+        if (row) {
+          const copy = applyEntry(row.serverCopy ?? undefined, entry, db.userId);
+          if (copy) await table.put({ ...row, serverCopy: { ...copy, version } });
+        }
+        successorBase = version;
+      } else {
+        if (result.result === "conflict") counts.conflicts += 1;
+        else counts.rejected += 1;
+        const conflict: ConflictRow = {
+          id: result.conflictId ?? `${result.result}-${clientId}-${entry.mutationId}`,
+          projectId: entry.projectId,
+          recordType: entry.recordType,
+          recordId: entry.recordId,
+          baseVersion: entry.baseVersion ?? null,
+          serverVersion: result.result === "conflict" ? (result.version ?? null) : null,
+          clientPayload: { name: entry.name, args: entry.args },
+          serverPayload: null,
+          reason: result.reason ?? result.result,
+          createdAt: now,
+          kind: result.result,
+          source: "push",
+          message: result.message,
+          mutationId: entry.mutationId,
+          mutationName: entry.name,
+        };
+        await db.conflicts.put(conflict);
+        // A change built on this one must not overwrite whatever the server has now.
+        successorBase = entry.baseVersion ?? 1;
+      }
+      await db.outbox.delete(entry.seq!);
+      const successor = await db.outbox
+        .where("[recordType+recordId]")
+        .equals([entry.recordType, entry.recordId])
+        .filter((other) => other.seq! > entry.seq!)
+        .sortBy("seq");
+      const next = successor[0];
+      if (next && next.name !== "create" && next.baseVersion === undefined) {
+        next.baseVersion = successorBase;
+        await db.outbox.put(next);
+      }
+      await rebuildRecord(db, entry.recordType, entry.recordId);
+    }
+    const last = (await getMeta(db, "lastMutationId")) ?? 0;
+    if (response.lastMutationId > last) await setMeta(db, "lastMutationId", response.lastMutationId);
+    return (await db.outbox.count()) > 0;
+  });
+  return { kind: "ok", sent: batch.length, ...counts, more };
+}
+
+/**
+ * After a gap: the entries from `expectedId` on get consecutive ids starting there (the server
+ * applied none of them). Entries below it are replays the server answers from its stored results.
+ */
+async function renumberFrom(db: SyncDb, expectedId: number, message: string) {
+  await db.transaction("rw", db.outbox, db.meta, async () => {
+    const entries = await db.outbox.orderBy("seq").toArray();
+    let id = expectedId;
+    for (const entry of entries) {
+      entry.state = "pending";
+      entry.lastError = message;
+      // Ids only move down (they are increasing integers), so the unique index never collides.
+      if (entry.mutationId >= expectedId) {
+        entry.mutationId = id;
+        id += 1;
+      }
+      await db.outbox.put(entry);
+    }
+    await setMeta(db, "nextMutationId", id);
+  });
+}
+
+/** Sends batches until the outbox is empty or a batch fails. */
+export async function pushAll(db: SyncDb, options: PushOptions, maxBatches = 1_000): Promise<PushOutcome> {
+  const total = { sent: 0, applied: 0, conflicts: 0, rejected: 0 };
+  let last: PushOutcome = { kind: "idle" };
+  for (let i = 0; i < maxBatches; i += 1) {
+    const outcome = await pushOnce(db, options);
+    if (outcome.kind !== "ok") {
+      if (outcome.kind === "idle" && total.sent > 0) return { kind: "ok", ...total, more: false };
+      return outcome;
+    }
+    total.sent += outcome.sent;
+    total.applied += outcome.applied;
+    total.conflicts += outcome.conflicts;
+    total.rejected += outcome.rejected;
+    last = { kind: "ok", ...total, more: outcome.more };
+    if (!outcome.more) return last;
+  }
+  return last;
+}
