@@ -46,6 +46,7 @@ step() {
   if ! "$@"; then checks_failed+=("$name"); return 1; fi
 }
 
+step "migrations match the schema" bash scripts/check-migrations.sh
 step "migrate" npx tsx scripts/migrate.mts
 step "seed" npx tsx scripts/seed.mts
 step "typecheck" npx tsc --noEmit
