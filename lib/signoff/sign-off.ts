@@ -1,0 +1,162 @@
+// The inspector's sign-off of a placed placement: re-entered password, typed name, drawn signature
+// and the SHA-256 of the record's content at that moment, stored with the state change in one
+// transaction. From then on the database trigger refuses changes; amendments sit beside it.
+import { randomUUID } from "node:crypto";
+import { and, asc, desc, eq } from "drizzle-orm";
+import { db } from "@/db";
+import { amendments, auditEntries, placements, signOffs, users } from "@/db/schema";
+import { parseOrThrow } from "@/lib/api/handler";
+import type { SessionUser } from "@/lib/auth/options";
+import { verifyPassword } from "@/lib/auth/password";
+import { writeAudit } from "@/lib/audit";
+import { AppError, conflict, notFound } from "@/lib/errors";
+import { signPlacement } from "@/lib/placements/sign";
+import { authorizeAny } from "@/lib/records/access";
+import { nextChangeSeq } from "@/lib/records/change-seq";
+import { assertUuid } from "@/lib/records/guards";
+import { inTransaction } from "@/lib/records/write";
+import { amendmentSchema, signOffSchema } from "./schemas";
+import { openItems, placementSnapshot, snapshotHash } from "./snapshot";
+
+function plural(n: number, one: string, many: string) {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+export async function signOffPlacement(user: SessionUser, projectId: string, placementId: string, input: unknown) {
+  assertUuid(projectId, "Project");
+  assertUuid(placementId, "Placement");
+  const body = parseOrThrow(signOffSchema, input);
+  // Role first: a superintendent is told so before being asked about passwords.
+  const role = await authorizeAny(db, user, projectId, ["placement.sign"]);
+  const [account] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, user.id));
+  if (!(await verifyPassword(account?.passwordHash ?? null, body.password))) {
+    throw new AppError("unauthenticated", "That password is not right. Nothing was signed.", { password: "Wrong password." });
+  }
+  return inTransaction({ user }, undefined, async (tx) => {
+    const snapshot = await placementSnapshot(tx, projectId, placementId);
+    if (!snapshot.placement) throw notFound("Placement");
+    const blocking = await openItems(tx, projectId, snapshot);
+    const reasons: string[] = [];
+    if (blocking.conflicts.length) {
+      reasons.push(`${plural(blocking.conflicts.length, "conflict", "conflicts")} to resolve (${[...new Set(blocking.conflicts.map((c) => c.recordType))].join(", ")})`);
+    }
+    if (blocking.pendingPhotos.length) reasons.push(`${plural(blocking.pendingPhotos.length, "photo", "photos")} still uploading`);
+    if (reasons.length) {
+      throw conflict(`This placement cannot be signed yet: ${reasons.join(" and ")}.`, {
+        reason: "open-items",
+        conflicts: blocking.conflicts.map((c) => c.id),
+        pendingPhotos: blocking.pendingPhotos.map((p) => p.id),
+      });
+    }
+    const contentHash = snapshotHash(snapshot);
+    const signedAt = new Date();
+    const placement = await signPlacement({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
+    const [row] = await tx
+      .insert(signOffs)
+      .values({
+        id: randomUUID(),
+        projectId,
+        version: 1,
+        changeSeq: await nextChangeSeq(tx, projectId),
+        updatedBy: user.id,
+        recordType: "placements",
+        recordId: placementId,
+        signerId: user.id,
+        role,
+        signedAt,
+        typedName: body.typedName,
+        signatureImage: body.signatureImage,
+        contentHash,
+      })
+      .returning();
+    await writeAudit(tx, {
+      projectId,
+      userId: user.id,
+      recordType: "sign-off",
+      recordId: row.id,
+      action: "sign",
+      after: { placementId, typedName: body.typedName, contentHash, signedAt },
+    });
+    return { signOff: { ...row, signatureImage: undefined }, placementVersion: placement.version };
+  });
+}
+
+/** Recomputes the hash and says whether the record still matches what was signed. */
+export async function verifyPlacementSignOff(user: SessionUser, projectId: string, placementId: string) {
+  assertUuid(projectId, "Project");
+  assertUuid(placementId, "Placement");
+  await authorizeAny(db, user, projectId, ["project.read"]);
+  const [signOff] = await db
+    .select()
+    .from(signOffs)
+    .where(and(eq(signOffs.projectId, projectId), eq(signOffs.recordType, "placements"), eq(signOffs.recordId, placementId)))
+    .orderBy(desc(signOffs.signedAt))
+    .limit(1);
+  const [placement] = await db.select({ id: placements.id }).from(placements).where(and(eq(placements.projectId, projectId), eq(placements.id, placementId)));
+  if (!placement) throw notFound("Placement");
+  const list = await db
+    .select()
+    .from(amendments)
+    .where(and(eq(amendments.projectId, projectId), eq(amendments.recordId, placementId)))
+    .orderBy(asc(amendments.createdAt));
+  if (!signOff) return { signed: false as const, amendments: list };
+  const currentHash = snapshotHash(await placementSnapshot(db, projectId, placementId));
+  return { signed: true as const, signOff, currentHash, matches: currentHash === signOff.contentHash, amendments: list };
+}
+
+/** An amendment beside a signed placement (inspector or office): what changes, why, who, when. */
+export async function addAmendment(user: SessionUser, projectId: string, placementId: string, input: unknown) {
+  assertUuid(projectId, "Project");
+  assertUuid(placementId, "Placement");
+  const body = parseOrThrow(amendmentSchema, input);
+  return inTransaction({ user }, undefined, async (tx) => {
+    await authorizeAny(tx, user, projectId, ["amendment.write"]);
+    const [placement] = await tx.select().from(placements).where(and(eq(placements.projectId, projectId), eq(placements.id, placementId)));
+    if (!placement) throw notFound("Placement");
+    if (placement.state !== "signed") {
+      throw conflict("Only a signed placement takes amendments; correct an unsigned one directly.", { reason: "state" });
+    }
+    const [existing] = await tx.select().from(amendments).where(eq(amendments.id, body.id));
+    if (existing) return existing; // a retried request
+    const [row] = await tx
+      .insert(amendments)
+      .values({
+        id: body.id,
+        projectId,
+        version: 1,
+        changeSeq: await nextChangeSeq(tx, projectId),
+        updatedBy: user.id,
+        recordType: "placements",
+        recordId: placementId,
+        what: body.what,
+        why: body.why,
+        authorId: user.id,
+      })
+      .returning();
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "amendment", recordId: row.id, action: "create", after: row, note: `amends placement ${placementId}` });
+    return row;
+  });
+}
+
+/** Every accepted change of a record, oldest first; readable by every member (owners included). */
+export async function auditTrail(user: SessionUser, projectId: string, recordId: string) {
+  assertUuid(projectId, "Project");
+  assertUuid(recordId, "Record");
+  await authorizeAny(db, user, projectId, ["project.read"]);
+  return db
+    .select({
+      id: auditEntries.id,
+      at: auditEntries.at,
+      action: auditEntries.action,
+      recordType: auditEntries.recordType,
+      deviceId: auditEntries.deviceId,
+      userName: users.name,
+      before: auditEntries.before,
+      after: auditEntries.after,
+      note: auditEntries.note,
+    })
+    .from(auditEntries)
+    .leftJoin(users, eq(users.id, auditEntries.userId))
+    .where(and(eq(auditEntries.projectId, projectId), eq(auditEntries.recordId, recordId)))
+    .orderBy(asc(auditEntries.id));
+}
