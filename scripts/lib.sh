@@ -130,7 +130,9 @@ start_fakes() {
   for p in "$SMTP_PORT" "$MAILBOX_PORT" "$S3_PORT"; do
     port_busy "$p" && die "Port $p is busy (needed by the local mail/S3 fakes). Stop what listens there or change the port."
   done
-  (cd "$ROOT" && FAKES_DIR="$dir" node --import tsx scripts/fakes.mts >"$dir/fakes.log" 2>&1 &
+  # `node` itself is the background job (not a subshell around it), so its pid is the one to stop.
+  (cd "$ROOT" || exit 1
+    FAKES_DIR="$dir" node --import tsx scripts/fakes.mts >"$dir/fakes.log" 2>&1 &
     echo $! >"$dir/fakes.pid")
   local i
   for i in $(seq 1 100); do
