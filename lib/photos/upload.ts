@@ -1,0 +1,121 @@
+// The photo lane (SYNC.md "Photos"): metadata first, bytes by presigned PUT, then "complete", where
+// the server checks that the stored object has the declared size, type and SHA-256.
+import { createHash } from "node:crypto";
+import { and, eq } from "drizzle-orm";
+import { z } from "zod";
+import { db } from "@/db";
+import { photos } from "@/db/schema";
+import { parseOrThrow } from "@/lib/api/handler";
+import type { SessionUser } from "@/lib/auth/options";
+import { writeAudit } from "@/lib/audit";
+import { conflict, invalidInput, notFound } from "@/lib/errors";
+import { authorizeAny } from "@/lib/records/access";
+import { nextChangeSeq } from "@/lib/records/change-seq";
+import { assertUuid } from "@/lib/records/guards";
+import { getRecord } from "@/lib/records/read";
+import { inTransaction } from "@/lib/records/write";
+import { photoKey, photoProblem, PHOTO_TYPES, type PhotoType } from "./rules";
+import { headObject, presignGet, presignPut, readObject } from "./storage";
+
+export const ATTACHABLE = ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries"] as const;
+
+export const photoUploadSchema = z.object({
+  recordType: z.enum(ATTACHABLE, { error: "Photos attach to a placement, delivery, test, observation, checklist item, curing reading or diary." }),
+  recordId: z.uuid("Choose the record the photo belongs to."),
+  caption: z.string().trim().max(500, "Keep the caption under 500 characters.").default(""),
+  takenAt: z.iso.datetime({ offset: true, error: "The time the photo was taken is not a valid date." }).optional(),
+  contentType: z.string({ error: "Say what kind of image this is." }),
+  sizeBytes: z.number({ error: "Send the photo's size in bytes." }).int("The size is a whole number of bytes."),
+  sha256: z.string().regex(/^[0-9a-f]{64}$/, "Send the photo's SHA-256 as 64 hex digits."),
+});
+export type PhotoUploadInput = z.input<typeof photoUploadSchema>;
+
+type PhotoRow = typeof photos.$inferSelect;
+
+async function findPhoto(projectId: string, photoId: string): Promise<PhotoRow | undefined> {
+  const [row] = await db.select().from(photos).where(and(eq(photos.projectId, projectId), eq(photos.id, photoId)));
+  return row;
+}
+
+/** Registers the photo (idempotent by id + hash) and returns where to PUT its bytes. */
+export async function requestPhotoUpload(user: SessionUser, projectId: string, photoId: string, input: unknown) {
+  assertUuid(projectId, "Project");
+  assertUuid(photoId, "Photo");
+  const body = parseOrThrow(photoUploadSchema, input);
+  const problem = photoProblem(body.contentType, body.sizeBytes);
+  if (problem) throw invalidInput(problem, { [body.sizeBytes > 0 && (PHOTO_TYPES as readonly string[]).includes(body.contentType) ? "sizeBytes" : "contentType"]: problem });
+  const contentType = body.contentType as PhotoType;
+  const key = photoKey(projectId, photoId, contentType);
+
+  const row = await inTransaction({ user }, undefined, async (tx) => {
+    await authorizeAny(tx, user, projectId, ["photo.add"]);
+    await getRecord({ user, tx }, body.recordType, projectId, body.recordId); // 404 for another project's record
+    const [existing] = await tx.select().from(photos).where(eq(photos.id, photoId)).for("update");
+    if (existing) {
+      if (existing.projectId !== projectId || existing.sha256 !== body.sha256) {
+        throw conflict("A different photo was already registered with this id.", { reason: "hash" });
+      }
+      return existing;
+    }
+    const [created] = await tx
+      .insert(photos)
+      .values({
+        id: photoId,
+        projectId,
+        version: 1,
+        changeSeq: await nextChangeSeq(tx, projectId),
+        updatedBy: user.id,
+        recordType: body.recordType,
+        recordId: body.recordId,
+        caption: body.caption,
+        takenAt: body.takenAt ? new Date(body.takenAt) : null,
+        sha256: body.sha256,
+        sizeBytes: body.sizeBytes,
+        contentType,
+        storageKey: key,
+      })
+      .returning();
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "photo", recordId: photoId, action: "create", after: created });
+    return created;
+  });
+  if (row.storedAt) return { stored: true as const, photoId };
+  return { stored: false as const, photoId, key, uploadUrl: await presignPut(key, contentType, body.sizeBytes), headers: { "content-type": contentType } };
+}
+
+/** Verifies the uploaded object (exists, size, type, SHA-256) and marks the photo stored. */
+export async function completePhotoUpload(user: SessionUser, projectId: string, photoId: string) {
+  assertUuid(projectId, "Project");
+  assertUuid(photoId, "Photo");
+  await authorizeAny(db, user, projectId, ["photo.add"]);
+  const photo = await findPhoto(projectId, photoId);
+  if (!photo) throw notFound("Photo");
+  if (photo.storedAt) return { stored: true, photoId };
+  const key = photo.storageKey!;
+  const head = await headObject(key);
+  if (!head) throw conflict("The photo's bytes have not arrived yet. Upload them, then try again.", { reason: "missing" });
+  if (head.size !== photo.sizeBytes) throw conflict(`The stored file is ${head.size} bytes, not the ${photo.sizeBytes} declared.`, { reason: "size" });
+  if (head.contentType !== photo.contentType) throw conflict(`The stored file is ${head.contentType}, not ${photo.contentType}.`, { reason: "type" });
+  const digest = createHash("sha256").update(await readObject(key)).digest("hex");
+  if (digest !== photo.sha256) throw conflict("The stored file does not match the photo's fingerprint (SHA-256). Upload it again.", { reason: "hash" });
+  await inTransaction({ user }, undefined, async (tx) => {
+    const changeSeq = await nextChangeSeq(tx, projectId);
+    const [after] = await tx
+      .update(photos)
+      .set({ storedAt: new Date(), version: photo.version + 1, changeSeq, updatedAt: new Date(), updatedBy: user.id })
+      .where(and(eq(photos.id, photoId), eq(photos.version, photo.version)))
+      .returning();
+    if (after) await writeAudit(tx, { projectId, userId: user.id, recordType: "photo", recordId: photoId, action: "stored", before: photo, after });
+  });
+  return { stored: true, photoId };
+}
+
+/** A short-lived link to view a stored photo (members only). */
+export async function photoViewUrl(user: SessionUser, projectId: string, photoId: string) {
+  assertUuid(projectId, "Project");
+  assertUuid(photoId, "Photo");
+  await authorizeAny(db, user, projectId, ["project.read"]);
+  const photo = await findPhoto(projectId, photoId);
+  if (!photo) throw notFound("Photo");
+  if (!photo.storedAt) return { stored: false as const };
+  return { stored: true as const, url: await presignGet(photo.storageKey!) };
+}
