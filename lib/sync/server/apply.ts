@@ -58,7 +58,8 @@ async function resolveConflict(ctx: RecordContext, m: Mutation): Promise<RecordR
   const row =
     Object.keys(patch).length > 0
       ? await updateRecord(ctx, m.recordType, m.projectId, m.recordId, { baseVersion: m.baseVersion, patch })
-      : await getRecord(ctx, m.recordType, m.projectId, m.recordId);
+      : // Keeping the server's values of a record deleted meanwhile accepts the deletion.
+        await getRecord(ctx, m.recordType, m.projectId, m.recordId, { includeDeleted: true });
   if (!open.resolvedAt) {
     const resolution = { patch, keptServer: Object.keys(patch).length === 0, version: row.version };
     await tx

@@ -1,0 +1,210 @@
+// npm run bench:sync [-- --count=10000] [--force]
+// Throughput of the sync push (lib/sync/server/push.ts) beside a baseline measured in the same run:
+// 1. sync push: N `create` mutations of deliveries through pushMutations, in batches of
+//    MAX_MUTATIONS_PER_PUSH (each mutation in its own transaction: client lock, validation, role,
+//    link and signed checks, change number, row, audit entry, stored result, watermark);
+// 2. baseline: the same rows (same table, same columns) into a second fresh project as plain
+//    multi-row INSERTs through `pg`, one statement of MAX_MUTATIONS_PER_PUSH rows per transaction,
+//    with the change numbers taken from the project's counter in the same transaction.
+// It prints both rates and their ratio, then deletes everything it created (projects cascade to
+// their records, audit entries, conflicts and counters; the user cascades to its sync clients and
+// their stored mutations). It refuses a database whose name has neither "test" nor "bench" in it
+// unless --force is given.
+import { randomUUID } from "node:crypto";
+import { performance } from "node:perf_hooks";
+import pg from "pg";
+
+const TEST_DATABASE_URL = "postgres://placewright@127.0.0.1:54339/placewright_test";
+
+const argv = process.argv.slice(2);
+const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
+const force = argv.includes("--force");
+const count = Number(option("count") ?? 10_000);
+if (!Number.isInteger(count) || count < 1) {
+  console.error("--count must be a whole number of 1 or more");
+  process.exit(2);
+}
+
+const url = process.env.DATABASE_URL ?? TEST_DATABASE_URL;
+const databaseName = decodeURIComponent(new URL(url).pathname.replace(/^\//, ""));
+if (!/test|bench/i.test(databaseName) && !force) {
+  console.error(
+    `bench-sync writes ${count.toLocaleString("en-US")} rows and refuses database "${databaseName}": ` +
+      `its name has neither "test" nor "bench". Point DATABASE_URL at a throwaway database, or pass --force.`,
+  );
+  process.exit(2);
+}
+// db/index.ts reads DATABASE_URL when it is first imported.
+process.env.DATABASE_URL = url;
+
+const { closeDb, db } = await import("../db/index.ts");
+const { memberships, projects, users } = await import("../db/schema/index.ts");
+const { MAX_MUTATIONS_PER_PUSH, SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
+type Mutation = import("../lib/sync/protocol.ts").Mutation;
+const { pushMutations } = await import("../lib/sync/server/push.ts");
+const { inArray, eq } = await import("drizzle-orm");
+
+const BATCH = MAX_MUTATIONS_PER_PUSH;
+const T0 = Date.parse("2026-11-16T08:00:00-06:00");
+const at = (minutes: number) => new Date(T0 + minutes * 60_000).toISOString();
+const fmt = (n: number) => Math.round(n).toLocaleString("en-US");
+
+/** The create input of the i-th delivery of a placement (what a device sends). */
+function delivery(i: number, placementId: string) {
+  return {
+    id: randomUUID(),
+    placementId,
+    ticketNumber: `B-${String(i).padStart(6, "0")}`,
+    truck: `T-${i % 40}`,
+    volumeM3: 8,
+    batchedAt: at(i),
+    arrivedAt: at(i + 30),
+    dischargeStartedAt: at(i + 35),
+    dischargeFinishedAt: at(i + 60),
+    revolutions: 70 + (i % 200),
+  };
+}
+type Delivery = ReturnType<typeof delivery>;
+
+const tag = randomUUID().slice(0, 8).toUpperCase();
+const [user] = await db
+  .insert(users)
+  .values({ email: `bench-${tag.toLowerCase()}@example.test`, name: `Bench ${tag}`, isAdmin: false })
+  .returning();
+const sessionUser = { id: user.id, email: user.email, name: user.name, isAdmin: false };
+const [syncProject, plainProject] = await db
+  .insert(projects)
+  .values([
+    { name: `Bench sync ${tag}`, code: `BS-${tag}`, timeZone: "America/Chicago", unitSystem: "SI" as const },
+    { name: `Bench plain ${tag}`, code: `BP-${tag}`, timeZone: "America/Chicago", unitSystem: "SI" as const },
+  ])
+  .returning();
+await db.insert(memberships).values([
+  { userId: user.id, projectId: syncProject.id, role: "superintendent" },
+  { userId: user.id, projectId: plainProject.id, role: "superintendent" },
+]);
+
+const plain = new pg.Client({ connectionString: url });
+await plain.connect();
+
+try {
+  // One placement per project, created through the same push (not timed; it also warms up the path).
+  const clientId = randomUUID();
+  const placementIds: string[] = [];
+  for (const [index, project] of [syncProject, plainProject].entries()) {
+    const id = randomUUID();
+    placementIds.push(id);
+    const setup = await pushMutations(sessionUser, {
+      clientId,
+      schemaVersion: SYNC_SCHEMA_VERSION,
+      mutations: [
+        {
+          id: index + 1,
+          name: "create",
+          recordType: "placements",
+          projectId: project.id,
+          recordId: id,
+          args: { id, element: "Bench slab", level: "L1", grid: "A-D/1-4", elementType: "elevated-slab", plannedStart: at(0) },
+        },
+      ],
+    });
+    if (setup.results[0].result !== "applied") throw new Error(`could not create the bench placement: ${JSON.stringify(setup.results[0])}`);
+  }
+
+  // 1. The sync push.
+  const firstId = 3;
+  const mutations: Mutation[] = Array.from({ length: count }, (_, i) => {
+    const args = delivery(i, placementIds[0]);
+    return { id: firstId + i, name: "create", recordType: "deliveries", projectId: syncProject.id, recordId: args.id, args };
+  });
+  let applied = 0;
+  const syncStart = performance.now();
+  for (let i = 0; i < mutations.length; i += BATCH) {
+    const response = await pushMutations(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.slice(i, i + BATCH) });
+    for (const result of response.results) {
+      if (result.result !== "applied") throw new Error(`mutation ${result.id} was not applied: ${JSON.stringify(result)}`);
+      applied += 1;
+    }
+  }
+  const syncSeconds = (performance.now() - syncStart) / 1000;
+  if (applied !== count) throw new Error(`${applied} of ${count} mutations applied`);
+
+  // 2. The baseline: the same rows as plain batched INSERTs.
+  const columns = [
+    "id",
+    "project_id",
+    "version",
+    "change_seq",
+    "updated_by",
+    "placement_id",
+    "ticket_number",
+    "truck",
+    "volume_m3",
+    "batched_at",
+    "arrived_at",
+    "discharge_started_at",
+    "discharge_finished_at",
+    "revolutions",
+  ];
+  const rows: Delivery[] = Array.from({ length: count }, (_, i) => delivery(i, placementIds[1]));
+  const plainStart = performance.now();
+  for (let i = 0; i < rows.length; i += BATCH) {
+    const batch = rows.slice(i, i + BATCH);
+    await plain.query("BEGIN");
+    try {
+      const counter = await plain.query<{ last_seq: string }>(
+        "UPDATE project_change_counters SET last_seq = last_seq + $2 WHERE project_id = $1 RETURNING last_seq",
+        [plainProject.id, batch.length],
+      );
+      const firstSeq = Number(counter.rows[0].last_seq) - batch.length + 1;
+      const values: unknown[] = [];
+      const tuples = batch.map((d, j) => {
+        const row = [
+          d.id,
+          plainProject.id,
+          1,
+          firstSeq + j,
+          user.id,
+          d.placementId,
+          d.ticketNumber,
+          d.truck,
+          d.volumeM3,
+          d.batchedAt,
+          d.arrivedAt,
+          d.dischargeStartedAt,
+          d.dischargeFinishedAt,
+          d.revolutions,
+        ];
+        const placeholders = row.map((value) => {
+          values.push(value);
+          return `$${values.length}`;
+        });
+        return `(${placeholders.join(", ")})`;
+      });
+      await plain.query(`INSERT INTO deliveries (${columns.join(", ")}) VALUES ${tuples.join(", ")}`, values);
+      await plain.query("COMMIT");
+    } catch (error) {
+      await plain.query("ROLLBACK");
+      throw error;
+    }
+  }
+  const plainSeconds = (performance.now() - plainStart) / 1000;
+
+  const [{ n: syncRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [syncProject.id])).rows;
+  const [{ n: plainRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [plainProject.id])).rows;
+  if (syncRows !== count || plainRows !== count) throw new Error(`expected ${count} rows in each project, found ${syncRows} and ${plainRows}`);
+
+  const syncRate = count / syncSeconds;
+  const plainRate = count / plainSeconds;
+  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}`);
+  console.log(`  sync push (pushMutations): ${syncSeconds.toFixed(2)} s, ${((syncSeconds * 1000) / count).toFixed(2)} ms per mutation`);
+  console.log(`  plain batched INSERT (pg):  ${plainSeconds.toFixed(2)} s, ${((plainSeconds * 1000) / count).toFixed(3)} ms per row`);
+  console.log(`sync push: ${fmt(syncRate)} mutations/s; plain batched INSERT: ${fmt(plainRate)} rows/s; ratio ${(plainRate / syncRate).toFixed(1)}×`);
+} finally {
+  // Clean up: projects cascade to memberships, records, audit entries, conflicts and counters;
+  // the user cascades to its sync clients and their stored mutations.
+  await plain.end().catch(() => undefined);
+  await db.delete(projects).where(inArray(projects.id, [syncProject.id, plainProject.id]));
+  await db.delete(users).where(eq(users.id, user.id));
+  await closeDb();
+}
