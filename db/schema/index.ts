@@ -13,3 +13,4 @@ export * from "./photos";
 export * from "./signoffs";
 export * from "./sync";
 export * from "./sync-log";
+export * from "./digest";

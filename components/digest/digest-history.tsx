@@ -1,0 +1,42 @@
+import { CircleCheck, Clock } from "lucide-react";
+
+export type HistoryItem = { key: string; date: string; recipientEmail: string; status: "sending" | "sent"; sentAt: string | null; by: string };
+
+export function DigestHistory({ history }: { history: HistoryItem[] }) {
+  return (
+    <section className="card overflow-x-auto" aria-labelledby="digest-history">
+      <h2 id="digest-history" className="px-4 pt-4 text-lg font-bold">History</h2>
+      {history.length === 0 ? (
+        <p className="p-4 text-muted" data-testid="digest-history-empty">No digest has been sent for this project yet.</p>
+      ) : (
+        <table className="mt-2 w-full text-left text-sm" data-testid="digest-history">
+          <thead className="bg-ink-50 text-ink-700">
+            <tr>
+              <th className="px-3 py-2">Day</th>
+              <th className="px-3 py-2">Recipient</th>
+              <th className="px-3 py-2">Status</th>
+              <th className="px-3 py-2">Sent</th>
+              <th className="px-3 py-2">How</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-ink-100">
+            {history.map((h) => (
+              <tr key={h.key} data-testid="digest-history-row">
+                <td className="px-3 py-2 font-mono whitespace-nowrap">{h.date}</td>
+                <td className="px-3 py-2">{h.recipientEmail}</td>
+                <td className="px-3 py-2">
+                  <span className="inline-flex items-center gap-1.5 font-semibold">
+                    {h.status === "sent" ? <CircleCheck className="h-4 w-4" aria-hidden="true" /> : <Clock className="h-4 w-4" aria-hidden="true" />}
+                    {h.status === "sent" ? "Sent" : "Sending"}
+                  </span>
+                </td>
+                <td className="px-3 py-2 whitespace-nowrap">{h.sentAt ?? "—"}</td>
+                <td className="px-3 py-2">{h.by}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+    </section>
+  );
+}

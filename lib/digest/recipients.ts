@@ -1,0 +1,174 @@
+// Who receives a project's digest: its owners by default (kept in step with the memberships) plus
+// the addresses the office adds, each with an hour, an empty-day choice and a way out.
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
+import { z } from "zod";
+import { db, type Executor } from "@/db";
+import { digestRecipients, projects, users } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/options";
+import { authorize } from "@/lib/auth/authorize";
+import { writeAudit } from "@/lib/audit";
+import { conflict, forbidden, invalidInput, notFound } from "@/lib/errors";
+import { getRole } from "@/lib/users/queries";
+import { FIRST_DIGEST_HOUR, LAST_DIGEST_HOUR, hourLabel } from "./hours";
+import { verifyUnsubscribe } from "./unsubscribe";
+
+export { unsubscribeUrl, verifyUnsubscribe } from "./unsubscribe";
+
+export type DigestRecipient = typeof digestRecipients.$inferSelect;
+export type RecipientView = DigestRecipient & { name: string | null; active: boolean; status: "receiving" | "unsubscribed" | "no longer an owner" };
+
+const HOUR_MESSAGE = `Choose an hour from ${hourLabel(FIRST_DIGEST_HOUR)} to ${hourLabel(LAST_DIGEST_HOUR)}: the digest summarises the day it is sent on`;
+const hourSchema = z.number({ error: "Choose an hour" }).int("Choose a whole hour").min(FIRST_DIGEST_HOUR, HOUR_MESSAGE).max(LAST_DIGEST_HOUR, HOUR_MESSAGE);
+
+export const addRecipientSchema = z.object({
+  email: z.string({ error: "Enter an e-mail address" }).trim().toLowerCase().pipe(z.email({ error: "Enter a valid e-mail address" }).max(320)),
+  hourOverride: hourSchema.nullable().optional(),
+  sendEmptyDays: z.boolean({ error: "Choose yes or no" }).optional(),
+});
+
+export const updateRecipientSchema = z
+  .object({
+    hourOverride: hourSchema.nullable().optional(),
+    sendEmptyDays: z.boolean({ error: "Choose yes or no" }).optional(),
+    subscribed: z.boolean({ error: "Choose yes or no" }).optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, { message: "Nothing to change" });
+
+export const projectHourSchema = z.object({ digestHour: hourSchema });
+
+/** Adds a member row for every owner who has none yet, and links an added address that is an owner's (idempotent). */
+export async function syncOwnerRecipients(projectId: string, tx: Executor = db): Promise<void> {
+  await tx.execute(sql`
+    insert into digest_recipients (project_id, email, user_id, source)
+    select m.project_id, lower(u.email), u.id, 'member'
+    from memberships m join users u on u.id = m.user_id
+    where m.project_id = ${projectId} and m.role = 'owner' and u.disabled_at is null
+    on conflict (project_id, email) do update set user_id = excluded.user_id
+      where digest_recipients.user_id is null`);
+}
+
+/** Every recipient row of the project, with whether the digest currently goes to it. */
+export async function listRecipientRows(projectId: string, tx: Executor = db): Promise<RecipientView[]> {
+  await syncOwnerRecipients(projectId, tx);
+  const rows = await tx
+    .select({
+      r: digestRecipients,
+      name: users.name,
+      isOwner: sql<boolean>`exists (select 1 from memberships m where m.project_id = ${digestRecipients.projectId}
+        and m.user_id = ${digestRecipients.userId} and m.role = 'owner') and ${users.disabledAt} is null`,
+    })
+    .from(digestRecipients)
+    .leftJoin(users, eq(users.id, digestRecipients.userId))
+    .where(eq(digestRecipients.projectId, projectId))
+    .orderBy(asc(digestRecipients.source), asc(digestRecipients.email));
+  return rows.map(({ r, name, isOwner }) => {
+    const stillOwner = r.source === "added" || isOwner;
+    const status = r.unsubscribedAt ? "unsubscribed" : stillOwner ? "receiving" : "no longer an owner";
+    return { ...r, name, active: status === "receiving", status };
+  });
+}
+
+export async function activeRecipients(projectId: string, tx: Executor = db): Promise<DigestRecipient[]> {
+  return (await listRecipientRows(projectId, tx)).filter((r) => r.active);
+}
+
+async function getRecipientOrThrow(tx: Executor, projectId: string, id: string): Promise<DigestRecipient> {
+  if (!z.guid().safeParse(id).success) throw notFound("Recipient");
+  const [row] = await tx.select().from(digestRecipients).where(and(eq(digestRecipients.projectId, projectId), eq(digestRecipients.id, id)));
+  if (!row) throw notFound("Recipient");
+  return row;
+}
+
+export async function addRecipient(user: SessionUser, projectId: string, input: z.output<typeof addRecipientSchema>) {
+  return db.transaction(async (tx) => {
+    await authorize(user, "digest.manage", projectId, tx);
+    const [row] = await tx
+      .insert(digestRecipients)
+      .values({ projectId, email: input.email, source: "added", hourOverride: input.hourOverride ?? null, sendEmptyDays: input.sendEmptyDays ?? true, addedBy: user.id })
+      .onConflictDoNothing()
+      .returning();
+    if (!row) throw conflict(`${input.email} is already on this project's digest list.`);
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "digest_recipients", recordId: row.id, action: "create", after: row });
+    return row;
+  });
+}
+
+/** The office changes anyone's hour or empty-day choice; an owner changes their own and may resubscribe. */
+export async function updateRecipient(user: SessionUser, projectId: string, id: string, patch: z.output<typeof updateRecipientSchema>) {
+  return db.transaction(async (tx) => {
+    const role = await getRole(user.id, projectId, tx);
+    if (role !== "owner") await authorize(user, "digest.manage", projectId, tx);
+    const row = await getRecipientOrThrow(tx, projectId, id);
+    const own = role === "owner" && row.userId === user.id;
+    if (role === "owner" && !own) throw forbidden("You can change only your own digest settings.");
+    if (patch.subscribed !== undefined && !own) {
+      throw forbidden("Only the recipient can subscribe or unsubscribe themselves; remove an added address instead.");
+    }
+    const [after] = await tx
+      .update(digestRecipients)
+      .set({
+        ...(patch.hourOverride !== undefined ? { hourOverride: patch.hourOverride } : {}),
+        ...(patch.sendEmptyDays !== undefined ? { sendEmptyDays: patch.sendEmptyDays } : {}),
+        ...(patch.subscribed !== undefined ? { unsubscribedAt: patch.subscribed ? null : new Date() } : {}),
+        updatedAt: new Date(),
+      })
+      .where(eq(digestRecipients.id, row.id))
+      .returning();
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "digest_recipients", recordId: row.id, action: "update", before: row, after });
+    return after;
+  });
+}
+
+export async function removeRecipient(user: SessionUser, projectId: string, id: string) {
+  await db.transaction(async (tx) => {
+    await authorize(user, "digest.manage", projectId, tx);
+    const row = await getRecipientOrThrow(tx, projectId, id);
+    if (row.source === "member") {
+      throw conflict("Owners receive the digest through their membership; they can unsubscribe themselves.");
+    }
+    await tx.delete(digestRecipients).where(eq(digestRecipients.id, row.id));
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "digest_recipients", recordId: row.id, action: "delete", before: row });
+  });
+}
+
+export async function setProjectDigestHour(user: SessionUser, projectId: string, digestHour: number) {
+  await db.transaction(async (tx) => {
+    await authorize(user, "digest.manage", projectId, tx);
+    const [before] = await tx.select({ digestHour: projects.digestHour }).from(projects).where(eq(projects.id, projectId));
+    if (!before) throw notFound("Project");
+    await tx.update(projects).set({ digestHour, updatedAt: new Date() }).where(eq(projects.id, projectId));
+    await writeAudit(tx, { projectId, userId: user.id, recordType: "projects", recordId: projectId, action: "update", before, after: { digestHour } });
+  });
+}
+
+export type UnsubscribeResult = { projectId: string; projectName: string; email: string; alreadyUnsubscribed: boolean };
+
+/** Looks up what a link would unsubscribe, without changing anything (the confirmation page). */
+export async function describeUnsubscribe(token: string | null | undefined): Promise<UnsubscribeResult> {
+  const claim = verifyUnsubscribe(token);
+  if (!claim) throw invalidInput("This unsubscribe link is not valid. Use the link from a recent digest e-mail.");
+  const [row] = await db
+    .select({ r: digestRecipients, projectName: projects.name })
+    .from(digestRecipients)
+    .innerJoin(projects, eq(projects.id, digestRecipients.projectId))
+    .where(and(eq(digestRecipients.id, claim.recipientId), eq(digestRecipients.projectId, claim.projectId), eq(digestRecipients.email, claim.email)));
+  if (!row) throw notFound("Digest subscription");
+  return { projectId: row.r.projectId, projectName: row.projectName, email: row.r.email, alreadyUnsubscribed: row.r.unsubscribedAt !== null };
+}
+
+/** Stops the digest for the address of a genuine link; a second use changes nothing. */
+export async function unsubscribeWithToken(token: string | null | undefined): Promise<UnsubscribeResult> {
+  const found = await describeUnsubscribe(token);
+  const claim = verifyUnsubscribe(token)!;
+  await db.transaction(async (tx) => {
+    const [after] = await tx
+      .update(digestRecipients)
+      .set({ unsubscribedAt: new Date(), updatedAt: new Date() })
+      .where(and(eq(digestRecipients.id, claim.recipientId), isNull(digestRecipients.unsubscribedAt)))
+      .returning();
+    if (after) {
+      await writeAudit(tx, { projectId: after.projectId, userId: after.userId, recordType: "digest_recipients", recordId: after.id, action: "unsubscribe", after, note: "Unsubscribe link" });
+    }
+  });
+  return found;
+}

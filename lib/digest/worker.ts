@@ -1,0 +1,56 @@
+// The digest worker: runs each project's job when its hour comes, then the next day's is queued.
+// Started with the app (instrumentation.ts) or alone (`npm run worker`).
+import { eq } from "drizzle-orm";
+import type { Job } from "pg-boss";
+import { db } from "@/db";
+import { projects } from "@/db/schema";
+import { DIGEST_QUEUE, getBoss, scheduleAllProjects, scheduleNext, type DigestJob } from "./queue";
+import { sendDigest, type MailTransport, type SendReport } from "./send";
+
+export type WorkerOptions = {
+  /** The SMTP transport for a run (default: the app's, from SMTP_URL). */
+  transport?: (job: DigestJob) => MailTransport | undefined;
+  now?: () => Date;
+  pollingIntervalSeconds?: number;
+  /** How often every project's next run is checked (new projects, changed hours); 0: only at start. */
+  rescheduleEveryMs?: number;
+  /** Check every project's next run at start (default true). */
+  scheduleOnStart?: boolean;
+};
+
+/**
+ * One run: queue the following run first (so an SMTP outage that exhausts the retries cannot end
+ * the chain), then send to every recipient whose hour has come. Throwing makes pg-boss retry.
+ */
+export async function runDigestJob(job: DigestJob, options: WorkerOptions = {}): Promise<SendReport | null> {
+  const now = options.now?.() ?? new Date();
+  const [project] = await db.select({ id: projects.id }).from(projects).where(eq(projects.id, job.projectId));
+  if (!project) return null; // the project was deleted after the job was queued
+  await scheduleNext(job.projectId, now);
+  return sendDigest(job.projectId, job.date, { transport: options.transport?.(job), dueBy: now });
+}
+
+export type DigestWorker = { stop: () => Promise<void> };
+
+export async function startDigestWorker(options: WorkerOptions = {}): Promise<DigestWorker> {
+  const boss = await getBoss();
+  const workId = await boss.work<DigestJob>(
+    DIGEST_QUEUE,
+    { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 10, batchSize: 1 },
+    async (jobs: Job<DigestJob>[]) => {
+      for (const job of jobs) await runDigestJob(job.data, options);
+    },
+  );
+  const reschedule = () => scheduleAllProjects(options.now?.()).catch((error) => console.error("[digest worker] scheduling failed", error));
+  // In the background: with many projects this takes a while, and the app must not wait for it.
+  if (options.scheduleOnStart ?? true) void reschedule();
+  const every = options.rescheduleEveryMs ?? 10 * 60_000;
+  const timer = every > 0 ? setInterval(reschedule, every) : undefined;
+  timer?.unref();
+  return {
+    stop: async () => {
+      if (timer) clearInterval(timer);
+      await boss.offWork({ id: workId });
+    },
+  };
+}

@@ -1,0 +1,19 @@
+// Runs the digest worker on its own (`npm run worker`), e.g. when the app runs with DIGEST_WORKER=off.
+import { closeDb } from "../db/index.ts";
+import { stopQueue } from "../lib/digest/queue.ts";
+import { startDigestWorker } from "../lib/digest/worker.ts";
+
+const worker = await startDigestWorker();
+console.log("digest worker running (queue project-digest); Ctrl-C to stop");
+
+let stopping = false;
+async function shutdown() {
+  if (stopping) return;
+  stopping = true;
+  await worker.stop();
+  await stopQueue();
+  await closeDb();
+  process.exit(0);
+}
+process.on("SIGINT", shutdown);
+process.on("SIGTERM", shutdown);

@@ -1,0 +1,142 @@
+// The digest builder on the demo scenario's days (db/seed-records-data.ts): exactly the day's
+// placements and warnings, in the project's units and time zone, each warning naming its rule.
+import { describe, expect, it } from "vitest";
+import { DEMO_IDS } from "@/db/seed";
+import { buildDigest, digestLinks } from "@/lib/digest/content";
+import { demoDay } from "./digest-demo-day";
+
+const L = DEMO_IDS.projects.larkspur;
+const M = DEMO_IDS.projects.millrace;
+const ORIGIN = "https://placewright.example.test";
+const build = (day: ReturnType<typeof demoDay>) =>
+  buildDigest(day, digestLinks(ORIGIN, day.project.id, day.date, `${ORIGIN}/digest/unsubscribe?token=t`));
+const warningsOf = (m: ReturnType<typeof build>) => m.summary.warnings.map((w) => `${w.kind}: ${w.title}`);
+
+/** The lines of one section of the text part, up to the next heading. */
+function section(text: string, heading: string): string[] {
+  const lines = text.split("\n");
+  const start = lines.indexOf(heading.toUpperCase());
+  const end = lines.findIndex((l, i) => i > start && (l === "" || /^[A-Z ()]+$/.test(l)));
+  return lines.slice(start + 1, end === -1 ? undefined : end);
+}
+
+describe("Larkspur Commons, 2026-11-17: the hot, windy deck placement", () => {
+  const message = build(demoDay(L, "2026-11-17"));
+
+  it("lists exactly that day's placement, with volume in yd³, state and signature", () => {
+    expect(message.summary.placements.map((p) => p.element)).toEqual(["Level 2 deck"]);
+    expect(section(message.text, "Placements")).toEqual([
+      "- Level 2 deck [Placed]",
+      "  L2 · A–L / 1–5 · LC-5000-D · start 9:30 AM",
+      "  118.0 yd³ planned · 30.0 yd³ delivered in 3 trucks",
+      "  Not signed yet",
+    ]);
+  });
+
+  it("raises exactly the evaporation and slump warnings, each with its rule", () => {
+    expect(warningsOf(message)).toEqual([
+      "evaporation: High evaporation: 0.45 lb/ft²/h at 2:00 PM (Level 2 deck)",
+      "test: Test out of tolerance at 10:18 AM, ticket BR-243101 (truck 27)",
+    ]);
+    const [evaporation, slump] = message.summary.warnings;
+    // Uno's IP form of the ACI 305R nomograph at 95 °F air, 30 % RH, 18 mph, 92 °F concrete ≈ 0.45 lb/ft²/h.
+    expect(evaporation.detail).toContain("3 of 3 readings at high risk");
+    expect(evaporation.rule).toContain("ACI 305R");
+    expect(evaporation.rule).toContain("0.1 lb/ft²/h for a low-bleed mix"); // LC-5000-D has silica fume
+    expect(evaporation.rule).toContain("specification governs");
+    // ASTM C94 §7: a 4 in target slump allows ±1 in; the check test on the same load passed.
+    expect(slump.detail).toBe("Slump 6.5 in outside 3.0–5.0 in (Level 2 deck). A check test on the same load was within tolerance.");
+    expect(slump.rule).toContain("ASTM C94");
+  });
+
+  it("shows the trucks with the rejected load, the cylinders made and the 7-day breaks received", () => {
+    expect(message.summary.trucks).toMatchObject({ accepted: 3, rejected: 1, late: 0, waterAdded: null, volume: "30.0 yd³" });
+    expect(message.text).toContain("Rejected: Concrete at 97 °F on arrival");
+    expect(message.summary.specimens).toEqual(["Set LC-D2-A: 5 cylinders 4 × 8 in, cast 2:15 PM (Level 2 deck); tests at 7 and 28 days"]);
+    expect(message.summary.breaks.map((b) => b.low)).toEqual([false]);
+    expect(message.summary.breaks[0].text).toMatch(/^Set LC-SW1-A \(Shear walls SW-1 to SW-4, level 1 to 2\), 7 days: .*information only/);
+    expect(message.summary.diary).toMatchObject({ crewTotal: 17, delays: ["Rejected load, 20 min: Truck 44 at 97 °F; waited for the next load"] });
+  });
+
+  it("has a subject, a link to the day in the app and the unsubscribe link, in both parts", () => {
+    expect(message.subject).toBe("Larkspur Commons, Tue, Nov 17: 1 placement, 2 warnings");
+    for (const part of [message.html, message.text]) {
+      expect(part).toContain(`${ORIGIN}/projects/${L}?date=2026-11-17`);
+      expect(part).toContain(`${ORIGIN}/digest/unsubscribe?token=t`);
+    }
+    expect(message.html.match(/data-kind="/g)).toHaveLength(2);
+  });
+});
+
+describe("other demo days", () => {
+  it("2026-11-10: the late truck (project limit from ASTM C94) and the water added at the chute", () => {
+    const message = build(demoDay(L, "2026-11-10"));
+    expect(message.summary.placements.map((p) => p.element)).toEqual(["Shear walls SW-1 to SW-4, level 1 to 2"]);
+    expect(warningsOf(message)).toEqual([
+      "late-truck: Late truck: ticket BR-242213 (truck 31)",
+      "water: Water added at site: ticket BR-242213 (truck 31)",
+    ]);
+    expect(message.summary.warnings[0].detail).toContain("96 min after batching, over the 90 min limit");
+    expect(message.summary.warnings[1].detail).toContain("10.0 gal added by Driver, truck 31, authorised by Sam Okafor (superintendent)");
+    expect(message.summary.trucks).toMatchObject({ late: 1, waterAdded: "10.0 gal" });
+  });
+
+  it("applies the project's own discharge limit when its specification shortens it", () => {
+    const message = build(demoDay(L, "2026-11-17", { dischargeLimitMinutes: 60 }));
+    const late = message.summary.warnings.filter((w) => w.kind === "late-truck");
+    expect(late.map((w) => w.title)).toEqual(["Late truck: ticket BR-243107 (truck 19)"]);
+    expect(late[0].rule).toBe("Project specification: discharge complete within 60 min of batching (ASTM C94 default: 90 min).");
+  });
+
+  it("Millrace Pump House, 2026-11-12: cold weather with the minimum for the wall section, in SI", () => {
+    const message = build(demoDay(M, "2026-11-12"));
+    expect(message.summary.placements.map((p) => p.volume)).toEqual(["28.0 m³ planned · 14.0 m³ delivered in 2 trucks"]);
+    expect(warningsOf(message)).toEqual(["cold: Cold weather: protect the fresh concrete"]);
+    const [cold] = message.summary.warnings;
+    // ACI 306R: a 300 mm wall is in the 300–900 mm column, 10 °C minimum.
+    expect(cold.detail).toContain("Wet well walls, lift 1 at or above 10 °C");
+    expect(cold.rule).toMatch(/^ACI 306R: cold weather .* 4 °C\. The project's specification governs/);
+  });
+
+  it("uses the ACI 306.1-90 definition when the project's specification cites it", () => {
+    const day = { ...demoDay(M, "2026-11-12", { coldWeatherDefinition: "aci306-1990" }), dailyMeanAirTempsC: [3, 2, 1, -1] };
+    const [cold] = build(day).summary.warnings;
+    // More than 3 successive days with an average below 4 °C.
+    expect(cold.detail).toContain("below 4 °C for 4 successive days");
+    expect(cold.rule).toMatch(/^ACI 306\.1-90: cold weather when the average daily temperature is below 4 °C for more than 3 successive days/);
+    const warm = { ...day, dailyMeanAirTempsC: [6, 2, 1, -1] };
+    expect(build(warm).summary.warnings).toEqual([]);
+  });
+
+  it("2026-11-25: no placement but the low 28-day strength test (ACI 318-19 §26.12.3.1 b)", () => {
+    const message = build(demoDay(L, "2026-11-25"));
+    expect(message.isEmpty).toBe(false);
+    expect(section(message.text, "Placements")).toEqual(["No placements today."]);
+    expect(warningsOf(message)).toEqual(["low-strength: Low strength test: set LC-P1-B (Podium slab, east half)"]);
+    // Average of 3380, 3290, 3420 psi = 3363 psi, below 4000 − 500 psi.
+    expect(message.summary.warnings[0].detail).toMatch(/^28-day average 336\d psi of 3 cylinders is below the 3500 psi limit for f′c 4000 psi/);
+    expect(message.summary.breaks.map((b) => b.low)).toEqual([false, true]);
+  });
+
+  it("2026-10-28: a signed placement says who signed and when", () => {
+    const message = build(demoDay(L, "2026-10-28"));
+    expect(message.summary.placements.map((p) => `${p.stateLabel}: ${p.signed}`)).toEqual(["Signed: Signed by Ines Marchetti at 3:10 PM"]);
+    expect(message.summary.warnings).toEqual([]);
+  });
+
+  it("2026-11-22, nothing recorded: one line, no placements", () => {
+    const message = build(demoDay(L, "2026-11-22"));
+    expect(message.isEmpty).toBe(true);
+    expect(message.subject).toBe("Larkspur Commons, Sun, Nov 22: No placements today");
+    expect(message.text.split("\n")[0]).toBe(`Larkspur Commons, Sunday, November 22, 2026: No placements today. ${ORIGIN}/projects/${L}?date=2026-11-22`);
+    expect(message.html).toContain("No placements today.");
+  });
+
+  it("escapes what the field typed", () => {
+    const day = demoDay(L, "2026-11-17");
+    day.placements[0].element = `Deck <img src=x onerror="alert(1)">`;
+    const message = build(day);
+    expect(message.html).not.toContain("<img src=x");
+    expect(message.html).toContain("Deck &lt;img src=x onerror=&quot;alert(1)&quot;&gt;");
+  });
+});
