@@ -37,6 +37,8 @@ export default defineConfig({
     url: `http://127.0.0.1:${port}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,
+    // The digest worker stays off while tests drive the app (integration tests cover it).
+    env: { ...(process.env as Record<string, string>), DIGEST_WORKER: "off" },
     stdout: "ignore",
     stderr: "pipe",
   },

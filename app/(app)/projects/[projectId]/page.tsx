@@ -32,7 +32,12 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       <PageHeader
         title={project.name}
         subtitle={`${project.code} · your role: ${role ? ROLE_LABELS[role] : "none"}`}
-        actions={<Link href={`/projects/${projectId}/mixes`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="mixes-link">Mix designs</Link>}
+        actions={
+          <>
+            <Link href={`/projects/${projectId}/mixes`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="mixes-link">Mix designs</Link>
+            <Link href={`/projects/${projectId}/digest`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="digest-link">Daily digest</Link>
+          </>
+        }
       />
       <div className="grid gap-4 lg:grid-cols-3">
         <section className="card p-4 lg:col-span-2" aria-labelledby="placements-title">
