@@ -25,7 +25,8 @@ export const transitionSchema = z
     baseVersion: z
       .number({ error: "Send the version you saw (baseVersion)" })
       .int("The version must be a whole number")
-      .min(1, "The version must be 1 or more"),
+      .min(1, "The version must be 1 or more")
+      .max(1_000_000_000, "That is not a version this record can have"),
   })
   .superRefine((v, ctx) => {
     if (v.to === "held" && !v.reason) {

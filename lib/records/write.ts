@@ -20,7 +20,8 @@ import type { RecordContext, RecordRow } from "./types";
 const baseVersion = z
   .number({ error: "Send the version you edited (baseVersion)" })
   .int("The version must be a whole number")
-  .min(1, "The version must be 1 or more");
+  .min(1, "The version must be 1 or more")
+  .max(1_000_000_000, "That is not a version this record can have");
 
 export const updateBodySchema = z.object({
   baseVersion,
