@@ -1,7 +1,7 @@
 "use client";
 
 import clsx from "clsx";
-import { CalendarDays, FolderKanban, Gauge, ShieldCheck } from "lucide-react";
+import { CalendarDays, FolderKanban, Gauge, HardHat, ShieldCheck } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
@@ -15,6 +15,7 @@ export type ShellUser = { id: string; name: string; email: string; isAdmin: bool
 
 const NAV = [
   { href: "/today", label: "Today", icon: CalendarDays },
+  { href: "/field/today", label: "Field", icon: HardHat },
   { href: "/projects", label: "Projects", icon: FolderKanban },
   { href: "/tools/evaporation", label: "Calculator", icon: Gauge },
 ];

@@ -1,13 +1,14 @@
 "use client";
 
 import { LogOut, UserRound } from "lucide-react";
-import { signOut } from "next-auth/react";
 import { useEffect, useRef, useState } from "react";
+import { useSignOutWithCheck } from "@/lib/sync/client/react";
 import type { ShellUser } from "./app-shell";
 
-export function UserMenu({ user }: { user: ShellUser }) {
+export function UserMenu({ user, offline = false }: { user: ShellUser; offline?: boolean }) {
   const [open, setOpen] = useState(false);
   const ref = useRef<HTMLDivElement>(null);
+  const signOut = useSignOutWithCheck();
   useEffect(() => {
     if (!open) return;
     const close = (e: MouseEvent) => ref.current && !ref.current.contains(e.target as Node) && setOpen(false);
@@ -32,10 +33,11 @@ export function UserMenu({ user }: { user: ShellUser }) {
         <div role="menu" className="absolute right-0 mt-2 w-64 rounded-lg border border-ink-200 bg-white p-2 text-ink-900 shadow-lg">
           <p className="px-2 pt-1 font-semibold" data-testid="signed-in-name">{user.name}</p>
           <p className="truncate px-2 pb-2 text-sm text-muted">{user.email}</p>
+          {offline ? <p className="px-2 pb-2 text-sm text-muted">Working from this device (offline).</p> : null}
           <button
             type="button"
             role="menuitem"
-            onClick={() => signOut({ callbackUrl: "/signin" })}
+            onClick={() => void signOut({ callbackUrl: "/signin" })}
             className="flex min-h-touch w-full items-center gap-2 rounded-md px-2 text-left font-semibold hover:bg-ink-100"
           >
             <LogOut className="h-5 w-5" aria-hidden="true" /> Sign out

@@ -14,7 +14,19 @@ export default async function TodayPage() {
 
   return (
     <>
-      <PageHeader title="Today" subtitle={today} />
+      <PageHeader
+        title="Today"
+        subtitle={today}
+        actions={
+          <Link
+            href="/field/today"
+            data-testid="open-field"
+            className="inline-flex min-h-touch items-center rounded-lg bg-lichen-700 px-4 font-semibold text-white hover:bg-lichen-800"
+          >
+            Field view (works offline)
+          </Link>
+        }
+      />
       {projects.length === 0 ? (
         <div className="card p-5" data-testid="no-projects">
           <p className="text-lg font-semibold">You are not on any project yet.</p>

@@ -1,0 +1,140 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { Plus, Thermometer } from "lucide-react";
+import { useState } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { coldWeatherCautions, formatLength, formatTemperature, minimumConcreteTempC } from "@/lib/concrete";
+import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+import { useDirtyGuard } from "@/lib/ui/dirty-forms";
+import { NowInput, Section, mayWrite, Verdict, byTime, formatDateTime, fromLocalInput, num, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { COLD_AIR_C } from "./weather-watch";
+
+type Values = { method: string; readAt: string; temp: string; location: string; note: string };
+
+function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; project: ProjectRow; onDone: () => void }) {
+  const db = useSyncDb();
+  const units = unitSystemOf(project);
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, control, handleSubmit, setValue, setError, formState } = useForm<Values>({
+    defaultValues: { method: "Insulated blankets", readAt: toLocalInput(new Date()), temp: "", location: "", note: "" },
+  });
+  useDirtyGuard("curing-new", formState.isDirty);
+  const errors = formState.errors;
+  const readAt = useWatch({ control, name: "readAt" });
+  const onSubmit = handleSubmit(async (f) => {
+    setFailure(null);
+    try {
+      await createLocal(db, "curing-readings", placement.projectId, {
+        placementId: placement.id,
+        method: f.method.trim(),
+        readAt: fromLocalInput(f.readAt) ?? "",
+        tempC: toSI("temperature", f.temp, units),
+        location: f.location.trim() || undefined,
+        note: f.note.trim() || null,
+      });
+      onDone();
+    } catch (error) {
+      const { message, fields } = writeErrorOf(error);
+      for (const [key, text] of Object.entries(fields)) setError(key === "tempC" ? "temp" : (key as keyof Values), { message: text });
+      setFailure(message);
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} className="mt-3 grid gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="curing-form" noValidate>
+      <Field label="Protection or curing method" error={errors.method?.message} {...register("method")} />
+      <NowInput label="Read at" type="datetime-local" value={readAt} onChange={(x) => setValue("readAt", x, { shouldDirty: true })} error={errors.readAt?.message} />
+      <Field label="Concrete temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.temp?.message} data-testid="curing-temp" {...register("temp")} />
+      <Field label="Location" placeholder="e.g. NE corner, under blanket" error={errors.location?.message} {...register("location")} />
+      <Field label="Note" className="sm:col-span-2" {...register("note")} />
+      {failure ? (
+        <Notice tone="danger" title="Not saved" className="sm:col-span-2">
+          {failure}
+        </Notice>
+      ) : null}
+      <div className="flex gap-2 sm:col-span-2">
+        <Button type="submit" data-testid="curing-save" disabled={formState.isSubmitting}>
+          Save reading
+        </Button>
+        <Button variant="secondary" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+export function CuringLog({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+  const db = useSyncDb();
+  const units = unitSystemOf(project);
+  const readings = useLiveQuery(async () => (await listByParent(db, "curing-readings", "placementId", placement.id)).sort(byTime("readAt")), [db, placement.id]);
+  const cold = useLiveQuery(
+    async () =>
+      (await listByParent(db, "weather-observations", "placementId", placement.id)).some((o) => (num(o.airTempC) ?? 99) <= COLD_AIR_C) ||
+      (await listByParent(db, "checklists", "placementId", placement.id)).some((c) => c.kind === "cold-weather"),
+    [db, placement.id],
+  );
+  const [adding, setAdding] = useState(false);
+  const least = num(placement.leastDimensionMm);
+  const canWrite = mayWrite(project, "curing.write");
+  const minimum = least !== undefined ? minimumConcreteTempC(least) : null;
+
+  return (
+    <Section
+      title="Protection & curing"
+      testId="curing-log"
+      actions={
+        !adding && canWrite ? (
+          <Button data-testid="add-curing" onClick={() => setAdding(true)}>
+            <Plus className="h-5 w-5" aria-hidden="true" /> Add a reading
+          </Button>
+        ) : null
+      }
+    >
+      <p className="text-base" data-testid="curing-minimum">
+        {minimum !== null && least !== undefined ? (
+          <>
+            Minimum concrete temperature for a {formatLength(least, units)} section: <strong>{formatTemperature(minimum, units)}</strong> (ACI 306R). The
+            project specification governs.
+          </>
+        ) : (
+          "Enter the least dimension on the plan to see the minimum temperature for the section."
+        )}
+      </p>
+      {cold ? (
+        <Notice tone="caution" title="Cold weather: vent combustion heaters" className="mt-3" testId="curing-co-caution">
+          <ul className="list-disc pl-5">
+            {coldWeatherCautions().map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
+        </Notice>
+      ) : null}
+      {adding ? <ReadingForm placement={placement} project={project} onDone={() => setAdding(false)} /> : null}
+      <ul className="mt-3 flex flex-col gap-2">
+        {(readings ?? []).map((r) => {
+          const t = num(r.tempC);
+          const low = minimum !== null && t !== undefined && t < minimum;
+          return (
+            <li key={r.id} className="flex flex-wrap items-center gap-2 rounded-lg border border-ink-200 p-3" data-testid="curing-row">
+              <Thermometer className="h-5 w-5 text-ink-600" aria-hidden="true" />
+              <span className="text-lg font-bold">{t !== undefined ? formatTemperature(t, units) : "—"}</span>
+              {minimum !== null ? <Verdict ok={!low} okText="At or above the minimum" badText="Below the minimum" testId="curing-verdict" /> : null}
+              <span className="text-sm text-muted">
+                {formatDateTime(r.readAt, project.timeZone)} · {str(r.method)}
+                {r.location ? ` · ${str(r.location)}` : ""}
+              </span>
+            </li>
+          );
+        })}
+      </ul>
+      {!cold ? (
+        <p className="mt-3 text-sm text-muted">In cold weather, vent combustion heaters outside: their exhaust carries carbon monoxide.</p>
+      ) : null}
+    </Section>
+  );
+}

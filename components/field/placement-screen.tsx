@@ -1,0 +1,171 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { ArrowLeft } from "lucide-react";
+import Link from "next/link";
+import { useSearchParams } from "next/navigation";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { formatLength, formatVolume } from "@/lib/concrete";
+import type { ProjectRole } from "@/lib/auth/roles";
+import { STATE_LABELS, allowedTransitions, describeAllowed } from "@/lib/placements/workflow";
+import type { PlacementState } from "@/lib/records/enums";
+import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
+import { CuringLog } from "./curing-log";
+import { Deliveries } from "./deliveries";
+import { FieldTests } from "./field-tests";
+import { StateBadge } from "./today-screen";
+import { WeatherWatch } from "./weather-watch";
+
+const ACTION_WORDS: Partial<Record<PlacementState, string>> = {
+  planned: "Back to planned",
+  ready: "Mark ready for review",
+  cleared: "Clear to place",
+  placing: "Start placing",
+  placed: "Mark placed",
+  held: "Hold",
+};
+
+function Transitions({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+  const db = useSyncDb();
+  const state = str(placement.state) as PlacementState;
+  const role = (project.role ?? null) as ProjectRole | null;
+  const allowed = allowedTransitions(state, role);
+  const [holding, setHolding] = useState(false);
+  const [reason, setReason] = useState("");
+  const [error, setError] = useState<string | null>(null);
+
+  const move = async (to: PlacementState, why?: string) => {
+    setError(null);
+    try {
+      await transitionLocal(db, placement.id, to, why);
+      setHolding(false);
+      setReason("");
+    } catch (e) {
+      setError(writeErrorOf(e).message);
+    }
+  };
+
+  return (
+    <div className="mt-4 border-t border-ink-200 pt-3" data-testid="placement-transitions">
+      <p className="text-sm text-muted" data-testid="placement-who-next">
+        {describeAllowed(state)}
+      </p>
+      <div className="mt-2 flex flex-wrap gap-2">
+        {allowed.filter((to) => to !== "held").map((to) => (
+          <Button key={to} variant={to === "planned" ? "secondary" : "primary"} data-testid={`transition-${to}`} onClick={() => void move(to)}>
+            {ACTION_WORDS[to] ?? STATE_LABELS[to]}
+          </Button>
+        ))}
+        {allowed.includes("held") && !holding ? (
+          <Button variant="secondary" data-testid="transition-held" onClick={() => setHolding(true)}>
+            Hold…
+          </Button>
+        ) : null}
+        {allowed.length === 0 ? <p className="text-sm text-ink-800">Your role on this project cannot move it from here.</p> : null}
+      </div>
+      {holding ? (
+        <form
+          className="mt-3 flex flex-col gap-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void move("held", reason.trim());
+          }}
+        >
+          <Field label="Reason for the hold" value={reason} onChange={(e) => setReason(e.target.value)} data-testid="hold-reason" />
+          <div className="flex gap-2">
+            <Button type="submit" disabled={!reason.trim()}>
+              Hold the placement
+            </Button>
+            <Button variant="secondary" onClick={() => setHolding(false)}>
+              Cancel
+            </Button>
+          </div>
+        </form>
+      ) : null}
+      {error ? (
+        <Notice tone="danger" title="Not changed" className="mt-2">
+          {error}
+        </Notice>
+      ) : null}
+    </div>
+  );
+}
+
+export function PlacementScreen() {
+  const db = useSyncDb();
+  const id = useSearchParams().get("id");
+  const placement = useLiveQuery(async () => (await getRecord(db, "placements", id)) ?? null, [db, id]);
+  const project = useProject(placement?.projectId);
+  const mix = useLiveQuery(
+    async () => (placement?.mixId ? ((await getRecord(db, "mix-designs", str(placement.mixId))) ?? null) : null),
+    [db, placement?.mixId],
+  );
+
+  const back = (
+    <Link href="/field/today" className="mb-3 inline-flex min-h-touch items-center gap-1 font-semibold text-lichen-800" data-testid="back-to-today">
+      <ArrowLeft className="h-5 w-5" aria-hidden="true" /> Today
+    </Link>
+  );
+  if (placement === undefined) return <p className="text-muted">Reading this device…</p>;
+  if (placement === null || !project) {
+    return (
+      <>
+        {back}
+        <Notice tone="info" title="This placement is not on this device." testId="placement-missing">
+          It may belong to a project you are not on, or it has not synced yet.
+        </Notice>
+      </>
+    );
+  }
+  const units = unitSystemOf(project);
+  const volume = num(placement.plannedVolumeM3);
+  const least = num(placement.leastDimensionMm);
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div>
+        {back}
+        <div className="flex flex-wrap items-center gap-2">
+          <h1 className="text-2xl font-bold tracking-tight text-ink-950" data-testid="placement-title">
+            {str(placement.element)}
+          </h1>
+          <StateBadge state={str(placement.state)} />
+        </div>
+        <p className="text-muted">{project.name}</p>
+      </div>
+
+      <Section title="Plan" testId="placement-plan">
+        <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-base">
+          <dt className="text-sm text-muted">Location</dt>
+          <dd className="font-semibold">{[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "—"}</dd>
+          <dt className="text-sm text-muted">Element type</dt>
+          <dd className="font-semibold">{str(placement.elementType).replace(/-/g, " ")}</dd>
+          <dt className="text-sm text-muted">Least dimension</dt>
+          <dd className="font-semibold">{least !== undefined ? formatLength(least, units) : "—"}</dd>
+          <dt className="text-sm text-muted">Planned volume</dt>
+          <dd className="font-semibold">{volume !== undefined ? formatVolume(volume, units) : "—"}</dd>
+          <dt className="text-sm text-muted">Mix</dt>
+          <dd className="font-semibold">{mix ? str(mix.code) : "Not chosen"}</dd>
+          <dt className="text-sm text-muted">Planned start</dt>
+          <dd className="font-semibold">{formatDateTime(placement.plannedStart, project.timeZone)}</dd>
+        </dl>
+        {placement.state === "held" && placement.holdReason ? (
+          <Notice tone="caution" title="Held" className="mt-3">
+            {str(placement.holdReason)}
+          </Notice>
+        ) : null}
+        <Transitions placement={placement} project={project} />
+      </Section>
+
+      <Deliveries placement={placement} project={project} mix={mix ?? null} />
+      <FieldTests placement={placement} project={project} mix={mix ?? null} />
+      <WeatherWatch placement={placement} project={project} mix={mix ?? null} />
+      <CuringLog placement={placement} project={project} />
+    </div>
+  );
+}

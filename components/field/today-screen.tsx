@@ -1,0 +1,152 @@
+"use client";
+
+import { useLiveQuery } from "dexie-react-hooks";
+import { ChevronRight, Plus } from "lucide-react";
+import Link from "next/link";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { PageHeader } from "@/components/ui/page-header";
+import { formatLength, formatVolume } from "@/lib/concrete";
+import { STATE_LABELS } from "@/lib/placements/workflow";
+import type { PlacementState } from "@/lib/records/enums";
+import { listByProject, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, num, str, unitSystemOf, useFieldContext, useProjects } from "./common";
+import { PlanPlacementForm } from "./plan-placement-form";
+
+
+type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[] };
+
+export function StateBadge({ state }: { state: string }) {
+  const held = state === "held";
+  return (
+    <span
+      data-testid="placement-state"
+      className={held ? "rounded-full bg-caution-100 px-2.5 py-1 text-xs font-semibold text-caution-800" : "rounded-full bg-ink-100 px-2.5 py-1 text-xs font-semibold text-ink-800"}
+    >
+      {STATE_LABELS[state as PlacementState] ?? state}
+    </span>
+  );
+}
+
+export function TodayScreen() {
+  const db = useSyncDb();
+  const projects = useProjects();
+  const { selectedProjectId } = useFieldContext();
+  const [planning, setPlanning] = useState<string | null>(null);
+  const shown = (projects ?? []).filter((p) => !selectedProjectId || p.id === selectedProjectId);
+  const projectKey = shown.map((p) => p.id).join(",");
+
+  const rows = useLiveQuery(async () => {
+    const out: Row[] = [];
+    for (const project of shown) {
+      const today = dateInZone(new Date(), project.timeZone);
+      const tomorrow = addDays(today, 1);
+      const [placements, observations] = await Promise.all([
+        listByProject(db, "placements", project.id),
+        listByProject(db, "weather-observations", project.id),
+      ]);
+      for (const placement of placements) {
+        const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
+        if (day !== today && day !== tomorrow) continue;
+        const warnings: string[] = [];
+        if (placement.state === "held") warnings.push("Held");
+        if (observations.some((o) => o.placementId === placement.id && (num(o.airTempC) ?? 99) <= 4)) warnings.push("Cold weather");
+        if (placement.pending) warnings.push("Not yet sent");
+        out.push({ placement, project, day: day === today ? "today" : "tomorrow", warnings });
+      }
+    }
+    return out.sort((a, b) => byTime("plannedStart")(a.placement, b.placement));
+  }, [db, projectKey]);
+
+  const planners = shown.filter((p) => mayWrite(p, "placement.write"));
+  const zone = shown[0]?.timeZone;
+  let heading: string;
+  try {
+    heading = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric", timeZone: zone }).format(new Date());
+  } catch {
+    heading = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric" }).format(new Date());
+  }
+  if (shown.length === 1 && zone) heading += ` · ${shown[0].name}`;
+
+  return (
+    <>
+      <PageHeader
+        title="Today"
+        subtitle={heading}
+        actions={
+          planners.length > 0 && !planning ? (
+            <Button data-testid="plan-placement" onClick={() => setPlanning(planners[0].id)}>
+              <Plus className="h-5 w-5" aria-hidden="true" /> Plan a placement
+            </Button>
+          ) : null
+        }
+      />
+      {planning ? (
+        <PlanPlacementForm
+          projects={planners}
+          projectId={planning}
+          onProjectChange={setPlanning}
+          onDone={() => setPlanning(null)}
+        />
+      ) : null}
+      {projects === undefined || rows === undefined ? (
+        <p className="text-muted">Reading this device…</p>
+      ) : projects.length === 0 ? (
+        <div className="card p-5" data-testid="field-no-projects">
+          <p className="text-lg font-semibold">No projects on this device yet.</p>
+          <p className="mt-1 text-muted">They arrive with the first sync once you are online.</p>
+        </div>
+      ) : rows.length === 0 ? (
+        <div className="card p-5" data-testid="field-today-empty">
+          <p className="text-lg font-semibold">No placements planned for today or tomorrow.</p>
+        </div>
+      ) : (
+        <ul className="grid gap-3 md:grid-cols-2" data-testid="field-today-list">
+          {(["today", "tomorrow"] as const).map((day) =>
+            rows
+              .filter((r) => r.day === day)
+              .map(({ placement, project, warnings }, i) => {
+                const units = unitSystemOf(project);
+                const volume = num(placement.plannedVolumeM3);
+                const least = num(placement.leastDimensionMm);
+                return (
+                  <li key={placement.id} className="contents">
+                    {i === 0 ? <h2 className="mt-2 text-sm font-bold uppercase tracking-wide text-ink-600 md:col-span-2">{day === "today" ? "Today" : "Tomorrow"}</h2> : null}
+                    <Link
+                      href={`/field/placement?id=${placement.id}`}
+                      data-testid="field-placement-link"
+                      className="card flex items-center gap-3 p-4 hover:bg-ink-50"
+                    >
+                      <div className="min-w-0 flex-1">
+                        <div className="flex flex-wrap items-center gap-2">
+                          <span className="text-lg font-bold text-ink-950">{str(placement.element)}</span>
+                          <StateBadge state={str(placement.state)} />
+                        </div>
+                        <p className="text-sm text-muted">
+                          {project.name} · {[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "no location"}
+                        </p>
+                        <p className="mt-1 text-base text-ink-900">
+                          {formatDateTime(placement.plannedStart, project.timeZone)}
+                          {volume !== undefined ? ` · ${formatVolume(volume, units)}` : ""}
+                          {least !== undefined ? ` · least ${formatLength(least, units)}` : ""}
+                        </p>
+                        {warnings.length > 0 ? (
+                          <div className="mt-2 flex flex-wrap gap-1">
+                            {warnings.map((w) => (
+                              <CautionBadge key={w}>{w}</CautionBadge>
+                            ))}
+                          </div>
+                        ) : null}
+                      </div>
+                      <ChevronRight className="h-6 w-6 shrink-0 text-ink-500" aria-hidden="true" />
+                    </Link>
+                  </li>
+                );
+              }),
+          )}
+        </ul>
+      )}
+    </>
+  );
+}
