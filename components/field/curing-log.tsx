@@ -1,5 +1,6 @@
 "use client";
 
+import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { Plus, Thermometer } from "lucide-react";
 import { useState } from "react";
@@ -51,19 +52,7 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
       <Field label="Concrete temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.temp?.message} data-testid="curing-temp" {...register("temp")} />
       <Field label="Location" placeholder="e.g. NE corner, under blanket" error={errors.location?.message} {...register("location")} />
       <Field label="Note" className="sm:col-span-2" {...register("note")} />
-      {failure ? (
-        <Notice tone="danger" title="Not saved" className="sm:col-span-2">
-          {failure}
-        </Notice>
-      ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" data-testid="curing-save" disabled={formState.isSubmitting}>
-          Save reading
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter failure={failure} saveLabel="Save reading" saveTestId="curing-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }

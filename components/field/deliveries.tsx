@@ -1,12 +1,12 @@
 "use client";
 
+import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { Pencil, Plus, Truck } from "lucide-react";
 import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
 import { checkDischarge, checkWaterAddition, formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete";
 import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
@@ -268,19 +268,7 @@ function DeliveryForm({
       <div className="sm:col-span-2">
         <CheckLines checks={checks} units={units} testId="delivery-live-checks" />
       </div>
-      {failure ? (
-        <Notice tone="danger" title="Not saved" className="sm:col-span-2">
-          {failure}
-        </Notice>
-      ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" data-testid="delivery-save" disabled={formState.isSubmitting}>
-          {existing ? "Save changes" : "Save truck"}
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter failure={failure} saveLabel={existing ? "Save changes" : "Save truck"} saveTestId="delivery-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }

@@ -1,5 +1,6 @@
 "use client";
 
+import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { FlaskConical, Plus } from "lucide-react";
 import { useState } from "react";
@@ -152,19 +153,7 @@ function FieldTestForm({ placement, project, mix, deliveries, onDone }: { placem
       {yieldText ? <p className="text-sm font-semibold sm:col-span-2" data-testid="field-test-yield">{yieldText}</p> : null}
       <Field label="Notes" className="sm:col-span-2" {...register("notes")} />
       {!mix ? <p className="text-sm text-muted sm:col-span-2">Choose the mix on the plan to check slump and air against it.</p> : null}
-      {failure ? (
-        <Notice tone="danger" title="Not saved" className="sm:col-span-2">
-          {failure}
-        </Notice>
-      ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" data-testid="field-test-save" disabled={formState.isSubmitting}>
-          Save test
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter failure={failure} saveLabel="Save test" saveTestId="field-test-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }

@@ -1,12 +1,11 @@
 "use client";
 
+import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
 import { ELEMENT_TYPES } from "@/lib/records/enums";
 import { createLocal, listByProject, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
@@ -113,19 +112,7 @@ export function PlanPlacementForm({
           </select>
         </label>
         <Field label="Planned start" type="datetime-local" error={errors.plannedStart?.message} data-testid="plan-start" {...register("plannedStart")} />
-        {failure ? (
-          <Notice tone="danger" title="Not saved" className="sm:col-span-2">
-            {failure}
-          </Notice>
-        ) : null}
-        <div className="flex gap-2 sm:col-span-2">
-          <Button type="submit" data-testid="plan-save" disabled={formState.isSubmitting}>
-            Save placement
-          </Button>
-          <Button variant="secondary" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <FormFooter failure={failure} saveLabel="Save placement" saveTestId="plan-save" submitting={formState.isSubmitting} onCancel={onDone} />
       </form>
     </Section>
   );

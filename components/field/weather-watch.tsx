@@ -1,5 +1,6 @@
 "use client";
 
+import { FormFooter } from "./form-footer";
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { CircleCheck, ClipboardCheck, CloudSun, OctagonAlert, Plus, TriangleAlert } from "lucide-react";
@@ -145,19 +146,7 @@ function ObservationForm({ placement, project, lowBleed, onDone }: { placement: 
           <span className="text-sm text-muted">{evap.rule}. The project specification governs.</span>
         </div>
       ) : null}
-      {failure ? (
-        <Notice tone="danger" title="Not saved" className="sm:col-span-2">
-          {failure}
-        </Notice>
-      ) : null}
-      <div className="flex gap-2 sm:col-span-2">
-        <Button type="submit" data-testid="weather-save" disabled={formState.isSubmitting}>
-          Save observation
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <FormFooter failure={failure} saveLabel="Save observation" saveTestId="weather-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }
