@@ -4,12 +4,31 @@ import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
 import { listUserProjects } from "@/lib/users/queries";
+import type { SessionUser } from "@/lib/auth/options";
+import { STATE_LABELS, type PlacementState } from "@/lib/placements/workflow";
+import { listRecords } from "@/lib/records/read";
 
 export const metadata: Metadata = { title: "Today" };
 
+/** Placements planned for today and tomorrow in the project's own time zone. */
+async function todayAndTomorrow(user: SessionUser, projectId: string, timeZone: string) {
+  const day = (d: Date) => new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(d);
+  const now = new Date();
+  const { items } = await listRecords({ user }, "placements", projectId, { from: day(now), to: day(new Date(now.getTime() + 86_400_000)), limit: "50" });
+  const time = new Intl.DateTimeFormat("en-US", { timeZone, weekday: "short", hour: "numeric", minute: "2-digit" });
+  return items.map((row) => ({
+    id: row.id,
+    element: String(row.element),
+    state: row.state as PlacementState,
+    start: row.plannedStart ? time.format(new Date(row.plannedStart as string)) : "No start time",
+  }));
+}
+
 export default async function TodayPage() {
   const user = await requireUser();
-  const projects = await listUserProjects(user.id);
+  const projects = await Promise.all(
+    (await listUserProjects(user.id)).map(async (p) => ({ ...p, placements: await todayAndTomorrow(user, p.id, p.timeZone) })),
+  );
   const today = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric" }).format(new Date());
 
   return (
@@ -46,7 +65,23 @@ export default async function TodayPage() {
                 </Link>
                 <span className="rounded-full bg-ink-100 px-2.5 py-1 text-xs font-semibold text-ink-800">{ROLE_LABELS[p.role]}</span>
               </div>
-              <p className="mt-3 text-muted">No placements planned for today or tomorrow.</p>
+              {p.placements.length === 0 ? (
+                <p className="mt-3 text-muted">No placements planned for today or tomorrow.</p>
+              ) : (
+                <ul className="mt-3 divide-y divide-ink-100" data-testid="today-placements">
+                  {p.placements.map((pl) => (
+                    <li key={pl.id}>
+                      <Link href={`/field/placement?id=${pl.id}`} className="flex min-h-touch items-center justify-between gap-2 py-2 hover:bg-ink-50">
+                        <span>
+                          <span className="block font-semibold">{pl.element}</span>
+                          <span className="text-sm text-muted">{pl.start}</span>
+                        </span>
+                        <span className="rounded-full border border-ink-300 px-2.5 py-1 text-xs font-semibold">{STATE_LABELS[pl.state]}</span>
+                      </Link>
+                    </li>
+                  ))}
+                </ul>
+              )}
             </li>
           ))}
         </ul>
