@@ -80,3 +80,14 @@ test.describe("app shell at phone and desktop sizes", () => {
     expect(await res.json()).toEqual({ app: "ready", database: "ready" });
   });
 });
+
+test("the digest's day link shows only that day's placements", async ({ page }) => {
+  await signIn(page, DEMO.oona);
+  // Larkspur Commons, 17 November 2026: the level 2 deck (demo scenario).
+  await page.goto("/projects/6f1c3e20-8d44-4b7e-b1a2-00000000000a?date=2026-11-17");
+  await expect(page.getByRole("heading", { name: "Placements on 2026-11-17" })).toBeVisible();
+  await expect(page.getByText("Level 2 deck")).toBeVisible();
+  await expect(page.getByText("Podium slab, east half")).toHaveCount(0);
+  await page.getByRole("link", { name: "Show every placement" }).click();
+  await expect(page.getByText("Podium slab, east half")).toBeVisible();
+});

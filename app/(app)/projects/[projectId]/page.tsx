@@ -12,8 +12,21 @@ import { getProjectForMember } from "@/lib/projects/queries";
 
 export const metadata: Metadata = { title: "Project" };
 
-export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
+/** The project-local calendar day of an instant, as YYYY-MM-DD. */
+const localDay = (instant: Date, timeZone: string) =>
+  new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(instant);
+
+export default async function ProjectPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ date?: string }>;
+}) {
   const { projectId } = await params;
+  // `?date=YYYY-MM-DD` (the daily digest links here) narrows the list to that day on site.
+  const { date: rawDate } = await searchParams;
+  const date = rawDate && /^\d{4}-\d{2}-\d{2}$/.test(rawDate) ? rawDate : null;
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
   let data;
@@ -26,7 +39,8 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     throw error;
   }
   const { project, role, members } = data;
-  const placements = await listPlacementsForScreen(user, projectId);
+  const all = await listPlacementsForScreen(user, projectId);
+  const placements = date ? all.filter((p) => p.plannedStart && localDay(new Date(p.plannedStart), project.timeZone) === date) : all;
   return (
     <>
       <PageHeader
@@ -41,8 +55,20 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       />
       <div className="grid gap-4 lg:grid-cols-3">
         <section className="card p-4 lg:col-span-2" aria-labelledby="placements-title">
-          <h2 id="placements-title" className="text-lg font-bold">Placements</h2>
-          <PlacementList placements={placements} unitSystem={project.unitSystem} timeZone={project.timeZone} />
+          <h2 id="placements-title" className="text-lg font-bold">{date ? `Placements on ${date}` : "Placements"}</h2>
+          {date ? (
+            <p className="mt-1 text-sm" data-testid="day-filter">
+              Showing one day.{" "}
+              <Link href={`/projects/${projectId}`} className="font-semibold text-lichen-700 underline">
+                Show every placement
+              </Link>
+            </p>
+          ) : null}
+          {date && placements.length === 0 ? (
+            <p className="mt-2 text-muted" data-testid="no-placements">No placements on this day.</p>
+          ) : (
+            <PlacementList placements={placements} unitSystem={project.unitSystem} timeZone={project.timeZone} />
+          )}
         </section>
         <section className="card p-4" aria-labelledby="project-facts">
           <h2 id="project-facts" className="text-lg font-bold">Project</h2>
