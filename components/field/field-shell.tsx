@@ -3,7 +3,7 @@
 // The shell of the offline field screens: who is using the device (the session when online, the
 // device's copy otherwise), the sync loop, a project switcher from the device database, and the
 // bottom navigation. Rendered by the static (field) layout, so it never asks the server for anything.
-import clsx from "clsx";
+import { BottomNav } from "@/components/shell/bottom-nav";
 import { CalendarDays, GitMerge, Gauge, LogIn, NotebookPen, UserRound } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
@@ -121,23 +121,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
             {identity ? children : loading ? <p className="text-muted">Opening…</p> : <NoIdentity />}
           </main>
 
-          <nav aria-label="Field" className="no-print fixed inset-x-0 bottom-0 z-20 grid grid-cols-4 border-t border-ink-200 bg-white">
-            {NAV.map(({ href, label, icon: Icon }) => (
-              <Link
-                key={href}
-                href={href}
-                data-testid={`field-nav-${label.toLowerCase()}`}
-                aria-current={isActive(href) ? "page" : undefined}
-                className={clsx(
-                  "flex min-h-16 flex-col items-center justify-center gap-1 text-xs font-semibold",
-                  isActive(href) ? "text-lichen-700" : "text-ink-600",
-                )}
-              >
-                <Icon className="h-6 w-6" aria-hidden="true" />
-                {label}
-              </Link>
-            ))}
-          </nav>
+          <BottomNav label="Field" items={NAV} isActive={isActive} testIdPrefix="field-nav-" />
         </div>
       </FieldContext.Provider>
     </SyncProvider>

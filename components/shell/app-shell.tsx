@@ -9,6 +9,7 @@ import type { UserProject } from "@/lib/users/queries";
 import { ContrastToggle } from "./contrast-toggle";
 import { ProjectSwitcher } from "./project-switcher";
 import { SyncStatus } from "./sync-status";
+import { BottomNav } from "./bottom-nav";
 import { UserMenu } from "./user-menu";
 
 export type ShellUser = { id: string; name: string; email: string; isAdmin: boolean };
@@ -60,26 +61,7 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
       <main className="mx-auto w-full max-w-7xl flex-1 px-3 pb-28 pt-4 md:pb-10 lg:px-6">{children}</main>
 
       {/* Phone: the main places sit under the thumb. */}
-      <nav
-        aria-label="Main"
-        className="no-print fixed inset-x-0 bottom-0 z-20 grid border-t border-ink-200 bg-white md:hidden"
-        style={{ gridTemplateColumns: `repeat(${nav.length}, minmax(0, 1fr))` }}
-      >
-        {nav.map(({ href, label, icon: Icon }) => (
-          <Link
-            key={href}
-            href={href}
-            aria-current={isActive(href) ? "page" : undefined}
-            className={clsx(
-              "flex min-h-16 flex-col items-center justify-center gap-1 text-xs font-semibold",
-              isActive(href) ? "text-lichen-700" : "text-ink-600",
-            )}
-          >
-            <Icon className="h-6 w-6" aria-hidden="true" />
-            {label}
-          </Link>
-        ))}
-      </nav>
+      <BottomNav label="Main" items={nav} isActive={isActive} className="md:hidden" />
     </div>
   );
 }

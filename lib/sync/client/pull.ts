@@ -4,7 +4,7 @@
 import { SYNC_SCHEMA_VERSION, type PullRequest, type PullResponse } from "@/lib/sync/protocol";
 import { applyPull } from "./apply-pull";
 import { ensureMeta, getMeta, type SyncDb } from "./db";
-import { MESSAGES, type FetchLike } from "./push";
+import { MESSAGES, postSyncJson, type FetchLike } from "./push";
 
 export type PullOptions = { fetch: FetchLike; url?: string; limit?: number };
 
@@ -32,18 +32,8 @@ export async function pullOnce(db: SyncDb, options: PullOptions): Promise<PullOu
   const { clientId } = await ensureMeta(db, SYNC_SCHEMA_VERSION);
   const cursor = (await getMeta(db, "cursor")) ?? null;
   const body: PullRequest = { clientId, schemaVersion: SYNC_SCHEMA_VERSION, cursor, ...(options.limit ? { limit: options.limit } : {}) };
-  let res: Response;
-  try {
-    res = await options.fetch(options.url ?? "/api/sync/pull", {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-      credentials: "same-origin",
-      cache: "no-store",
-    });
-  } catch {
-    return { kind: "transient", message: MESSAGES.offline };
-  }
+  const res = await postSyncJson(options.fetch, options.url ?? "/api/sync/pull", body);
+  if (!res) return { kind: "transient", message: MESSAGES.offline };
   if (res.status === 401) return { kind: "unauthenticated", message: MESSAGES.signIn };
   if ([408, 429, 502, 503, 504].includes(res.status)) return { kind: "transient", message: MESSAGES.busy, status: res.status };
   const json: unknown = await res.json().catch(() => null);

@@ -25,6 +25,21 @@ import { applyEntry, rebuildRecord } from "./replay";
 
 export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
 
+/** POSTs a sync request as JSON; null when the network could not be reached at all. */
+export async function postSyncJson(fetchFn: FetchLike, url: string, body: unknown): Promise<Response | null> {
+  try {
+    return await fetchFn(url, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body),
+      credentials: "same-origin",
+      cache: "no-store",
+    });
+  } catch {
+    return null;
+  }
+}
+
 export type PushOptions = {
   fetch: FetchLike;
   /** Default /api/sync/push. */
@@ -131,16 +146,8 @@ export async function pushOnce(db: SyncDb, options: PushOptions): Promise<PushOu
     })),
   };
 
-  let res: Response;
-  try {
-    res = await options.fetch(options.url ?? "/api/sync/push", {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-      credentials: "same-origin",
-      cache: "no-store",
-    });
-  } catch {
+  const res = await postSyncJson(options.fetch, options.url ?? "/api/sync/push", body);
+  if (!res) {
     await releaseBatch(db, batch, "pending", MESSAGES.offline);
     return { kind: "transient", message: MESSAGES.offline };
   }
