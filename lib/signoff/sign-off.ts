@@ -2,19 +2,20 @@
 // and the SHA-256 of the record's content at that moment, stored with the state change in one
 // transaction. From then on the database trigger refuses changes; amendments sit beside it.
 import { randomUUID } from "node:crypto";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db";
 import { amendments, auditEntries, placements, signOffs, users } from "@/db/schema";
 import { parseOrThrow } from "@/lib/api/handler";
 import type { SessionUser } from "@/lib/auth/options";
-import { verifyPassword } from "@/lib/auth/password";
 import { writeAudit } from "@/lib/audit";
-import { AppError, conflict, notFound } from "@/lib/errors";
+import { conflict, notFound } from "@/lib/errors";
 import { signPlacement } from "@/lib/placements/sign";
 import { authorizeAny } from "@/lib/records/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
+import { amendmentsWithSignOffs } from "./amendment-sign";
+import { checkSignerPassword } from "./password";
 import { amendmentSchema, signOffSchema } from "./schemas";
 import { openItems, placementSnapshot, snapshotHash } from "./snapshot";
 
@@ -28,10 +29,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
   const role = await authorizeAny(db, user, projectId, ["placement.sign"]);
-  const [account] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, user.id));
-  if (!(await verifyPassword(account?.passwordHash ?? null, body.password))) {
-    throw new AppError("unauthenticated", "That password is not right. Nothing was signed.", { password: "Wrong password." });
-  }
+  await checkSignerPassword(user, body.password);
   return inTransaction({ user }, undefined, async (tx) => {
     const snapshot = await placementSnapshot(tx, projectId, placementId);
     if (!snapshot.placement) throw notFound("Placement");
@@ -87,18 +85,15 @@ export async function verifyPlacementSignOff(user: SessionUser, projectId: strin
   assertUuid(placementId, "Placement");
   await authorizeAny(db, user, projectId, ["project.read"]);
   const [signOff] = await db
-    .select()
+    .select({ ...getTableColumns(signOffs), signerName: users.name })
     .from(signOffs)
+    .leftJoin(users, eq(users.id, signOffs.signerId))
     .where(and(eq(signOffs.projectId, projectId), eq(signOffs.recordType, "placements"), eq(signOffs.recordId, placementId)))
     .orderBy(desc(signOffs.signedAt))
     .limit(1);
   const [placement] = await db.select({ id: placements.id }).from(placements).where(and(eq(placements.projectId, projectId), eq(placements.id, placementId)));
   if (!placement) throw notFound("Placement");
-  const list = await db
-    .select()
-    .from(amendments)
-    .where(and(eq(amendments.projectId, projectId), eq(amendments.recordId, placementId)))
-    .orderBy(asc(amendments.createdAt));
+  const list = await amendmentsWithSignOffs(projectId, placementId);
   if (!signOff) return { signed: false as const, amendments: list };
   const currentHash = snapshotHash(await placementSnapshot(db, projectId, placementId));
   return { signed: true as const, signOff, currentHash, matches: currentHash === signOff.contentHash, amendments: list };
