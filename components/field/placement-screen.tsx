@@ -15,6 +15,8 @@ import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
+import { HoldBanner } from "@/components/inspection/hold-banner";
+import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
 import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
 import { FieldTests } from "./field-tests";
@@ -30,7 +32,7 @@ const ACTION_WORDS: Partial<Record<PlacementState, string>> = {
   held: "Hold",
 };
 
-function Transitions({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+function Transitions({ placement, project, readyBlockedBy = [] }: { placement: LocalRecord; project: ProjectRow; readyBlockedBy?: string[] }) {
   const db = useSyncDb();
   const state = str(placement.state) as PlacementState;
   const role = (project.role ?? null) as ProjectRole | null;
@@ -57,7 +59,14 @@ function Transitions({ placement, project }: { placement: LocalRecord; project: 
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
         {allowed.filter((to) => to !== "held").map((to) => (
-          <Button key={to} variant={to === "planned" ? "secondary" : "primary"} data-testid={`transition-${to}`} onClick={() => void move(to)}>
+          <Button
+            key={to}
+            variant={to === "planned" ? "secondary" : "primary"}
+            data-testid={`transition-${to}`}
+            disabled={to === "ready" && readyBlockedBy.length > 0}
+            title={to === "ready" && readyBlockedBy.length > 0 ? readyBlockedBy.join(" ") : undefined}
+            onClick={() => void move(to)}
+          >
             {ACTION_WORDS[to] ?? STATE_LABELS[to]}
           </Button>
         ))}
@@ -68,6 +77,11 @@ function Transitions({ placement, project }: { placement: LocalRecord; project: 
         ) : null}
         {allowed.length === 0 ? <p className="text-sm text-ink-800">Your role on this project cannot move it from here.</p> : null}
       </div>
+      {allowed.includes("ready") && readyBlockedBy.length > 0 ? (
+        <p className="mt-2 text-sm text-ink-800" data-testid="ready-blocked">
+          Answer the readiness check first: {readyBlockedBy[0]}
+        </p>
+      ) : null}
       {holding ? (
         <form
           className="mt-3 flex flex-col gap-2"
@@ -100,7 +114,10 @@ export function PlacementScreen() {
   const db = useSyncDb();
   const id = useSearchParams().get("id");
   const placement = useLiveQuery(async () => (await getRecord(db, "placements", id)) ?? null, [db, id]);
-  const project = useProject(placement?.projectId);
+  const memberProject = useProject(placement?.projectId);
+  const readiness = useReadiness(id);
+  // A signed placement is read-only for everyone: its sections see a role that writes nothing.
+  const project = memberProject && placement?.state === "signed" ? { ...memberProject, role: "owner" as const } : memberProject;
   const mix = useLiveQuery(
     async () => (placement?.mixId ? ((await getRecord(db, "mix-designs", str(placement.mixId))) ?? null) : null),
     [db, placement?.mixId],
@@ -138,6 +155,7 @@ export function PlacementScreen() {
         </div>
         <p className="text-muted">{project.name}</p>
       </div>
+      <HoldBanner placement={placement} project={project} />
 
       <Section title="Plan" testId="placement-plan">
         <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-base">
@@ -154,13 +172,10 @@ export function PlacementScreen() {
           <dt className="text-sm text-muted">Planned start</dt>
           <dd className="font-semibold">{formatDateTime(placement.plannedStart, project.timeZone)}</dd>
         </dl>
-        {placement.state === "held" && placement.holdReason ? (
-          <Notice tone="caution" title="Held" className="mt-3">
-            {str(placement.holdReason)}
-          </Notice>
-        ) : null}
-        <Transitions placement={placement} project={project} />
+        <Transitions placement={placement} project={project} readyBlockedBy={readiness?.verdict.problems} />
       </Section>
+
+      <ReadinessCheck placement={placement} project={project} readiness={readiness} />
 
       <Deliveries placement={placement} project={project} mix={mix ?? null} />
       <FieldTests placement={placement} project={project} mix={mix ?? null} />

@@ -5,6 +5,7 @@ import { ChevronRight, Plus } from "lucide-react";
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { formatLength, formatVolume } from "@/lib/concrete";
 import { STATE_LABELS } from "@/lib/placements/workflow";
@@ -102,6 +103,15 @@ export function TodayScreen() {
           <p className="text-lg font-semibold">No placements planned for today or tomorrow.</p>
         </div>
       ) : (
+        <>
+        {rows.some((r) => r.placement.state === "held") ? (
+          <Notice tone="danger" title="Held by the inspector: do not place" className="mb-3" testId="today-hold-banner">
+            {rows
+              .filter((r) => r.placement.state === "held")
+              .map((r) => `${str(r.placement.element)}: ${str(r.placement.holdReason) || "no reason given"}`)
+              .join(" · ")}
+          </Notice>
+        ) : null}
         <ul className="grid gap-3 md:grid-cols-2" data-testid="field-today-list">
           {(["today", "tomorrow"] as const).map((day) =>
             rows
@@ -131,6 +141,11 @@ export function TodayScreen() {
                           {volume !== undefined ? ` · ${formatVolume(volume, units)}` : ""}
                           {least !== undefined ? ` · least ${formatLength(least, units)}` : ""}
                         </p>
+                        {placement.state === "held" ? (
+                          <p className="mt-2 text-base font-semibold text-danger-800" data-testid="today-hold-reason">
+                            Held by the inspector: {str(placement.holdReason) || "no reason given"}
+                          </p>
+                        ) : null}
                         {warnings.length > 0 ? (
                           <div className="mt-2 flex flex-wrap gap-1">
                             {warnings.map((w) => (
@@ -146,6 +161,7 @@ export function TodayScreen() {
               }),
           )}
         </ul>
+        </>
       )}
     </>
   );
