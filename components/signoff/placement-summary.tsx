@@ -1,0 +1,139 @@
+"use client";
+
+// What the inspector signs for a placement, counted from the records on this device: trucks, tests,
+// warnings raised, checklists, photos and what is still open (conflicts, unsent changes, uploads).
+import { useLiveQuery } from "dexie-react-hooks";
+import { CircleAlert, CircleCheck } from "lucide-react";
+import { judge } from "@/components/field/field-tests";
+import { num, str, unitSystemOf } from "@/components/field/common";
+import { evaporationOf } from "@/components/field/weather-watch";
+import { formatVolume } from "@/lib/concrete";
+import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import type { SyncDb } from "@/lib/sync/client/db";
+import { useSyncDb } from "@/lib/sync/client/react";
+
+export type PlacementSummary = {
+  trucks: number;
+  rejectedTrucks: number;
+  volumeM3: number;
+  waterAddedTrucks: number;
+  tests: number;
+  testsOutOfTolerance: number;
+  specimenSets: number;
+  observations: number;
+  highEvaporation: number;
+  curingReadings: number;
+  checklists: { kind: string; answered: number; total: number; no: number }[];
+  photos: number;
+  photosUploading: number;
+  conflicts: number;
+  unsent: number;
+};
+
+const CHECKLIST_NAMES: Record<string, string> = { readiness: "Readiness", "hot-weather": "Hot weather", "cold-weather": "Cold weather" };
+
+async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow, mix: LocalRecord | null): Promise<PlacementSummary> {
+  const units = unitSystemOf(project);
+  const [deliveries, tests, sets, observations, curing, lists] = await Promise.all([
+    listByParent(db, "deliveries", "placementId", placement.id),
+    listByParent(db, "field-tests", "placementId", placement.id),
+    listByParent(db, "specimen-sets", "placementId", placement.id),
+    listByParent(db, "weather-observations", "placementId", placement.id),
+    listByParent(db, "curing-readings", "placementId", placement.id),
+    listByParent(db, "checklists", "placementId", placement.id),
+  ]);
+  const checklists = [];
+  const items: LocalRecord[] = [];
+  for (const list of lists) {
+    const rows = await listByParent(db, "checklist-items", "checklistId", list.id);
+    items.push(...rows);
+    checklists.push({ kind: str(list.kind), answered: rows.filter((r) => r.answer).length, total: rows.length, no: rows.filter((r) => r.answer === "no").length });
+  }
+  const records = [placement, ...deliveries, ...tests, ...sets, ...observations, ...curing, ...lists, ...items];
+  const ids = new Set(records.map((r) => r.id));
+  const [conflicts, blobs] = await Promise.all([db.conflicts.filter((c) => ids.has(c.recordId)).toArray(), db.blobs.filter((b) => !!b.recordId && ids.has(b.recordId)).toArray()]);
+  const lowBleed = mix?.lowBleed === true;
+  return {
+    trucks: deliveries.length,
+    rejectedTrucks: deliveries.filter((d) => d.status === "rejected").length,
+    volumeM3: deliveries.filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (num(d.volumeM3) ?? 0), 0),
+    waterAddedTrucks: deliveries.filter((d) => (num(d.waterAddedL) ?? 0) > 0).length,
+    tests: tests.length,
+    testsOutOfTolerance: tests.filter((t) => {
+      const v = judge({ slumpMm: num(t.slumpMm), airPct: num(t.airPct), concreteTempC: num(t.concreteTempC) }, mix, project, units);
+      return [v.slump, v.air, v.temperature].some((x) => x && !x.ok);
+    }).length,
+    specimenSets: sets.length,
+    observations: observations.length,
+    highEvaporation: observations.filter(
+      (o) => evaporationOf({ airTempC: num(o.airTempC), relativeHumidityPct: num(o.relativeHumidityPct), windKmh: num(o.windKmh), concreteTempC: num(o.concreteTempC) }, project, lowBleed)?.risk === "high",
+    ).length,
+    curingReadings: curing.length,
+    checklists,
+    photos: blobs.length,
+    photosUploading: blobs.filter((b) => b.uploadState !== "stored").length,
+    conflicts: conflicts.filter((c) => c.kind === "conflict").length,
+    unsent: records.filter((r) => r.pending).length,
+  };
+}
+
+export function usePlacementSummary(placement: LocalRecord, project: ProjectRow, mix: LocalRecord | null): PlacementSummary | undefined {
+  const db = useSyncDb();
+  return useLiveQuery(() => summarize(db, placement, project, mix), [db, placement, project, mix]);
+}
+
+/** Open items that the device already knows will stop the sign-off (the server checks again). */
+export function blockingReason(s: PlacementSummary | undefined): string | null {
+  if (!s) return null;
+  const parts: string[] = [];
+  if (s.unsent) parts.push(`${s.unsent} ${s.unsent === 1 ? "change has" : "changes have"} not reached the server yet`);
+  if (s.conflicts) parts.push(`${s.conflicts} ${s.conflicts === 1 ? "conflict" : "conflicts"} to resolve`);
+  if (s.photosUploading) parts.push(`${s.photosUploading} ${s.photosUploading === 1 ? "photo is" : "photos are"} still uploading`);
+  return parts.length ? `Not yet: ${parts.join(", ")}. Sync, then sign.` : null;
+}
+
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+function Line({ label, value, warn, testId }: { label: string; value: string; warn?: boolean; testId?: string }) {
+  const Icon = warn ? CircleAlert : CircleCheck;
+  return (
+    <li className="flex items-start gap-2 py-1" data-testid={testId}>
+      <Icon className={warn ? "mt-0.5 h-5 w-5 shrink-0 text-caution-700" : "mt-0.5 h-5 w-5 shrink-0 text-lichen-700"} aria-hidden="true" />
+      <span>
+        <span className="font-semibold">{label}:</span> {value}
+      </span>
+    </li>
+  );
+}
+
+export function PlacementSignSummary({ summary, project }: { summary: PlacementSummary | undefined; project: ProjectRow }) {
+  if (!summary) return <p className="text-muted">Counting the records on this device…</p>;
+  const s = summary;
+  const units = unitSystemOf(project);
+  const warnings = [
+    s.testsOutOfTolerance ? plural(s.testsOutOfTolerance, "test out of tolerance", "tests out of tolerance") : null,
+    s.highEvaporation ? plural(s.highEvaporation, "high-evaporation reading", "high-evaporation readings") : null,
+    s.waterAddedTrucks ? plural(s.waterAddedTrucks, "truck with water added at site", "trucks with water added at site") : null,
+    s.rejectedTrucks ? plural(s.rejectedTrucks, "truck rejected", "trucks rejected") : null,
+    ...s.checklists.filter((c) => c.no).map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} checklist: ${plural(c.no, "item", "items")} answered no`),
+  ].filter((w): w is string => !!w);
+  const open = [
+    s.conflicts ? plural(s.conflicts, "conflict", "conflicts") : null,
+    s.unsent ? plural(s.unsent, "unsent change", "unsent changes") : null,
+    s.photosUploading ? plural(s.photosUploading, "photo uploading", "photos uploading") : null,
+  ].filter((w): w is string => !!w);
+  return (
+    <ul className="flex flex-col text-base" data-testid="sign-summary">
+      <Line testId="sign-summary-trucks" label="Trucks" value={`${plural(s.trucks, "truck", "trucks")}, ${formatVolume(s.volumeM3, units)} accepted`} />
+      <Line label="Field tests" value={`${plural(s.tests, "test", "tests")}, ${plural(s.specimenSets, "specimen set", "specimen sets")}`} />
+      <Line label="Weather" value={`${plural(s.observations, "observation", "observations")}; curing ${plural(s.curingReadings, "reading", "readings")}`} />
+      <Line testId="sign-summary-warnings" label="Warnings raised" value={warnings.length ? warnings.join("; ") : "none"} warn={warnings.length > 0} />
+      <Line
+        label="Checklists"
+        value={s.checklists.length ? s.checklists.map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} ${c.answered}/${c.total}`).join(", ") : "none"}
+      />
+      <Line label="Photos on this device" value={s.photos ? `${s.photos}${s.photosUploading ? `, ${s.photosUploading} uploading` : ""}` : "none"} />
+      <Line testId="sign-summary-open" label="Open items" value={open.length ? open.join(", ") : "none on this device"} warn={open.length > 0} />
+    </ul>
+  );
+}
