@@ -17,6 +17,7 @@ import { useSyncDb } from "@/lib/sync/client/react";
 import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
+import { PlacementSignOff } from "@/components/signoff/placement-sign-off";
 import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
 import { FieldTests } from "./field-tests";
@@ -175,6 +176,7 @@ export function PlacementScreen() {
         <Transitions placement={placement} project={project} readyBlockedBy={readiness?.verdict.problems} />
       </Section>
 
+      <PlacementSignOff placement={placement} project={memberProject ?? project} mix={mix ?? null} />
       <ReadinessCheck placement={placement} project={project} readiness={readiness} />
 
       <Deliveries placement={placement} project={project} mix={mix ?? null} />

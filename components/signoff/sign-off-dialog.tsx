@@ -47,6 +47,9 @@ function useSignaturePad(open: boolean) {
       pad.clear();
     };
     const refit = () => {
+      // A phone's keyboard opening fires resize too: only a changed width redraws (and clears) the pad.
+      const ratio = Math.min(Math.max(window.devicePixelRatio || 1, 1), 2);
+      if (canvas.width === canvas.offsetWidth * ratio) return;
       fit();
       setEmpty(true);
     };

@@ -1,0 +1,257 @@
+"use client";
+
+// A signed placement: the signature, who signed as what and when, the content hash and whether the
+// record still matches it (recomputed by the server now), the amendments beside the original, and
+// the late edits this device made that were kept as conflicts rather than applied.
+import { useQueryClient } from "@tanstack/react-query";
+import { useLiveQuery } from "dexie-react-hooks";
+import { FilePenLine, Printer, ShieldAlert, ShieldCheck, WifiOff } from "lucide-react";
+import { useState } from "react";
+import { Section, formatDateTime, mayWrite } from "@/components/field/common";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
+import { callApi } from "@/lib/api/client";
+import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useOnline, useSyncDb } from "@/lib/sync/client/react";
+import { SignOffDialog } from "./sign-off-dialog";
+import { amendmentsUrl, useVerification, type AmendmentRow, type SignOffRow } from "./use-sign-off";
+
+const roleLabel = (role: string) => ROLE_LABELS[role as ProjectRole] ?? role;
+
+export function SignatureBlock({ signOff, timeZone, testId }: { signOff: SignOffRow; timeZone: string; testId?: string }) {
+  return (
+    <div className="flex flex-col gap-2 sm:flex-row sm:items-start" data-testid={testId}>
+      {signOff.signatureImage ? (
+        // eslint-disable-next-line @next/next/no-img-element -- a data URL from the server, not an asset
+        <img
+          src={signOff.signatureImage}
+          alt={`Signature of ${signOff.typedName}`}
+          data-testid="signature-image"
+          className="h-24 w-full max-w-xs rounded-lg border border-ink-200 bg-white object-contain"
+        />
+      ) : null}
+      <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-base">
+        <dt className="text-sm text-muted">Signed by</dt>
+        <dd className="font-semibold" data-testid="signer-name">
+          {signOff.typedName}
+          {signOff.signerName && signOff.signerName !== signOff.typedName ? <span className="font-normal text-muted"> (account: {signOff.signerName})</span> : null}
+        </dd>
+        <dt className="text-sm text-muted">Role</dt>
+        <dd className="font-semibold" data-testid="signer-role">
+          {roleLabel(signOff.role)}
+        </dd>
+        <dt className="text-sm text-muted">Time</dt>
+        <dd className="font-semibold">{formatDateTime(signOff.signedAt, timeZone)}</dd>
+      </dl>
+    </div>
+  );
+}
+
+function HashLine({ hash, matches }: { hash: string; matches: boolean }) {
+  return (
+    <div className="mt-3 flex flex-col gap-2">
+      <p className="text-sm text-muted">
+        SHA-256 of the record at signing: <code className="break-all font-mono text-ink-900" data-testid="content-hash">{hash}</code>
+      </p>
+      {matches ? (
+        <Notice tone="success" title="Verified: the record matches what was signed" testId="verify-result">
+          The hash was recomputed from the stored record just now.
+        </Notice>
+      ) : (
+        <Notice tone="danger" title="Does not match: the record changed after signing" testId="verify-result">
+          The hash recomputed now differs from the one signed. Report this to the office: a stored row was changed outside the application.
+        </Notice>
+      )}
+    </div>
+  );
+}
+
+function AmendmentCard({ amendment, project, placementId }: { amendment: AmendmentRow; project: ProjectRow; placementId: string }) {
+  const [signing, setSigning] = useState(false);
+  const queryClient = useQueryClient();
+  const canSign = mayWrite(project, "amendment.write") && !amendment.signOff;
+  return (
+    <li className="rounded-lg border-2 border-ink-200 bg-white p-3" data-testid="amendment">
+      <p className="text-sm text-muted">
+        {amendment.authorName ?? "Someone"} · {formatDateTime(amendment.createdAt, project.timeZone)}
+      </p>
+      <p className="mt-1 text-base">
+        <span className="font-semibold">What changes:</span> <span data-testid="amendment-what">{amendment.what}</span>
+      </p>
+      <p className="mt-1 text-base">
+        <span className="font-semibold">Why:</span> {amendment.why}
+      </p>
+      {amendment.signOff ? (
+        <div className="mt-2 border-t border-ink-100 pt-2" data-testid="amendment-signed">
+          <SignatureBlock signOff={amendment.signOff} timeZone={project.timeZone} />
+          {amendment.matches === false ? (
+            <Notice tone="danger" title="This amendment changed after it was signed" className="mt-2" />
+          ) : (
+            <p className="mt-1 text-sm text-lichen-800">Signed amendment; its text matches the signature.</p>
+          )}
+        </div>
+      ) : (
+        <p className="mt-2 text-sm text-muted">Not signed.</p>
+      )}
+      {canSign ? (
+        <Button variant="secondary" className="mt-2" data-testid="sign-amendment" onClick={() => setSigning(true)}>
+          <FilePenLine className="h-5 w-5" aria-hidden="true" /> Sign this amendment
+        </Button>
+      ) : null}
+      <SignOffDialog
+        open={signing}
+        endpoint={`${amendmentsUrl(project.id, placementId)}/${amendment.id}/sign-off`}
+        baseVersion={amendment.version}
+        title="Sign the amendment"
+        summary={
+          <p className="text-base">
+            {amendment.what} <span className="text-muted">— {amendment.why}</span>
+          </p>
+        }
+        onClose={() => setSigning(false)}
+        onSigned={() => {
+          setSigning(false);
+          void queryClient.invalidateQueries({ queryKey: ["sign-off", project.id, placementId] });
+        }}
+      />
+    </li>
+  );
+}
+
+function AmendmentForm({ project, placementId, onDone }: { project: ProjectRow; placementId: string; onDone: () => void }) {
+  const [what, setWhat] = useState("");
+  const [why, setWhy] = useState("");
+  const [error, setError] = useState<{ message: string; fields?: Record<string, string> } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const queryClient = useQueryClient();
+  const submit = async () => {
+    setBusy(true);
+    setError(null);
+    const res = await callApi(amendmentsUrl(project.id, placementId), { body: { id: crypto.randomUUID(), what: what.trim(), why: why.trim() } });
+    setBusy(false);
+    if (!res.ok) return setError(res.error);
+    await queryClient.invalidateQueries({ queryKey: ["sign-off", project.id, placementId] });
+    onDone();
+  };
+  const area = "min-h-24 w-full rounded-lg border border-ink-300 bg-white p-3 text-base";
+  return (
+    <form
+      className="mt-3 flex flex-col gap-3 rounded-lg border border-ink-200 bg-ink-50 p-3"
+      data-testid="amendment-form"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void submit();
+      }}
+    >
+      <label className="text-sm font-semibold text-ink-800">
+        What changes
+        <textarea className={area} value={what} onChange={(e) => setWhat(e.target.value)} data-testid="amendment-what-input" />
+        {error?.fields?.what ? <span className="text-danger-700">{error.fields.what}</span> : null}
+      </label>
+      <label className="text-sm font-semibold text-ink-800">
+        Why
+        <textarea className={area} value={why} onChange={(e) => setWhy(e.target.value)} data-testid="amendment-why-input" />
+        {error?.fields?.why ? <span className="text-danger-700">{error.fields.why}</span> : null}
+      </label>
+      {error && !error.fields ? <Notice tone="danger" title="Not added">{error.message}</Notice> : null}
+      <div className="flex gap-2">
+        <Button type="submit" disabled={busy || what.trim().length < 3 || why.trim().length < 3} data-testid="amendment-save">
+          Add the amendment
+        </Button>
+        <Button variant="secondary" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+/** Late edits this device made to records of the signed placement: kept by the server, not applied. */
+function LateEdits({ placement }: { placement: LocalRecord }) {
+  const db = useSyncDb();
+  const edits = useLiveQuery(async () => {
+    const children = await Promise.all(
+      (["deliveries", "field-tests", "specimen-sets", "weather-observations", "checklists", "curing-readings"] as const).map((t) => listByParent(db, t, "placementId", placement.id)),
+    );
+    const items = await Promise.all(children[4].map((c) => listByParent(db, "checklist-items", "checklistId", c.id)));
+    const ids = new Set([placement.id, ...children.flat().map((r) => r.id), ...items.flat().map((r) => r.id)]);
+    return db.conflicts.filter((c) => ids.has(c.recordId)).toArray();
+  }, [db, placement.id]);
+  if (!edits?.length) return null;
+  return (
+    <Notice tone="caution" title={`${edits.length} late ${edits.length === 1 ? "edit" : "edits"} kept, not applied`} className="mt-3" testId="late-edits">
+      Changes made on this device after the sign-off were refused and kept for the office. Add an amendment if they matter; see Conflicts for the values.
+    </Notice>
+  );
+}
+
+/** The signed placement's sign-off, verification and amendments. `project` is the member's own role. */
+export function SignedRecord({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+  const online = useOnline();
+  const verification = useVerification(project.id, placement.id, online);
+  const [adding, setAdding] = useState(false);
+  const data = verification.data;
+  const canAmend = mayWrite(project, "amendment.write");
+  return (
+    <Section
+      title="Signed record"
+      testId="signed-record"
+      actions={
+        <a href={`/projects/${project.id}/placements/${placement.id}/print`} className="no-print inline-flex min-h-touch items-center gap-2 rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="print-link">
+          <Printer className="h-5 w-5" aria-hidden="true" /> Print view
+        </a>
+      }
+    >
+      <p className="flex items-center gap-2 text-base text-ink-900" data-testid="signed-readonly">
+        <ShieldCheck className="h-5 w-5 text-lichen-700" aria-hidden="true" />
+        Signed {formatDateTime(placement.signedAt, project.timeZone)}. This record is read-only for everyone; changes are amendments shown beside it.
+      </p>
+      {!online ? (
+        <Notice tone="info" title="No connection" className="mt-3" testId="signed-offline">
+          <span className="inline-flex items-center gap-1">
+            <WifiOff className="h-4 w-4" aria-hidden="true" /> The signature, its verification and the amendments are read from the server; they show when you are online.
+          </span>
+        </Notice>
+      ) : verification.isPending ? (
+        <p className="mt-3 text-muted">Reading the signature from the server…</p>
+      ) : verification.isError ? (
+        <Notice tone="danger" title="Could not read the signature" className="mt-3">
+          {verification.error.message}
+        </Notice>
+      ) : data && data.signed ? (
+        <div className="mt-3 grid gap-4 lg:grid-cols-2">
+          <div data-testid="original-sign-off">
+            <h3 className="mb-2 text-lg font-bold">Original sign-off</h3>
+            <SignatureBlock signOff={data.signOff} timeZone={project.timeZone} testId="sign-off-block" />
+            <HashLine hash={data.signOff.contentHash} matches={data.matches} />
+          </div>
+          <div data-testid="amendments">
+            <h3 className="mb-2 flex items-center gap-2 text-lg font-bold">
+              Amendments <span className="text-sm font-normal text-muted">({data.amendments.length})</span>
+            </h3>
+            {data.amendments.length === 0 ? <p className="text-muted">None. The original stands as signed.</p> : null}
+            <ol className="flex flex-col gap-2">
+              {data.amendments.map((a) => (
+                <AmendmentCard key={a.id} amendment={a} project={project} placementId={placement.id} />
+              ))}
+            </ol>
+            {canAmend && !adding ? (
+              <Button variant="secondary" className="mt-3" data-testid="add-amendment" onClick={() => setAdding(true)}>
+                <FilePenLine className="h-5 w-5" aria-hidden="true" /> Add an amendment
+              </Button>
+            ) : null}
+            {adding ? <AmendmentForm project={project} placementId={placement.id} onDone={() => setAdding(false)} /> : null}
+          </div>
+        </div>
+      ) : (
+        <Notice tone="caution" title="No signature found on the server" className="mt-3">
+          <span className="inline-flex items-center gap-1">
+            <ShieldAlert className="h-4 w-4" aria-hidden="true" /> The placement is marked signed but the server holds no sign-off for it.
+          </span>
+        </Notice>
+      )}
+      <LateEdits placement={placement} />
+    </Section>
+  );
+}
