@@ -17,6 +17,7 @@ import { useSyncDb } from "@/lib/sync/client/react";
 import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
+import { AuditTrail } from "@/components/signoff/audit-trail";
 import { PlacementSignOff } from "@/components/signoff/placement-sign-off";
 import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
@@ -59,7 +60,7 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
         {describeAllowed(state)}
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
-        {allowed.filter((to) => to !== "held").map((to) => (
+        {allowed.filter((to) => to !== "held" && to !== "signed").map((to) => (
           <Button
             key={to}
             variant={to === "planned" ? "secondary" : "primary"}
@@ -183,6 +184,7 @@ export function PlacementScreen() {
       <FieldTests placement={placement} project={project} mix={mix ?? null} />
       <WeatherWatch placement={placement} project={project} mix={mix ?? null} />
       <CuringLog placement={placement} project={project} />
+      <AuditTrail projectId={placement.projectId} recordId={placement.id} timeZone={project.timeZone} />
     </div>
   );
 }
