@@ -1,0 +1,166 @@
+import { mkdirSync } from "node:fs";
+import { expect, test, type Browser, type Page } from "@playwright/test";
+import { TodayPage } from "./field-pages";
+import { InspectionPage } from "./inspection-pages";
+import { DEMO, DEMO_PASSWORD, signIn } from "./support";
+
+// Issue 7, the inspection flow with two people on two devices: the superintendent answers the
+// readiness check and marks the placement ready; the inspector holds it with a reason; the
+// superintendent sees the hold, fixes it and marks it ready again; the inspector clears it; it is
+// placed; the inspector signs with a drawn signature; the superintendent's screen shows the signed
+// record read-only with the signature, and an amendment beside it. Uses its own placement.
+
+const PHONE = { width: 390, height: 844 };
+const DESKTOP = { width: 1280, height: 800 };
+const PROJECT = "Millrace Pump House";
+
+async function person(browser: Browser, email: string, viewport: { width: number; height: number }): Promise<Page> {
+  const context = await browser.newContext({ viewport });
+  const page = await context.newPage();
+  await signIn(page, email);
+  const today = new TodayPage(page);
+  await today.open();
+  await expect(page.getByTestId("field-project-switcher")).toBeVisible({ timeout: 30_000 });
+  await today.waitAllSaved();
+  return page;
+}
+
+/** Both sizes of the same screen: phone and desktop. */
+async function bothSizes(p: InspectionPage, name: string, restore: { width: number; height: number }) {
+  await p.page.setViewportSize(PHONE);
+  await p.shoot(`${name}-phone`);
+  await p.page.setViewportSize(DESKTOP);
+  await p.shoot(`${name}-desktop`);
+  await p.page.setViewportSize(restore);
+}
+
+test("ready → hold → fix → ready → clear → placing → placed → signed, read-only with the signature and an amendment beside it", async ({ browser }) => {
+  test.setTimeout(420_000);
+  mkdirSync(".data/screenshots", { recursive: true });
+  const stamp = Date.now().toString(36).toUpperCase();
+  const element = `E2E pump pit slab ${stamp}`;
+  const holdReason = `Cover at the sump is 25 mm; drawings require 50 mm (${stamp})`;
+  const amendmentText = `Truck T-${stamp} arrived at 10:52, not 10:25`;
+
+  const samPage = await person(browser, DEMO.sam, PHONE);
+  const inesPage = await person(browser, DEMO.ines, DESKTOP);
+  const sam = new InspectionPage(samPage);
+  const ines = new InspectionPage(inesPage);
+
+  // Sam plans a placement and answers the readiness check.
+  const id = await new TodayPage(samPage).planPlacement({ project: PROJECT, element, least: "300", volume: "8", mixCode: "MPH-30" });
+  await sam.startReadiness();
+  await expect(sam.page.getByTestId("transition-ready")).toBeDisabled();
+  await expect(sam.page.getByTestId("ready-blocked")).toContainText("not answered");
+  await sam.answerAllYes();
+  // A "no" needs a note before the placement can be marked ready [readiness rules].
+  await sam.answer("cover", "no");
+  await expect(sam.page.getByTestId("transition-ready")).toBeDisabled();
+  await expect(sam.page.getByTestId("readiness-problems")).toContainText("Cover to reinforcement as specified");
+  await sam.answer("cover", "no", "Chairs at the sump being raised; re-measured before the pour");
+  await expect(sam.page.getByTestId("transition-ready")).toBeEnabled();
+  await bothSizes(sam, "readiness-superintendent", PHONE);
+  await sam.page.getByTestId("transition-ready").click();
+  await expect(sam.state()).toHaveText("Ready for review");
+  await sam.waitAllSaved();
+
+  // Ines sees it ready with the answers read-only, and holds it with a reason.
+  await ines.waitForState(id, "Ready for review");
+  await expect(ines.page.getByTestId("readiness-review-note")).toBeVisible();
+  await expect(ines.item("cover")).toContainText("Chairs at the sump being raised");
+  await expect(ines.item("cover").getByTestId("readiness-answer-yes")).toHaveCount(0);
+  await expect(ines.page.getByTestId("transition-placing")).toHaveCount(0);
+  await bothSizes(ines, "readiness-inspector", DESKTOP);
+  await ines.page.getByTestId("transition-held").click();
+  await ines.page.getByTestId("hold-reason").fill(holdReason);
+  await ines.page.getByRole("button", { name: "Hold the placement" }).click();
+  await expect(ines.state()).toHaveText("Held");
+  await ines.waitAllSaved();
+
+  // Sam sees the hold on the placement and on Today, and cannot start placing.
+  await sam.waitForState(id, "Held");
+  await expect(sam.page.getByTestId("hold-banner")).toContainText(holdReason);
+  await expect(sam.page.getByTestId("transition-placing")).toHaveCount(0);
+  await new TodayPage(samPage).open();
+  await expect(samPage.getByTestId("today-hold-banner")).toContainText(holdReason);
+  await expect(samPage.locator('[data-testid="field-placement-link"]', { hasText: element }).getByTestId("today-hold-reason")).toContainText(holdReason);
+  await sam.shoot("hold-today-phone");
+
+  // Sam fixes the cover and marks it ready again.
+  await sam.open(id);
+  await sam.answer("cover", "yes", "Re-chaired; 50 mm measured at the sump");
+  await sam.page.getByTestId("transition-ready").click();
+  await expect(sam.state()).toHaveText("Ready for review");
+  await expect(sam.page.getByTestId("hold-banner")).toHaveCount(0);
+  await sam.waitAllSaved();
+
+  // Ines clears it.
+  await ines.waitForState(id, "Ready for review");
+  await ines.page.getByTestId("transition-cleared").click();
+  await expect(ines.state()).toHaveText("Cleared to place");
+  await ines.waitAllSaved();
+
+  // Sam places it: a truck arrives, placing, placed.
+  await sam.waitForState(id, "Cleared to place");
+  await sam.page.getByTestId("transition-placing").click();
+  await expect(sam.state()).toHaveText("Placing");
+  await sam.addTruck({ ticket: `T-${stamp}`, volume: "8" });
+  await sam.page.getByTestId("transition-placed").click();
+  await expect(sam.state()).toHaveText("Placed");
+  await sam.waitAllSaved();
+
+  // Ines signs: the summary, a wrong password first (401, nothing signed), then the real one.
+  await ines.waitForState(id, "Placed");
+  await ines.page.getByTestId("open-sign-off").click();
+  const dialog = ines.page.getByTestId("sign-off-dialog");
+  await expect(dialog).toBeVisible();
+  await expect(dialog.getByTestId("sign-summary-trucks")).toContainText("1 truck");
+  await expect(dialog.getByTestId("sign-summary-open")).toContainText("none on this device");
+  await expect(dialog.getByTestId("sign-off-submit")).toBeDisabled();
+  await dialog.getByTestId("sign-off-password").fill("not-my-password");
+  await dialog.getByTestId("sign-off-name").fill("Ines Marchetti");
+  await ines.drawSignature();
+  await bothSizes(ines, "sign-off-dialog", DESKTOP);
+  await dialog.getByTestId("sign-off-submit").click();
+  await expect(dialog.getByTestId("sign-off-error")).toContainText("That password is not right. Nothing was signed.");
+  await expect(dialog.getByTestId("sign-off-pad")).toHaveAttribute("data-empty", "no");
+  await dialog.getByTestId("sign-off-password").fill(DEMO_PASSWORD);
+  await dialog.getByTestId("sign-off-submit").click();
+  await expect(ines.page.getByTestId("sign-off-dialog")).toHaveCount(0);
+  await expect(ines.page.getByTestId("signed-just-now")).toBeVisible();
+
+  // Ines's device pulls the signed state; the record verifies; she adds an amendment.
+  await ines.waitForState(id, "Signed");
+  const signed = ines.page.getByTestId("signed-record");
+  await expect(signed.getByTestId("signature-image")).toBeVisible();
+  await expect(signed.getByTestId("verify-result")).toContainText("Verified");
+  await expect(signed.getByTestId("content-hash")).toHaveText(/^[0-9a-f]{64}$/);
+  await signed.getByTestId("add-amendment").click();
+  await signed.getByTestId("amendment-what-input").fill(amendmentText);
+  await signed.getByTestId("amendment-why-input").fill("Digits swapped when typed; the plant's ticket stamp reads 10:52");
+  await signed.getByTestId("amendment-save").click();
+  await expect(signed.getByTestId("amendment-what")).toHaveText(amendmentText);
+
+  // Sam's screen: signed, read-only for him, the signature, and the amendment beside it.
+  await sam.waitForState(id, "Signed");
+  const samSigned = sam.page.getByTestId("signed-record");
+  await expect(samSigned.getByTestId("signature-image")).toBeVisible();
+  await expect(samSigned.getByTestId("signer-name")).toContainText("Ines Marchetti");
+  await expect(samSigned.getByTestId("signer-role")).toHaveText("Inspector");
+  await expect(samSigned.getByTestId("amendment-what")).toHaveText(amendmentText);
+  await expect(samSigned.getByTestId("add-amendment")).toHaveCount(0);
+  for (const control of ["add-delivery", "add-field-test", "add-weather", "transition-ready", "transition-planned", "start-readiness", "readiness-answer-yes", "edit-delivery"]) {
+    await expect(sam.page.getByTestId(control), control).toHaveCount(0);
+  }
+  await bothSizes(sam, "signed-superintendent", PHONE);
+
+  // The audit trail and the printable record.
+  await sam.page.getByTestId("audit-trail").locator("summary").click();
+  await expect(sam.page.getByTestId("audit-entry").filter({ hasText: "placed → signed" })).toHaveCount(1);
+  await expect(sam.page.getByTestId("audit-entry").filter({ hasText: holdReason })).toHaveCount(1);
+  await ines.page.getByTestId("print-link").click();
+  await expect(ines.page.getByTestId("print-sign-off")).toContainText("Ines Marchetti");
+  await expect(ines.page.getByTestId("print-verify")).toContainText("matches what was signed");
+  await expect(ines.page.getByTestId("print-amendments")).toContainText(amendmentText);
+  await ines.shoot("print-desktop");
+});
