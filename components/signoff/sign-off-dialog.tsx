@@ -89,6 +89,8 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
 
   useEffect(() => {
     firstField.current?.focus();
+  }, []);
+  useEffect(() => {
     const onKey = (e: KeyboardEvent) => e.key === "Escape" && !busy && onClose();
     window.addEventListener("keydown", onKey);
     return () => window.removeEventListener("keydown", onKey);
@@ -137,12 +139,13 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
           </Button>
         </div>
         <form
-          className="flex flex-col gap-4 overflow-y-auto px-4 py-4"
+          className="flex min-h-0 flex-1 flex-col"
           onSubmit={(e) => {
             e.preventDefault();
             void submit();
           }}
         >
+          <div className="flex min-h-0 flex-1 flex-col gap-4 overflow-y-auto px-4 py-4">
           <div className="rounded-lg border border-ink-200 bg-ink-50 p-3">
             <p className="mb-1 text-sm font-bold uppercase tracking-wide text-ink-700">What you sign</p>
             {summary}
@@ -209,7 +212,8 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
               {error.message}
             </Notice>
           ) : null}
-          <div className="sticky bottom-0 -mx-4 -mb-4 flex gap-2 border-t border-ink-200 bg-white px-4 py-3">
+          </div>
+          <div className="flex shrink-0 gap-2 border-t border-ink-200 bg-white px-4 py-3">
             <Button type="submit" block disabled={busy || !!cannot || !password || typedName.trim().length < 2 || empty} data-testid="sign-off-submit">
               {busy ? "Signing…" : "Sign"}
             </Button>

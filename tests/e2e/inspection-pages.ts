@@ -30,7 +30,8 @@ export class InspectionPage extends PlacementPage {
 
   async answer(key: string, answer: "yes" | "no" | "na", note?: string) {
     const row = this.item(key);
-    await row.getByTestId(`readiness-answer-${answer}`).click();
+    // A second tap on the chosen answer clears it, so tap only when it changes.
+    if ((await row.getAttribute("data-answer")) !== answer) await row.getByTestId(`readiness-answer-${answer}`).click();
     await expect(row).toHaveAttribute("data-answer", answer);
     if (note !== undefined) {
       await row.getByTestId("readiness-note").fill(note);
@@ -47,7 +48,7 @@ export class InspectionPage extends PlacementPage {
   /** Draws a signature with the mouse: three strokes across the pad. */
   async drawSignature() {
     const pad = this.page.getByTestId("sign-off-pad");
-    await pad.scrollIntoViewIfNeeded();
+    await pad.evaluate((el) => el.scrollIntoView({ block: "center" }));
     const box = (await pad.boundingBox())!;
     const strokes: [number, number][][] = [
       [[0.1, 0.7], [0.2, 0.3], [0.3, 0.75], [0.4, 0.35], [0.5, 0.7]],
