@@ -70,7 +70,7 @@ export type PhotoBadge = { state: "local" | "uploading" | "stored" | "failed" | 
  * this device's blob, if any.
  */
 export function photoBadge(
-  record: { storedAt?: unknown },
+  record: Record<string, unknown>,
   blob: Pick<UploadFields, "uploadState" | "lastError"> | undefined,
   progress?: number,
 ): PhotoBadge {
