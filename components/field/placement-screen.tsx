@@ -5,6 +5,7 @@ import { ArrowLeft } from "lucide-react";
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useState } from "react";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -160,6 +161,7 @@ export function PlacementScreen() {
           </Notice>
         ) : null}
         <Transitions placement={placement} project={project} />
+        <RecordPhotos projectId={project.id} recordType="placements" recordId={placement.id} canAdd={canAddPhotos(project, placement)} />
       </Section>
 
       <Deliveries placement={placement} project={project} mix={mix ?? null} />
