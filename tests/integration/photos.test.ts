@@ -71,6 +71,8 @@ describe("photo upload through the AWS SDK against the local S3 fake", () => {
     const [row] = await db.select().from(photos).where(eq(photos.id, photoId));
     expect(row.storedAt).not.toBeNull();
     const view = await callRoute(viewRoute, { user: s.team.owner, params });
+    // A short-lived link: SigV4 query presigning carries its lifetime in X-Amz-Expires (AWS SigV4 docs).
+    expect(Number(new URL(view.json.url).searchParams.get("X-Amz-Expires"))).toBeLessThanOrEqual(15 * 60);
     const got = await fetch(view.json.url);
     expect(Buffer.from(await got.arrayBuffer()).equals(file.bytes)).toBe(true);
   });
@@ -110,6 +112,7 @@ describe("photo upload through the AWS SDK against the local S3 fake", () => {
     expect((await callRoute(requestRoute, { user: s.outsider, params, body: meta(file) })).status).toBe(403);
     expect((await callRoute(requestRoute, { user: s.team.owner, params, body: meta(file) })).status).toBe(403);
     expect((await callRoute(completeRoute, { user: s.outsider, params })).status).toBe(403);
+    expect((await callRoute(viewRoute, { user: s.outsider, params })).status).toBe(403);
   });
 
   it("completing before the bytes arrived says so", async () => {

@@ -11,7 +11,7 @@ import { isDue, nextUpload, recoverStale, type UploadEvent } from "./upload-stat
 
 export type PutFn = (url: string, headers: Record<string, string>, body: Blob, onProgress: (fraction: number) => void) => Promise<{ status: number }>;
 
-type DriverLike = { getStatus: () => DriverStatus; subscribe: (listener: () => void) => () => void };
+type DriverLike = { getStatus: () => DriverStatus; subscribe: (listener: () => void) => () => void; requestSync: () => void };
 
 export type UploaderOptions = {
   db: SyncDb;
@@ -85,6 +85,7 @@ export class PhotoUploader {
   private timer: unknown = null;
   private cleanup: (() => void)[] = [];
   private active = false;
+  private requestSync: (() => void) | null = null;
 
   constructor(options: UploaderOptions) {
     this.db = options.db;
@@ -118,6 +119,8 @@ export class PhotoUploader {
 
   attach(driver: DriverLike): () => void {
     let wasSyncing = driver.getStatus().syncing;
+    // A photo just stored: sync soon, so the pull brings storedAt (and the bytes here can go).
+    this.requestSync = () => driver.requestSync();
     const check = () => {
       const status = driver.getStatus();
       this.active = status.leader;
@@ -136,6 +139,7 @@ export class PhotoUploader {
     if (this.timer !== null) this.clearTimer(this.timer);
     this.timer = null;
     this.active = false;
+    this.requestSync = null;
   }
 
   /** Rows left "uploading" by a closed tab go back to the queue. */
@@ -150,7 +154,10 @@ export class PhotoUploader {
     if (this.timer !== null) this.clearTimer(this.timer);
     this.timer = this.setTimer(() => {
       this.timer = null;
-      void this.runOnce().then(() => this.scheduleRetry());
+      void this.runOnce().then((result) => {
+        if (result.stored > 0) this.requestSync?.();
+        return this.scheduleRetry();
+      });
     }, delayMs);
   }
 

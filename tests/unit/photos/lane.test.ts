@@ -4,6 +4,7 @@ import { savePhoto, sha256Hex, type PreparedPhoto } from "@/lib/photos/client/ca
 import { countPhotoUploads, PhotoUploader, type PutFn } from "@/lib/photos/client/uploader";
 import { createLocal } from "@/lib/sync/client/mutate";
 import type { SyncDb } from "@/lib/sync/client/db";
+import type { DriverStatus } from "@/lib/sync/client/driver";
 import type { FetchLike } from "@/lib/sync/client/push";
 import { cleanupDbs, freshDb, placementValues, project, PROJECT_ID } from "../sync/helpers";
 
@@ -144,5 +145,45 @@ describe("upload lane", () => {
     await uploader.runOnce();
     expect(await db.blobs.get(id)).toMatchObject({ uploadState: "failed", lastError: expect.stringMatching(/No connection/), nextAttemptAt: 1_000 });
     expect((await db.blobs.get(id))?.data).not.toBeNull();
+  });
+});
+
+describe("uploader beside the sync driver", () => {
+  /** A driver stand-in: status, listeners and a count of requested syncs. */
+  function fakeDriver() {
+    let status = { leader: true, syncing: true, online: true } as unknown as DriverStatus;
+    const listeners = new Set<() => void>();
+    const requestSync = vi.fn();
+    return {
+      requestSync,
+      getStatus: () => status,
+      subscribe: (listener: () => void) => {
+        listeners.add(listener);
+        return () => listeners.delete(listener);
+      },
+      finishCycle() {
+        status = { ...status, syncing: false };
+        for (const listener of listeners) listener();
+      },
+    };
+  }
+
+  it("uploads after a sync cycle ends and then asks for a sync, so the pull brings storedAt", async () => {
+    const db = await freshDb();
+    const placementId = await withPlacement(db);
+    const { id } = await savePhoto(db, { projectId: PROJECT_ID, recordType: "placements", recordId: placementId }, await prepared());
+    const row = await db.records("photos").get(id);
+    await db.records("photos").put({ ...row!, serverCopy: { ...row!, version: 1 } as never });
+    const lane = fakeLane();
+    const timers: (() => void)[] = [];
+    const uploader = new PhotoUploader({ db, fetch: lane.fetch, put: lane.put, now: () => 0, random: () => 0, setTimeout: (fn) => timers.push(fn), clearTimeout: () => {} });
+    const driver = fakeDriver();
+    const detach = uploader.attach(driver);
+    driver.finishCycle();
+    expect(timers.length).toBeGreaterThan(0);
+    timers.splice(0).forEach((fn) => fn());
+    await vi.waitFor(() => expect(driver.requestSync).toHaveBeenCalledTimes(1));
+    expect((await db.blobs.get(id))?.uploadState).toBe("stored");
+    detach();
   });
 });
