@@ -5,6 +5,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { Plus, Thermometer } from "lucide-react";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -117,6 +118,9 @@ export function CuringLog({ placement, project }: { placement: LocalRecord; proj
                 {formatDateTime(r.readAt, project.timeZone)} · {str(r.method)}
                 {r.location ? ` · ${str(r.location)}` : ""}
               </span>
+              <div className="basis-full">
+                <RecordPhotos projectId={project.id} recordType="curing-readings" recordId={r.id} canAdd={canAddPhotos(project, placement)} />
+              </div>
             </li>
           );
         })}

@@ -5,6 +5,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { Pencil, Plus, Truck } from "lucide-react";
 import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { checkDischarge, checkWaterAddition, formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete";
@@ -342,6 +343,7 @@ export function Deliveries({ placement, project, mix }: { placement: LocalRecord
               <div className="mt-2">
                 <CheckLines checks={checks} units={units} />
               </div>
+              <RecordPhotos projectId={project.id} recordType="deliveries" recordId={d.id} canAdd={canAddPhotos(project, placement)} title="Truck photos" />
               {editing === d.id ? <DeliveryForm placement={placement} project={project} mix={mix} existing={d} onDone={() => setEditing(null)} /> : null}
             </li>
           );

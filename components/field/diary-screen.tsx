@@ -6,6 +6,8 @@ import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
+import { DayPhotos } from "@/components/photos/day-photos";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -214,6 +216,12 @@ export function DiaryScreen() {
       <EntryForm key={`${project.id}-${date}-${entry?.id ?? "new"}`} project={project} date={date} entry={entry} weatherHint={weatherHint ?? ""} canWrite={canWrite} />
       {!canWrite ? <p className="text-muted">The superintendent keeps the diary; you can read it here.</p> : null}
       {entry ? LINES.map((spec) => <Lines key={spec.type} spec={spec} entry={entry} canWrite={canWrite} />) : <p className="text-muted">Start the diary to add crew, equipment, delays and visitors.</p>}
+      {entry ? (
+        <div className="card px-4 pb-3">
+          <RecordPhotos projectId={project.id} recordType="diary-entries" recordId={entry.id} canAdd={canAddPhotos(project)} title="Diary photos" />
+        </div>
+      ) : null}
+      <DayPhotos projectId={project.id} date={date} timeZone={project.timeZone} canEdit={canAddPhotos(project)} />
     </div>
   );
 }

@@ -5,6 +5,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { FlaskConical, Plus } from "lucide-react";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -237,6 +238,7 @@ export function FieldTests({ placement, project, mix }: { placement: LocalRecord
                   specification governs.
                 </Notice>
               ) : null}
+              <RecordPhotos projectId={project.id} recordType="field-tests" recordId={t.id} canAdd={canAddPhotos(project, placement)} title="Test photos" />
             </li>
           );
         })}

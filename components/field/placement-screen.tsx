@@ -5,6 +5,7 @@ import { ArrowLeft } from "lucide-react";
 import Link from "next/link";
 import { useSearchParams } from "next/navigation";
 import { useState } from "react";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -175,6 +176,7 @@ export function PlacementScreen() {
           <dd className="font-semibold">{formatDateTime(placement.plannedStart, project.timeZone)}</dd>
         </dl>
         <Transitions placement={placement} project={project} readyBlockedBy={readiness?.verdict.problems} />
+        <RecordPhotos projectId={project.id} recordType="placements" recordId={placement.id} canAdd={canAddPhotos(project, placement)} />
       </Section>
 
       <PlacementSignOff placement={placement} project={memberProject ?? project} mix={mix ?? null} />

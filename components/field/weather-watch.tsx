@@ -7,6 +7,7 @@ import { CircleCheck, ClipboardCheck, CloudSun, OctagonAlert, Plus, TriangleAler
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { CartesianGrid, Line, LineChart, ReferenceLine, XAxis, YAxis } from "recharts";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -224,6 +225,7 @@ function Checklist({ checklist, canWrite }: { checklist: LocalRecord; canWrite: 
               onBlur={(e) => e.target.value !== str(item.note) && void answer(item, { note: e.target.value || null })}
               className="mt-2 min-h-touch w-full rounded-lg border border-ink-300 px-3"
             />
+            <RecordPhotos projectId={checklist.projectId} recordType="checklist-items" recordId={item.id} canAdd={canWrite} />
           </li>
         ))}
       </ul>
@@ -304,6 +306,7 @@ export function WeatherWatch({ placement, project, mix }: { placement: LocalReco
                 <RiskBadge risk={evap.risk} testId="weather-risk" />
               </p>
             ) : null}
+            <RecordPhotos projectId={project.id} recordType="weather-observations" recordId={o.id} canAdd={canAddPhotos(project, placement)} />
           </li>
         ))}
       </ul>

@@ -13,7 +13,9 @@ type Look = { label: string; detail?: string; icon: typeof Wifi; tone: "plain" |
 
 /** What the control says, in words (the icon and colour only repeat it). */
 export function syncLook(state: SyncState, now: number): Look {
-  const waiting = state.waiting > 0 ? plural(state.waiting, "change") + " waiting" : undefined;
+  const changes = state.waiting > 0 ? plural(state.waiting, "change") + " waiting" : undefined;
+  const photos = state.photosWaiting > 0 ? plural(state.photosWaiting, "photo") + " to upload" : undefined;
+  const waiting = changes && photos ? `${changes}, ${photos}` : (changes ?? photos);
   if (!state.online) return { label: "Offline", detail: waiting ?? "All saved on this device", icon: WifiOff, tone: "caution" };
   // Until the counts are read, claim nothing about saved changes.
   if (state.loading) return { label: "Online", icon: Wifi, tone: "plain" };
@@ -23,6 +25,11 @@ export function syncLook(state: SyncState, now: number): Look {
     return { label: `${state.waiting} waiting`, detail: "Sync problem: tap for details", icon: TriangleAlert, tone: "caution" };
   }
   if (state.waiting > 0) return { label: `${state.waiting} waiting`, detail: waiting, icon: CloudUpload, tone: "plain" };
+  // The records are saved; photos still travel in their own lane.
+  if (state.photosFailed > 0) {
+    return { label: plural(state.photosWaiting, "photo") + " waiting", detail: "Photo upload problem: tap for details", icon: TriangleAlert, tone: "caution" };
+  }
+  if (state.photosWaiting > 0) return { label: plural(state.photosWaiting, "photo") + " uploading", detail: photos, icon: CloudUpload, tone: "plain" };
   if (state.lastError) {
     return { label: "All saved", detail: "Could not fetch the latest records: tap for details", icon: TriangleAlert, tone: "caution" };
   }
@@ -103,9 +110,9 @@ export function SyncStatus() {
         <span className="sr-only sm:hidden">{look.label}</span>
         {look.detail ? <span className="sr-only">. {look.detail}</span> : null}
         {/* On a phone the count stays visible beside the icon. */}
-        {state.waiting > 0 ? (
+        {state.waiting + state.photosWaiting > 0 ? (
           <span aria-hidden="true" className="sm:hidden">
-            {state.waiting}
+            {state.waiting + state.photosWaiting}
           </span>
         ) : null}
       </button>

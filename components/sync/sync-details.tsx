@@ -4,7 +4,8 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { CircleAlert, GitMerge, HardDrive, LogIn, RefreshCw, X } from "lucide-react";
 import Link from "next/link";
 import { listConflicts, listOutbox, dismissRejection } from "@/lib/sync/client/queries";
-import { useOptionalSyncDb, useRequestSync, type SyncState } from "@/lib/sync/client/react";
+import { useOptionalSyncDb, usePhotoProgress, useRequestSync, type SyncState } from "@/lib/sync/client/react";
+import { photoBadge } from "@/lib/photos/client/upload-state";
 import { describeConflict, describeEntry, describeSince, plural } from "@/lib/sync/client/words";
 import { useNow } from "./use-now";
 
@@ -22,6 +23,8 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
   const now = useNow();
   const outbox = useLiveQuery(() => (db ? listOutbox(db) : []), [db]) ?? [];
   const rejected = useLiveQuery(() => (db ? listConflicts(db, "rejected") : []), [db]) ?? [];
+  const photoRows = useLiveQuery(() => (db ? db.blobs.where("uploadState").notEqual("stored").toArray() : []), [db]) ?? [];
+  const progress = usePhotoProgress();
 
   return (
     <div
@@ -137,6 +140,28 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
           </ul>
         ) : null}
       </section>
+
+      {photoRows.length > 0 ? (
+        <section className="mt-3">
+          <h3 className="text-sm font-bold">Photos to upload ({photoRows.length})</h3>
+          <p className="text-xs text-muted">Photos travel apart from the changes; the records are not held up by them.</p>
+          <ul className="mt-1 space-y-1" data-testid="sync-photo-list">
+            {photoRows.slice(0, SHOWN).map((row) => {
+              const badge = photoBadge({ storedAt: null }, row, progress.get(row.id));
+              return (
+                <li key={row.id} className="rounded-md bg-ink-50 p-2 text-sm">
+                  <span className="font-semibold">{badge.label}</span>
+                  <span className="block text-xs text-muted">
+                    {Math.max(1, Math.round(row.size / 1024))} kB{now ? ` · taken ${describeSince(row.createdAt, now)}` : ""}
+                    {row.attempts > 0 ? ` · ${plural(row.attempts, "attempt")}` : ""}
+                  </span>
+                  {row.uploadState === "failed" && row.lastError ? <span className="block text-xs">{row.lastError}</span> : null}
+                </li>
+              );
+            })}
+          </ul>
+        </section>
+      ) : null}
 
       <button
         type="button"

@@ -12,21 +12,23 @@ import { conflict, invalidInput, notFound } from "@/lib/errors";
 import { authorizeAny } from "@/lib/records/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
-import { getRecord } from "@/lib/records/read";
-import { inTransaction } from "@/lib/records/write";
-import { photoKey, photoProblem, PHOTO_TYPES, type PhotoType } from "./rules";
+import { getRecordDef } from "@/lib/records/registry";
+import { createRecord, inTransaction } from "@/lib/records/write";
+import { photoFields } from "@/lib/records/schemas/photo";
+import { ATTACHABLE, photoKey, photoProblem, photoProblemField, type PhotoType } from "./rules";
 import { headObject, presignGet, presignPut, readObject } from "./storage";
 
-export const ATTACHABLE = ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries"] as const;
+export { ATTACHABLE };
 
+/** The body of a registration (POST …/photos/<id>): the metadata the device also syncs (lib/records/schemas/photo.ts). */
 export const photoUploadSchema = z.object({
-  recordType: z.enum(ATTACHABLE, { error: "Photos attach to a placement, delivery, test, observation, checklist item, curing reading or diary." }),
+  recordType: photoFields.recordType,
   recordId: z.uuid("Choose the record the photo belongs to."),
   caption: z.string().trim().max(500, "Keep the caption under 500 characters.").default(""),
-  takenAt: z.iso.datetime({ offset: true, error: "The time the photo was taken is not a valid date." }).optional(),
-  contentType: z.string({ error: "Say what kind of image this is." }),
-  sizeBytes: z.number({ error: "Send the photo's size in bytes." }).int("The size is a whole number of bytes."),
-  sha256: z.string().regex(/^[0-9a-f]{64}$/, "Send the photo's SHA-256 as 64 hex digits."),
+  takenAt: z.iso.datetime({ offset: true, error: "The time the photo was taken is not a valid date." }).nullable().optional(),
+  contentType: photoFields.contentType,
+  sizeBytes: photoFields.sizeBytes,
+  sha256: photoFields.sha256,
 });
 export type PhotoUploadInput = z.input<typeof photoUploadSchema>;
 
@@ -43,42 +45,26 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
   assertUuid(photoId, "Photo");
   const body = parseOrThrow(photoUploadSchema, input);
   const problem = photoProblem(body.contentType, body.sizeBytes);
-  if (problem) throw invalidInput(problem, { [body.sizeBytes > 0 && (PHOTO_TYPES as readonly string[]).includes(body.contentType) ? "sizeBytes" : "contentType"]: problem });
+  if (problem) throw invalidInput(problem, { [photoProblemField(body.contentType)]: problem });
   const contentType = body.contentType as PhotoType;
-  const key = photoKey(projectId, photoId, contentType);
 
-  const row = await inTransaction({ user }, undefined, async (tx) => {
+  // Usually the photo arrived through sync already (its metadata mutation); otherwise this creates
+  // it through the one write path of records, with the same checks (role, record, signed freeze).
+  const row = await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
     await authorizeAny(tx, user, projectId, ["photo.add"]);
-    await getRecord({ user, tx }, body.recordType, projectId, body.recordId); // 404 for another project's record
     const [existing] = await tx.select().from(photos).where(eq(photos.id, photoId)).for("update");
     if (existing) {
       if (existing.projectId !== projectId || existing.sha256 !== body.sha256) {
         throw conflict("A different photo was already registered with this id.", { reason: "hash" });
       }
+      if (existing.deletedAt) throw conflict("This photo was deleted.", { reason: "deleted" });
       return existing;
     }
-    const [created] = await tx
-      .insert(photos)
-      .values({
-        id: photoId,
-        projectId,
-        version: 1,
-        changeSeq: await nextChangeSeq(tx, projectId),
-        updatedBy: user.id,
-        recordType: body.recordType,
-        recordId: body.recordId,
-        caption: body.caption,
-        takenAt: body.takenAt ? new Date(body.takenAt) : null,
-        sha256: body.sha256,
-        sizeBytes: body.sizeBytes,
-        contentType,
-        storageKey: key,
-      })
-      .returning();
-    await writeAudit(tx, { projectId, userId: user.id, recordType: "photo", recordId: photoId, action: "create", after: created });
-    return created;
+    const { record } = await createRecord({ user, tx }, "photos", projectId, { ...body, id: photoId });
+    return record as unknown as PhotoRow;
   });
   if (row.storedAt) return { stored: true as const, photoId };
+  const key = row.storageKey ?? photoKey(projectId, photoId, contentType);
   return { stored: false as const, photoId, key, uploadUrl: await presignPut(key, contentType, body.sizeBytes), headers: { "content-type": contentType } };
 }
 
@@ -88,16 +74,16 @@ export async function completePhotoUpload(user: SessionUser, projectId: string, 
   assertUuid(photoId, "Photo");
   await authorizeAny(db, user, projectId, ["photo.add"]);
   const photo = await findPhoto(projectId, photoId);
-  if (!photo) throw notFound("Photo");
+  if (!photo || photo.deletedAt) throw notFound("Photo");
   if (photo.storedAt) return { stored: true, photoId };
-  const key = photo.storageKey!;
+  const key = photo.storageKey ?? photoKey(projectId, photoId, photo.contentType as PhotoType);
   const head = await headObject(key);
   if (!head) throw conflict("The photo's bytes have not arrived yet. Upload them, then try again.", { reason: "missing" });
   if (head.size !== photo.sizeBytes) throw conflict(`The stored file is ${head.size} bytes, not the ${photo.sizeBytes} declared.`, { reason: "size" });
   if (head.contentType !== photo.contentType) throw conflict(`The stored file is ${head.contentType}, not ${photo.contentType}.`, { reason: "type" });
   const digest = createHash("sha256").update(await readObject(key)).digest("hex");
   if (digest !== photo.sha256) throw conflict("The stored file does not match the photo's fingerprint (SHA-256). Upload it again.", { reason: "hash" });
-  await inTransaction({ user }, undefined, async (tx) => {
+  await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
     const changeSeq = await nextChangeSeq(tx, projectId);
     const [after] = await tx
       .update(photos)
@@ -115,7 +101,7 @@ export async function photoViewUrl(user: SessionUser, projectId: string, photoId
   assertUuid(photoId, "Photo");
   await authorizeAny(db, user, projectId, ["project.read"]);
   const photo = await findPhoto(projectId, photoId);
-  if (!photo) throw notFound("Photo");
+  if (!photo || photo.deletedAt) throw notFound("Photo");
   if (!photo.storedAt) return { stored: false as const };
   return { stored: true as const, url: await presignGet(photo.storageKey!) };
 }

@@ -1,6 +1,7 @@
 // Postgres errors a write can meet, turned into the app's error vocabulary (lib/errors).
 import { DrizzleQueryError } from "drizzle-orm";
 import { AppError, conflict } from "@/lib/errors";
+import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import type { RecordDef } from "./registry";
 
 /** SQLSTATE raised by the signed-records trigger (drizzle/0002_signed-records-frozen.sql). */
@@ -21,7 +22,7 @@ export function mapDbError(error: unknown, def?: RecordDef): unknown {
   if (error instanceof AppError) return error;
   const pg = pgError(error);
   if (!pg) return error;
-  if (pg.code === SIGNED_SQLSTATE) return signedConflict();
+  if (pg.code === SIGNED_SQLSTATE) return def?.frozenBy === "record" ? conflict(PHOTO_SIGNED_MESSAGE, { reason: "signed" }) : signedConflict();
   if (pg.code === "23505") {
     if (def?.unique && pg.constraint === def.unique.index) {
       return new AppError("conflict", def.unique.message, { [def.unique.field]: def.unique.message }, { reason: "duplicate" });

@@ -1,8 +1,9 @@
 // Checks shared by the write functions: ids in the URL, links to other records, the signed freeze.
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "@/db";
-import { checklists, placements } from "@/db/schema";
-import { invalidInput, notFound } from "@/lib/errors";
+import { amendments, checklists, placements } from "@/db/schema";
+import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
+import { conflict, invalidInput, notFound } from "@/lib/errors";
 import { signedConflict } from "./db-errors";
 import { getRecordDef, type RecordDef } from "./registry";
 import type { RecordRow } from "./types";
@@ -60,6 +61,37 @@ export async function checkLinks(
       throw invalidInput(message, { [link.field]: message });
     }
   }
+  if (def.target) await checkTarget(tx, def, projectId, values);
+}
+
+/** A typed link (a photo's record): the record exists in the project and is not deleted. */
+async function checkTarget(tx: Executor, def: RecordDef, projectId: string, values: Record<string, unknown>) {
+  const { typeField, idField } = def.target!;
+  const type = values[typeField];
+  const id = values[idField];
+  if (typeof type !== "string" || typeof id !== "string") return;
+  if (type === "amendments") {
+    const [row] = await tx
+      .select({ id: amendments.id, deletedAt: amendments.deletedAt })
+      .from(amendments)
+      .where(and(eq(amendments.id, id), eq(amendments.projectId, projectId)));
+    if (!row || row.deletedAt) {
+      const message = "There is no amendment with this id on this project";
+      throw invalidInput(message, { [idField]: message });
+    }
+    return;
+  }
+  const target = getRecordDef(type);
+  const [row] = await tx
+    .select()
+    .from(target.table)
+    .where(and(eq(target.table.id, id), eq(target.table.projectId, projectId)))
+    .for("share");
+  const name = target.label.toLowerCase();
+  if (!row || (row as RecordRow).deletedAt) {
+    const message = row ? `That ${name} was deleted` : `There is no ${name} with this id on this project`;
+    throw invalidInput(message, { [idField]: message });
+  }
 }
 
 /** The placement whose sign-off freezes this record, if any. */
@@ -76,6 +108,15 @@ async function freezingPlacementId(tx: Executor, def: RecordDef, row: Record<str
         .where(eq(checklists.id, row.checklistId as string));
       return checklist?.placementId ?? null;
     }
+    case "record": {
+      // A photo: frozen with the record it shows (an amendment is never frozen).
+      const { typeField, idField } = def.target!;
+      const type = row[typeField];
+      if (typeof type !== "string" || type === "amendments" || typeof row[idField] !== "string") return null;
+      const target = getRecordDef(type);
+      const [targetRow] = await tx.select().from(target.table).where(eq(target.table.id, row[idField] as string));
+      return targetRow ? freezingPlacementId(tx, target, targetRow as Record<string, unknown>) : null;
+    }
     default:
       return null;
   }
@@ -88,6 +129,13 @@ async function freezingPlacementId(tx: Executor, def: RecordDef, row: Record<str
  */
 export async function assertNotSigned(tx: Executor, def: RecordDef, row: Record<string, unknown>): Promise<void> {
   if (def.frozenBy === "self" && row.state === "signed") throw signedConflict();
+  if (def.frozenBy === "record") {
+    const placementId = await freezingPlacementId(tx, def, row);
+    if (!placementId) return;
+    const [placement] = await tx.select({ state: placements.state }).from(placements).where(eq(placements.id, placementId)).for("share");
+    if (placement?.state === "signed") throw conflict(PHOTO_SIGNED_MESSAGE, { reason: "signed" });
+    return;
+  }
   const placementId = await freezingPlacementId(tx, def, row);
   if (!placementId) return;
   const [placement] = await tx

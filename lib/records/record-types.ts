@@ -16,5 +16,6 @@ export const RECORD_TYPES = [
   "diary-equipment",
   "diary-delays",
   "diary-visitors",
+  "photos",
 ] as const;
 export type RecordType = (typeof RECORD_TYPES)[number];

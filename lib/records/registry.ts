@@ -6,7 +6,7 @@ import type { AnyPgColumn, PgTable } from "drizzle-orm/pg-core";
 import * as t from "@/db/schema";
 import type { Action } from "@/lib/auth/can";
 import { notFound } from "@/lib/errors";
-import { computeBreak, computeWeather, type ComputeContext } from "./compute";
+import { computeBreak, computePhoto, computeWeather, type ComputeContext } from "./compute";
 import * as s from "./schemas";
 
 export { RECORD_TYPES, type RecordType } from "./record-types";
@@ -45,7 +45,12 @@ export type RecordDef = {
   /** Other records it may point at (same project). */
   refs?: Link[];
   /** How to find the placement whose signature freezes this record. */
-  frozenBy: "self" | "placementId" | "checklist" | null;
+  frozenBy: "self" | "placementId" | "checklist" | "record" | null;
+  /**
+   * A link whose type is itself a field (photos: recordType + recordId): the target must exist in
+   * the same project and not be deleted; deleting the target tombstones this record too.
+   */
+  target?: { typeField: string; idField: string };
   /** The main date: list filters (from, to) and order. */
   dateField: string;
   dateKind: "instant" | "date";
@@ -278,6 +283,21 @@ const DEFS: Record<RecordType, RecordDef> = {
     dateKind: "instant",
     mergeable: [],
   },
+  photos: {
+    type: "photos",
+    label: "Photo",
+    table: t.photos,
+    create: s.photoCreateSchema,
+    update: s.photoUpdateSchema,
+    action: "photo.add",
+    target: { typeField: "recordType", idField: "recordId" },
+    frozenBy: "record",
+    dateField: "createdAt",
+    dateKind: "instant",
+    compute: computePhoto,
+    // The caption is free text: never merged.
+    mergeable: [],
+  },
 };
 
 export function isRecordType(value: string): value is RecordType {
@@ -288,6 +308,11 @@ export function isRecordType(value: string): value is RecordType {
 export function getRecordDef(type: string): RecordDef {
   if (!isRecordType(type)) throw notFound("Record type");
   return DEFS[type];
+}
+
+/** Record types that point at any record through a typed link (photos), tombstoned with it. */
+export function targetingTypes(): RecordDef[] {
+  return RECORD_TYPES.map((other) => DEFS[other]).filter((def) => def.target !== undefined);
 }
 
 /** Record types whose parent is `type` (tombstoned with it). */

@@ -14,7 +14,7 @@ import { authorizeAny, writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
 import { assertNotSigned, assertUuid, checkLinks, lockRecord } from "./guards";
-import { childTypes, column, getRecordDef, type RecordDef } from "./registry";
+import { childTypes, column, getRecordDef, targetingTypes, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
 
 const baseVersion = z
@@ -56,7 +56,7 @@ async function computed(tx: Executor, def: RecordDef, projectId: string, values:
   if (!def.compute) return {};
   const unitSystem = await projectUnitSystem(tx, projectId);
   try {
-    return def.compute(values, { unitSystem });
+    return def.compute(values, { unitSystem, projectId });
   } catch (error) {
     // e.g. a cylinder shorter than its diameter cannot be corrected (ASTM C39): the input's fault.
     if (error instanceof ConcreteInputError) throw invalidInput(error.message, { [error.field === "maxLoadKN" ? "loadKN" : error.field]: error.message });
@@ -189,12 +189,19 @@ export async function updateRecord(
 
 /** Tombstones the children of a deleted record (and theirs), each with its own change number. */
 async function tombstoneChildren(tx: Executor, ctx: RecordContext, parent: RecordDef, parentRow: RecordRow) {
-  for (const def of childTypes(parent.type)) {
-    const field = def.parent!.field;
+  const links = [
+    ...childTypes(parent.type).map((def) => ({ def, where: eq(column(def, def.parent!.field), parentRow.id) })),
+    // Photos of the record (a typed link: record type and id).
+    ...targetingTypes().map((def) => ({
+      def,
+      where: and(eq(column(def, def.target!.typeField), parent.type), eq(column(def, def.target!.idField), parentRow.id))!,
+    })),
+  ];
+  for (const { def, where } of links) {
     const children = (await tx
       .select()
       .from(def.table)
-      .where(and(eq(column(def, field), parentRow.id), eq(def.table.projectId, parentRow.projectId), isNull(def.table.deletedAt)))
+      .where(and(where, eq(def.table.projectId, parentRow.projectId), isNull(def.table.deletedAt)))
       .for("update")) as RecordRow[];
     for (const child of children) {
       const changeSeq = await nextChangeSeq(tx, parentRow.projectId);

@@ -79,6 +79,14 @@ const FIELDS: Record<RecordType, Record<string, Field>> = {
   "diary-equipment": { diaryEntryId: parent(), name: req(text(80)), count: nul(num(0, 100, true)), hours: nul(num(0, 1_000)) },
   "diary-delays": { diaryEntryId: parent(), cause: req(text(80)), minutes: req(num(0, 1_440, true)), description: opt(text(1_000)) },
   "diary-visitors": { diaryEntryId: parent(), name: req(text(120)), company: opt(text(120)), purpose: opt(text(300)) },
+  photos: {
+    recordType: { k: "enum", values: ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries", "amendments"], required: true, createOnly: true },
+    recordId: parent(), caption: opt(text(500)), takenAt: { k: "instant", nullable: true, createOnly: true },
+    // A SHA-256 is 64 hex digits: none of the bad ids (non-strings, short strings, a cut GUID) is one.
+    sha256: { k: "id", required: true, createOnly: true },
+    sizeBytes: { k: "num", min: 1, max: 15 * 1024 * 1024, int: true, required: true, createOnly: true },
+    contentType: { k: "enum", values: ["image/jpeg", "image/png", "image/webp"], required: true, createOnly: true },
+  },
 };
 
 const GUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;

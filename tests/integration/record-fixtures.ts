@@ -27,6 +27,7 @@ export const WRITER: Record<RecordType, ProjectRole> = {
   "diary-equipment": "superintendent",
   "diary-delays": "superintendent",
   "diary-visitors": "superintendent",
+  photos: "superintendent",
 };
 
 /** Roles that may create, update and delete each type (the expected outcomes, written out). */
@@ -46,6 +47,8 @@ export const WRITERS: Record<RecordType, ProjectRole[]> = {
   "diary-equipment": ["superintendent", "office"],
   "diary-delays": ["superintendent", "office"],
   "diary-visitors": ["superintendent", "office"],
+  // "photo.add" (lib/auth/can): the field and the office; owners only view.
+  photos: ["superintendent", "inspector", "office"],
 };
 
 // Mid-November 2026 in Chicago (CST, UTC−6), like the demo scenario.
@@ -69,6 +72,8 @@ const PARENT_TYPE: Partial<Record<RecordType, { field: string; type: RecordType 
   "diary-equipment": { field: "diaryEntryId", type: "diary-entries" },
   "diary-delays": { field: "diaryEntryId", type: "diary-entries" },
   "diary-visitors": { field: "diaryEntryId", type: "diary-entries" },
+  // A photo points at any record by type and id; the fixtures use a delivery.
+  photos: { field: "recordId", type: "deliveries" },
 };
 
 /** A valid create body; `parentId` fills the parent field, if the type has one. */
@@ -108,6 +113,8 @@ export function validBody(type: RecordType, parentId?: string): Record<string, u
       return { ...link, id, cause: "Late truck", minutes: 35, description: "Truck 4 stuck at the rail crossing" };
     case "diary-visitors":
       return { ...link, id, name: "R. Quill", company: "Fenwick Hollow Materials Lab", purpose: "Cylinder pick-up" };
+    case "photos":
+      return { ...link, id, recordType: "deliveries", caption: "Slump cone, truck B-17", takenAt: at(40), sha256: "ab".repeat(32), sizeBytes: 412_345, contentType: "image/jpeg" };
   }
 }
 
@@ -128,6 +135,7 @@ export const PATCHES: Record<RecordType, Record<string, unknown>> = {
   "diary-equipment": { hours: 7.5 },
   "diary-delays": { minutes: 40 },
   "diary-visitors": { purpose: "Audit of the curing box" },
+  photos: { caption: "Slump cone, truck B-17, after the water addition" },
 };
 
 export function parentOf(type: RecordType) {

@@ -8,3 +8,4 @@ export * from "./weather";
 export * from "./checklist";
 export * from "./curing";
 export * from "./diary";
+export * from "./photo";

@@ -60,11 +60,18 @@ export type ConflictRow = ConflictSummary & {
 export type ProjectRow = SyncProject;
 
 export type BlobUploadState = "queued" | "uploading" | "stored" | "failed";
+/**
+ * A photo's bytes on this device (id = the photo's id). `data` is the compressed photo that is
+ * uploaded; it is dropped (null) once a pull shows the photo stored. `thumb` stays for offline viewing.
+ */
 export type BlobRow = {
   id: string;
   projectId?: string;
   recordId?: string;
-  data: Blob | ArrayBuffer;
+  data: Blob | ArrayBuffer | null;
+  thumb?: Blob | ArrayBuffer | null;
+  /** When the next upload attempt is due (ms since epoch), after a failure. */
+  nextAttemptAt?: number | null;
   sha256: string;
   contentType: string;
   size: number;
@@ -111,8 +118,10 @@ export class SyncDb extends Dexie {
       projects: "id",
       blobs: "id, uploadState, recordId",
     };
-    for (const type of LOCAL_RECORD_TYPES) stores[tableNameOf(type)] = storeSpec(type);
+    for (const type of LOCAL_RECORD_TYPES) if (type !== "photos") stores[tableNameOf(type)] = storeSpec(type);
     this.version(1).stores(stores);
+    // 2: photo metadata as a synced record type (the bytes stay in `blobs`).
+    this.version(2).stores({ [tableNameOf("photos")]: storeSpec("photos") });
   }
 
   /** The table of a record type. */

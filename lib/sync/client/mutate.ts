@@ -15,6 +15,7 @@
 //   base version, so an edit built on a refused edit also conflicts instead of overwriting silently).
 //   So an update sent after the create of a record made on this device carries baseVersion 1.
 import { z } from "zod";
+import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { describeAllowed, findTransition, rolesFor, type PlacementState } from "@/lib/placements/workflow";
 import { getMeta, setMeta, type LocalRecord, type OutboxEntry, type SyncDb } from "./db";
@@ -96,6 +97,13 @@ async function loadLive(db: SyncDb, type: RecordType, id: string): Promise<Local
 /** The placement whose sign-off freezes this record, if any (as lib/records/registry frozenBy). */
 async function freezingPlacement(db: SyncDb, type: RecordType, values: Record<string, unknown>): Promise<LocalRecord | undefined> {
   if (type === "placements") return values as LocalRecord;
+  if (type === "photos") {
+    // A photo is frozen with the record it shows (an amendment's photo never is).
+    const target = values.recordType;
+    if (typeof target !== "string" || !isLocalRecordType(target) || typeof values.recordId !== "string") return undefined;
+    const row = await db.records(target).get(values.recordId);
+    return row ? freezingPlacement(db, target, row) : undefined;
+  }
   if (type === "checklist-items") {
     const checklist = typeof values.checklistId === "string" ? await db.records("checklists").get(values.checklistId) : undefined;
     return typeof checklist?.placementId === "string" ? db.records("placements").get(checklist.placementId) : undefined;
@@ -110,6 +118,7 @@ async function freezingPlacement(db: SyncDb, type: RecordType, values: Record<st
 async function assertNotSigned(db: SyncDb, type: RecordType, values: Record<string, unknown>) {
   const placement = await freezingPlacement(db, type, values);
   if (placement?.state === "signed") {
+    if (type === "photos") throw new LocalWriteError("signed", PHOTO_SIGNED_MESSAGE);
     throw new LocalWriteError("signed", "This placement is signed, so its records cannot change. Ask the office for an amendment.");
   }
 }

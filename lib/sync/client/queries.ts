@@ -50,22 +50,30 @@ export type SyncSummary = {
   conflicts: number;
   /** Changes the server refused (kept on the server; listed here until dismissed). */
   rejected: number;
+  /** Photos on this device whose bytes have not been stored yet (the photo lane, lib/photos/client). */
+  photosWaiting: number;
+  /** Of those, the ones whose last upload failed. */
+  photosFailed: number;
   lastSyncAt: string | null;
   lastError: string | null;
 };
 
 /** The numbers the sync status control shows (read live). */
 export async function readSyncSummary(db: SyncDb): Promise<SyncSummary> {
-  return db.transaction("r", db.outbox, db.conflicts, db.meta, async () => {
-    const [waiting, failed, conflicts, rejected, lastSyncAt, lastError] = await Promise.all([
+  return db.transaction("r", [db.outbox, db.conflicts, db.meta, db.blobs], async () => {
+    const [waiting, failed, conflicts, rejected, blobs, blobsStored, photosFailed, lastSyncAt, lastError] = await Promise.all([
       db.outbox.count(),
       db.outbox.where("state").equals("failed").count(),
       db.conflicts.where("kind").equals("conflict").count(),
       db.conflicts.where("kind").equals("rejected").count(),
+      db.blobs.count(),
+      db.blobs.where("uploadState").equals("stored").count(),
+      db.blobs.where("uploadState").equals("failed").count(),
       getMeta(db, "lastSyncAt"),
       getMeta(db, "lastError"),
     ]);
-    return { waiting, failed, conflicts, rejected, lastSyncAt: lastSyncAt ?? null, lastError: lastError ?? null };
+    const photosWaiting = blobs - blobsStored;
+    return { waiting, failed, conflicts, rejected, photosWaiting, photosFailed, lastSyncAt: lastSyncAt ?? null, lastError: lastError ?? null };
   });
 }
 

@@ -10,10 +10,11 @@ import { SyncDriver, type DriverStatus } from "./driver";
 import { forgetCurrentIdentity, readCurrentIdentity, rememberIdentity } from "./identity";
 import { countUnsynced, readSyncSummary, type SyncSummary } from "./queries";
 import { unsyncedWarning } from "./words";
+import { PhotoUploader } from "@/lib/photos/client/uploader";
 
 export { rememberIdentity };
 
-type SyncContextValue = { db: SyncDb; driver: SyncDriver; identity: DeviceIdentity };
+type SyncContextValue = { db: SyncDb; driver: SyncDriver; uploader: PhotoUploader; identity: DeviceIdentity };
 
 const SyncContext = createContext<SyncContextValue | null>(null);
 
@@ -35,6 +36,9 @@ export function SyncProvider({
   const userId = identity?.id ?? null;
   const db = useMemo(() => (userId ? getUserDb(userId) : null), [userId]);
   const driver = useMemo(() => (db ? new SyncDriver({ db }) : null), [db]);
+  // The photo lane runs beside the sync loop, in the leading tab, after each cycle (lib/photos/client).
+  const uploader = useMemo(() => (db ? new PhotoUploader({ db }) : null), [db]);
+  useEffect(() => (driver && uploader ? uploader.attach(driver) : undefined), [driver, uploader]);
   const name = identity?.name;
   const email = identity?.email;
   const isAdmin = identity?.isAdmin;
@@ -59,10 +63,10 @@ export function SyncProvider({
 
   const value = useMemo(
     () =>
-      db && driver && userId
-        ? { db, driver, identity: { id: userId, name: name ?? "", email: email ?? "", isAdmin: Boolean(isAdmin) } }
+      db && driver && uploader && userId
+        ? { db, driver, uploader, identity: { id: userId, name: name ?? "", email: email ?? "", isAdmin: Boolean(isAdmin) } }
         : null,
-    [db, driver, userId, name, email, isAdmin],
+    [db, driver, uploader, userId, name, email, isAdmin],
   );
   return <SyncContext.Provider value={value}>{children}</SyncContext.Provider>;
 }
@@ -82,6 +86,14 @@ export function useOptionalSyncDb(): SyncDb | null {
 /** The identity the provider runs for, or null. */
 export function useSyncIdentity(): DeviceIdentity | null {
   return useContext(SyncContext)?.identity ?? null;
+}
+
+const NO_PROGRESS: ReadonlyMap<string, number> = new Map();
+
+/** Upload progress (0–1) of the photos uploading in this tab, by photo id. */
+export function usePhotoProgress(): ReadonlyMap<string, number> {
+  const uploader = useContext(SyncContext)?.uploader ?? null;
+  return useSyncExternalStore(uploader?.subscribe ?? noSubscribe, uploader?.getProgress ?? (() => NO_PROGRESS), () => NO_PROGRESS);
 }
 
 /** Asks for a sync now ("Sync now" buttons). No-op without a provider. */
@@ -119,7 +131,7 @@ export type SyncState = SyncSummary & {
   loading: boolean;
 };
 
-const EMPTY_SUMMARY: SyncSummary = { waiting: 0, failed: 0, conflicts: 0, rejected: 0, lastSyncAt: null, lastError: null };
+const EMPTY_SUMMARY: SyncSummary = { waiting: 0, failed: 0, conflicts: 0, rejected: 0, photosWaiting: 0, photosFailed: 0, lastSyncAt: null, lastError: null };
 const IDLE_STATUS: DriverStatus = {
   leader: false,
   syncing: false,

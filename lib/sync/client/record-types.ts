@@ -179,6 +179,17 @@ export const LOCAL_TYPES: Record<RecordType, LocalTypeDef> = {
     indexes: [],
     defaults: { company: "", purpose: "" },
   }),
+  // Photo metadata; the bytes wait in the `blobs` table and go through the photo lane (lib/photos/client).
+  // storageKey and storedAt are the server's: null until a pull brings them.
+  photos: def({
+    type: "photos",
+    table: "photos",
+    label: "Photo",
+    create: s.photoCreateSchema,
+    update: s.photoUpdateSchema,
+    indexes: ["[recordType+recordId]", "recordId"],
+    defaults: { caption: "", takenAt: null, storageKey: null, storedAt: null },
+  }),
 };
 
 /** Every synced record type, in the registry's order. */

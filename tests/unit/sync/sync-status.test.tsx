@@ -18,6 +18,8 @@ const base: SyncState = {
   failed: 0,
   conflicts: 0,
   rejected: 0,
+  photosWaiting: 0,
+  photosFailed: 0,
   lastSyncAt: "2026-11-09T11:55:00.000Z",
   lastError: null,
 };
@@ -32,6 +34,13 @@ describe("sync status in words", () => {
     expect(syncLook({ ...base, waiting: 2, failed: 1 }, NOW)).toMatchObject({ label: "2 waiting", detail: "Sync problem: tap for details" });
     expect(syncLook(base, NOW)).toMatchObject({ label: "All saved", detail: "last sync 5 min ago" });
     expect(syncLook({ ...base, needsSignIn: true, waiting: 4 }, NOW)).toMatchObject({ label: "Sign in to sync" });
+  });
+
+  it("counts photos still to upload apart from the changes (the photo lane)", () => {
+    expect(syncLook({ ...base, online: false, waiting: 1, photosWaiting: 2 }, NOW)).toMatchObject({ label: "Offline", detail: "1 change waiting, 2 photos to upload" });
+    expect(syncLook({ ...base, photosWaiting: 1 }, NOW)).toMatchObject({ label: "1 photo uploading", detail: "1 photo to upload" });
+    expect(syncLook({ ...base, photosWaiting: 2, photosFailed: 1 }, NOW)).toMatchObject({ label: "2 photos waiting", detail: "Photo upload problem: tap for details" });
+    expect(syncLook({ ...base, waiting: 3, photosWaiting: 2 }, NOW)).toMatchObject({ label: "3 waiting", detail: "3 changes waiting, 2 photos to upload" });
   });
 
   it("describes changes and times in words", () => {
