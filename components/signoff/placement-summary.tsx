@@ -51,7 +51,11 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
   }
   const records = [placement, ...deliveries, ...tests, ...sets, ...observations, ...curing, ...lists, ...items];
   const ids = new Set(records.map((r) => r.id));
-  const [conflicts, blobs] = await Promise.all([db.conflicts.filter((c) => ids.has(c.recordId)).toArray(), db.blobs.filter((b) => !!b.recordId && ids.has(b.recordId)).toArray()]);
+  // Photos are synced records: count every device's, not only the blobs this device holds.
+  const [conflicts, photos] = await Promise.all([
+    db.conflicts.filter((c) => ids.has(c.recordId)).toArray(),
+    db.records("photos").where("recordId").anyOf([...ids]).filter((p) => !p.deletedAt).toArray(),
+  ]);
   const lowBleed = mix?.lowBleed === true;
   return {
     trucks: deliveries.length,
@@ -70,8 +74,8 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
     ).length,
     curingReadings: curing.length,
     checklists,
-    photos: blobs.length,
-    photosUploading: blobs.filter((b) => b.uploadState !== "stored").length,
+    photos: photos.length,
+    photosUploading: photos.filter((p) => !p.storedAt).length,
     conflicts: conflicts.filter((c) => c.kind === "conflict").length,
     unsent: records.filter((r) => r.pending).length,
   };
@@ -132,7 +136,7 @@ export function PlacementSignSummary({ summary, project }: { summary: PlacementS
         label="Checklists"
         value={s.checklists.length ? s.checklists.map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} ${c.answered}/${c.total}`).join(", ") : "none"}
       />
-      <Line label="Photos on this device" value={s.photos ? `${s.photos}${s.photosUploading ? `, ${s.photosUploading} uploading` : ""}` : "none"} />
+      <Line label="Photos" value={s.photos ? `${s.photos}${s.photosUploading ? `, ${s.photosUploading} uploading` : ""}` : "none"} />
       <Line testId="sign-summary-open" label="Open items" value={open.length ? open.join(", ") : "none on this device"} warn={open.length > 0} />
     </ul>
   );
