@@ -65,7 +65,7 @@ export function PhotoViewer({
       aria-modal="true"
       aria-label={caption || "Photo"}
       data-testid="photo-viewer"
-      className="fixed inset-0 z-50 flex flex-col bg-ink-950/95 text-white"
+      className="fixed inset-0 z-50 flex flex-col bg-ink-950 text-white"
       onClick={(e) => e.target === e.currentTarget && onClose()}
     >
       <div className="flex items-center justify-between gap-2 p-2">
