@@ -16,7 +16,7 @@ function formatTaken(value: unknown, timeZone?: string): string | null {
   if (typeof value !== "string" || !value) return null;
   const date = new Date(value);
   if (Number.isNaN(date.getTime())) return null;
-  return date.toLocaleString(undefined, { timeZone, weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
+  return date.toLocaleString(undefined, { timeZone, weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
 }
 
 export function PhotoViewer({

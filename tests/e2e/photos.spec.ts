@@ -132,6 +132,15 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   await expect(after).toHaveAttribute("data-source", "device");
   await expect.poll(() => after.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
   await expect(after.getByText(caption, { exact: true })).toBeVisible();
+  // The full-size view offline comes from the compressed copy on this device.
+  await after.getByRole("button").click();
+  const offlineFull = first.getByTestId("photo-viewer").getByTestId("photo-full");
+  await expect(offlineFull).toHaveAttribute("data-source", "device");
+  await expect.poll(() => offlineFull.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0))).toBeGreaterThan(320);
+  await first.waitForTimeout(300);
+  await first.screenshot({ path: ".data/screenshots/photos-viewer-offline-screen.png" });
+  await first.keyboard.press("Escape");
+  await expect(first.getByTestId("photo-viewer")).toHaveCount(0);
 
   // Back online: records sync, the photo uploads, the server verifies it; the pull brings storedAt.
   await context.setOffline(false);
