@@ -162,6 +162,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   expect(head.ContentLength).toBe(record!.sizeBytes);
   expect(head.ContentLength!).toBeLessThanOrEqual(TARGET_BYTES);
   expect(head.ContentLength!).toBeLessThan(original.length / 3);
+  test.info().annotations.push({ type: "sizes", description: `camera file ${original.length} B → stored ${head.ContentLength} B` });
 
   // The gallery now shows the photo from storage (a presigned link), and so does the full-size view.
   await expect(after).toHaveAttribute("data-source", "storage", { timeout: 60_000 });
