@@ -32,9 +32,9 @@ function Thumb({ photo, blob, progress, onOpen }: { photo: LocalRecord; blob: Bl
           </span>
         )}
         <span className="sr-only">Open {caption ?? "photo"} full size</span>
-        <PhotoStateBadge badge={badge} className="absolute bottom-1 left-1 right-1 justify-center" />
+        <PhotoStateBadge badge={badge} compact className="absolute bottom-1 left-1 right-1 justify-center" />
       </button>
-      {caption ? <p className="mt-1 line-clamp-2 text-sm text-ink-800">{caption}</p> : null}
+      {caption ? <p className="mt-1 line-clamp-2 break-words text-sm text-ink-800">{caption}</p> : null}
     </li>
   );
 }

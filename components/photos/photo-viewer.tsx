@@ -16,7 +16,7 @@ function formatTaken(value: unknown, timeZone?: string): string | null {
   if (typeof value !== "string" || !value) return null;
   const date = new Date(value);
   if (Number.isNaN(date.getTime())) return null;
-  return date.toLocaleString(undefined, { timeZone, weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
+  return date.toLocaleString(undefined, { timeZone, weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
 }
 
 export function PhotoViewer({
@@ -65,7 +65,7 @@ export function PhotoViewer({
       aria-modal="true"
       aria-label={caption || "Photo"}
       data-testid="photo-viewer"
-      className="fixed inset-0 z-50 flex flex-col bg-ink-950/95 text-white"
+      className="fixed inset-0 z-50 flex flex-col bg-ink-950 text-white"
       onClick={(e) => e.target === e.currentTarget && onClose()}
     >
       <div className="flex items-center justify-between gap-2 p-2">

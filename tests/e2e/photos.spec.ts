@@ -1,6 +1,6 @@
 import { mkdirSync } from "node:fs";
 import { HeadObjectCommand, S3Client } from "@aws-sdk/client-s3";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Locator, type Page } from "@playwright/test";
 import { PlacementPage, TodayPage } from "./field-pages";
 import { DEMO, signIn } from "./support";
 
@@ -66,6 +66,13 @@ async function cameraJpeg(page: Page): Promise<Buffer> {
   return Buffer.from(base64, "base64");
 }
 
+/** The phone's screen with the gallery in the middle (clear of the sticky top and bottom bars). */
+async function phoneShot(page: Page, target: Locator, name: string) {
+  await target.evaluate((el) => el.scrollIntoView({ block: "center" }));
+  await page.waitForTimeout(300);
+  await page.screenshot({ path: `.data/screenshots/${name}-screen.png` });
+}
+
 function storage() {
   return new S3Client({
     endpoint: process.env.S3_ENDPOINT,
@@ -116,6 +123,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   await expect(thumb.getByTestId("photo-state")).toHaveAttribute("data-state", "local");
   const photoId = (await thumb.getAttribute("data-photo-id"))!;
   await expect(placement.syncStatus()).toHaveAttribute("data-state", "Offline");
+  await phoneShot(first, gallery, "photos-delivery-gallery-offline");
 
   // Reload with no connection: the thumbnail is still there, drawn from this device.
   await first.reload();
@@ -124,6 +132,15 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   await expect(after).toHaveAttribute("data-source", "device");
   await expect.poll(() => after.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
   await expect(after.getByText(caption, { exact: true })).toBeVisible();
+  // The full-size view offline comes from the compressed copy on this device.
+  await after.getByRole("button").click();
+  const offlineFull = first.getByTestId("photo-viewer").getByTestId("photo-full");
+  await expect(offlineFull).toHaveAttribute("data-source", "device");
+  await expect.poll(() => offlineFull.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0))).toBeGreaterThan(320);
+  await first.waitForTimeout(300);
+  await first.screenshot({ path: ".data/screenshots/photos-viewer-offline-screen.png" });
+  await first.keyboard.press("Escape");
+  await expect(first.getByTestId("photo-viewer")).toHaveCount(0);
 
   // Back online: records sync, the photo uploads, the server verifies it; the pull brings storedAt.
   await context.setOffline(false);
@@ -145,6 +162,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   expect(head.ContentLength).toBe(record!.sizeBytes);
   expect(head.ContentLength!).toBeLessThanOrEqual(TARGET_BYTES);
   expect(head.ContentLength!).toBeLessThan(original.length / 3);
+  test.info().annotations.push({ type: "sizes", description: `camera file ${original.length} B → stored ${head.ContentLength} B` });
 
   // The gallery now shows the photo from storage (a presigned link), and so does the full-size view.
   await expect(after).toHaveAttribute("data-source", "storage", { timeout: 60_000 });
@@ -153,10 +171,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   expect(thumbSrc).toContain(process.env.S3_ENDPOINT!);
   expect(thumbSrc).toContain("X-Amz-Signature=");
   await expect.poll(() => after.locator("img").evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
-  await row.scrollIntoViewIfNeeded();
-  await first.waitForTimeout(300);
-  await first.screenshot({ path: ".data/screenshots/photos-delivery-gallery-screen.png" });
-  await row.screenshot({ path: ".data/screenshots/photos-delivery-row.png" });
+  await phoneShot(first, gallery, "photos-delivery-gallery-online");
 
   await after.getByRole("button").click();
   const viewer = first.getByTestId("photo-viewer");
@@ -169,7 +184,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
   expect(Math.max(...dims)).toBeLessThanOrEqual(2000);
   expect(Math.max(...dims)).toBeGreaterThan(1000);
   await first.waitForTimeout(300);
-  await first.screenshot({ path: ".data/screenshots/photos-viewer-screen.png" });
+  await first.screenshot({ path: ".data/screenshots/photos-viewer-online-screen.png" });
   await first.keyboard.press("Escape");
   await expect(viewer).toHaveCount(0);
   await context.close();

@@ -63,7 +63,8 @@ export function recoverStale(row: UploadFields): UploadFields {
   return row.uploadState === "uploading" ? { ...row, uploadState: "queued", nextAttemptAt: null } : row;
 }
 
-export type PhotoBadge = { state: "local" | "uploading" | "stored" | "failed" | "elsewhere"; label: string; detail?: string };
+/** `short` fits on a thumbnail (about 9 characters at 390 px wide, three to a row); `label` says it in full. */
+export type PhotoBadge = { state: "local" | "uploading" | "stored" | "failed" | "elsewhere"; label: string; short: string; detail?: string };
 
 /**
  * What a photo shows in the gallery, in words (the icon repeats it): from the record (storedAt) and
@@ -74,17 +75,19 @@ export function photoBadge(
   blob: Pick<UploadFields, "uploadState" | "lastError"> | undefined,
   progress?: number,
 ): PhotoBadge {
-  if (record.storedAt) return { state: "stored", label: "Stored" };
-  if (!blob) return { state: "elsewhere", label: "Uploading from another device" };
+  if (record.storedAt) return { state: "stored", label: "Stored", short: "Stored" };
+  if (!blob) return { state: "elsewhere", label: "Uploading from another device", short: "Uploading" };
   switch (blob.uploadState) {
     case "uploading":
-      return { state: "uploading", label: progress != null ? `Uploading ${Math.round(progress * 100)} %` : "Uploading" };
+      return progress != null
+        ? { state: "uploading", label: `Uploading ${Math.round(progress * 100)} %`, short: `${Math.round(progress * 100)} %` }
+        : { state: "uploading", label: "Uploading", short: "Uploading" };
     case "failed":
-      return { state: "failed", label: "Upload failed", detail: blob.lastError ?? "It will try again." };
+      return { state: "failed", label: "Upload failed", short: "Failed", detail: blob.lastError ?? "It will try again." };
     case "stored":
       // Verified by the server; the next pull sets storedAt here.
-      return { state: "stored", label: "Stored" };
+      return { state: "stored", label: "Stored", short: "Stored" };
     default:
-      return { state: "local", label: "Saved on this device", detail: "Uploads when there is a connection." };
+      return { state: "local", label: "Saved on this device", short: "On device", detail: "Uploads when there is a connection." };
   }
 }

@@ -54,6 +54,14 @@ describe("upload state machine: queued → uploading → stored / failed (SYNC.m
     expect(photoBadge({ storedAt: "2026-11-16T15:00:00Z" }, undefined).label).toBe("Stored");
     expect(photoBadge({ storedAt: null }, undefined).label).toBe("Uploading from another device");
     expect(photoBadge({ storedAt: null }, { uploadState: "queued" }).label).toBe("Saved on this device");
+    // The thumbnail's words fit a 390 px phone's three-column grid [common practice: ~9 characters at 12 px].
+    for (const badge of [
+      photoBadge({ storedAt: null }, { uploadState: "queued" }),
+      photoBadge({ storedAt: null }, undefined),
+      photoBadge({ storedAt: null }, { uploadState: "uploading" }, 0.456),
+      photoBadge({ storedAt: null }, { uploadState: "failed", lastError: "x" }),
+    ]) expect(badge.short.length).toBeLessThanOrEqual(9);
+    expect(photoBadge({ storedAt: null }, { uploadState: "uploading" }, 0.456).short).toBe("46 %");
     expect(photoBadge({ storedAt: null }, { uploadState: "uploading" }, 0.456).label).toBe("Uploading 46 %");
     expect(photoBadge({ storedAt: null }, { uploadState: "failed", lastError: "No connection" })).toMatchObject({ label: "Upload failed", detail: "No connection" });
   });
