@@ -295,7 +295,7 @@ export function Deliveries({ placement, project, mix }: { placement: LocalRecord
       }
     >
       <p className="text-sm text-muted" data-testid="delivery-total">
-        {(deliveries ?? []).length} trucks · {formatVolume(total, units)} accepted
+        {(deliveries ?? []).length} {(deliveries ?? []).length === 1 ? "truck" : "trucks"} · {formatVolume(total, units)} accepted
       </p>
       {editing === "new" ? <DeliveryForm placement={placement} project={project} mix={mix} existing={null} onDone={() => setEditing(null)} /> : null}
       <ul className="mt-3 flex flex-col gap-3">
