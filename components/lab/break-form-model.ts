@@ -39,7 +39,8 @@ export function breakDefaults(set: SetForForm, units: UnitSystem, timeZone: stri
   return {
     testedAt: instantToZoned(dueAt(new Date(set.castAt), next), timeZone),
     load: "",
-    diameter: size(set.cylinderDiameterMm),
+    // The set records the nominal class (100 or 150 mm); inch-pound labs mould 4 in and 6 in cylinders.
+    diameter: units === "SI" ? String(set.cylinderDiameterMm) : set.cylinderDiameterMm >= 150 ? "6" : "4",
     length: size(set.cylinderLengthMm),
     fractureType: "",
   };

@@ -64,7 +64,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
       {canEnterBreaks ? (
         <BreakForm
           projectId={projectId}
-          set={{ id: set.id, castAt: set.castAt, cylinderDiameterMm: set.cylinderDiameterMm, cylinderLengthMm: set.cylinderLengthMm, testAgesDays: set.testAgesDays, testedAges: set.tests.filter((t) => t.averageMPa !== null).map((t) => t.ageDays) }}
+          set={{ id: set.id, castAt: set.castAt, cylinderDiameterMm: set.cylinderDiameterMm, cylinderLengthMm: set.cylinderLengthMm, testAgesDays: set.testAgesDays, testedAges: set.tests.map((t) => t.ageDays) }}
           unitSystem={u}
           timeZone={timeZone}
           judge={acceptance ? { fcAgeDays: acceptance.mix.fcAgeDays, individualLimitMPa: acceptance.individualLimitMPa } : null}
