@@ -8,7 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import type { LabQueue } from "@/lib/lab/queue";
-import { dateText, dateTimeText, strengthText } from "./format";
+import { dateText, dateTimeText, relativeDays, strengthText } from "./format";
 import { StatusBadge } from "./status-badge";
 
 type Show = "open" | "all" | "overdue" | "tested";
@@ -74,7 +74,7 @@ export function LabQueueTable() {
             <tbody className="divide-y divide-ink-100">
               {items.map((i) => (
                 <tr key={i.key} data-testid="queue-row" data-status={i.status} className={clsx(i.status === "overdue" && "bg-danger-50")}>
-                  <td className="whitespace-nowrap px-3 py-1.5 font-semibold">{dateText(i.dueAt, i.timeZone)}</td>
+                  <td className="whitespace-nowrap px-3 py-1.5"><span className="font-semibold">{dateText(i.dueAt, i.timeZone)}</span>{i.status !== "tested" ? <span className="ml-2 text-xs text-muted">{relativeDays(i.dueAt)}</span> : null}</td>
                   <td className="px-3 py-1.5 font-mono">{i.ageDays} d</td>
                   <td className="px-3 py-1.5"><StatusBadge status={i.status} /></td>
                   <td className="px-3 py-1.5 font-mono">

@@ -7,7 +7,7 @@ import type { LabSetView } from "@/lib/lab/queries";
 import type { MixAcceptance } from "@/lib/lab/strength-tests";
 import { BreakForm } from "./break-form";
 import { StrengthAgeChart } from "./charts";
-import { cylinderText, dateText, dateTimeText, strengthText } from "./format";
+import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";
 
 type Props = { projectId: string; set: LabSetView; unitSystem: UnitSystem; timeZone: string; canEnterBreaks: boolean; acceptance: MixAcceptance | null };
 
@@ -20,7 +20,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
       <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
         <h3 className="font-mono text-lg font-bold">{set.setCode}</h3>
         <span className="text-sm">{set.placement.element} · mix <span className="font-mono">{set.mixCode ?? "—"}</span></span>
-        <span className="text-sm text-muted">{set.count} cylinders {cylinderText(set.cylinderDiameterMm, set.cylinderLengthMm, u)} · cast {dateTimeText(set.castAt, timeZone)}</span>
+        <span className="text-sm text-muted">{set.count} cylinders {nominalCylinderText(set.cylinderDiameterMm, set.cylinderLengthMm, u)} · cast {dateTimeText(set.castAt, timeZone)}</span>
         {low ? <span className="ml-auto inline-flex items-center gap-1 text-sm font-semibold text-danger-700" data-testid="set-low"><OctagonAlert className="h-4 w-4" aria-hidden="true" />Low strength test</span> : null}
       </header>
       <p className="mt-1 text-sm">Test ages: {[...set.testAgesDays].sort((a, b) => a - b).map((age) => `${age} d (due ${dateText(dueAt(new Date(set.castAt), age), timeZone)})`).join(" · ")}</p>
@@ -50,8 +50,13 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
               {set.tests.map((t) => (
                 <li key={t.ageDays}>
                   <strong>{t.ageDays} days:</strong>{" "}
-                  {t.averageMPa !== null ? <>strength test {strengthText(t.averageMPa, u)} ({t.cylindersMPa.length} cylinders)</> : <>mean {strengthText(t.meanMPa, u)} of {t.cylindersMPa.length}; {t.incompleteReason}</>}
-                  {acceptance && t.ageDays !== acceptance.mix.fcAgeDays ? <span className="text-muted"> · early age, not judged</span> : null}
+                  {acceptance && t.ageDays !== acceptance.mix.fcAgeDays ? (
+                    <>mean {strengthText(t.meanMPa, u)} of {t.cylindersMPa.length} cylinders <span className="text-muted">· not the design age ({acceptance.mix.fcAgeDays} d), not judged</span></>
+                  ) : t.averageMPa !== null ? (
+                    <>strength test {strengthText(t.averageMPa, u)} ({t.cylindersMPa.length} cylinders)</>
+                  ) : (
+                    <>mean {strengthText(t.meanMPa, u)} of {t.cylindersMPa.length} so far; {t.incompleteReason}</>
+                  )}
                 </li>
               ))}
             </ul>

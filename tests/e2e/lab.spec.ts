@@ -66,8 +66,12 @@ test("the office enters 28-day breaks that fail acceptance and sees the low-resu
   const perSet = set.getByTestId("strength-age-chart");
   await expect.poll(() => perSet.locator(".recharts-scatter-symbol").count()).toBeGreaterThanOrEqual(5);
   if (SHOTS) {
-    await page.screenshot({ path: `${SHOTS}/lab-placement.png`, fullPage: true });
-    await panel.screenshot({ path: `${SHOTS}/lab-acceptance.png` });
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await page.screenshot({ path: `${SHOTS}/lab-flag.png` });
+    await running.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/lab-chart.png` });
+    await set.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/lab-set.png` });
     await page.goto("/lab");
     await expect(page.getByTestId("lab-queue")).toBeVisible();
     await page.getByTestId("queue-show").selectOption("all");
