@@ -31,7 +31,7 @@ export function StrengthAgeChart({ cylinders, fcMPa, unitSystem, title }: { cyli
   return (
     <figure className="m-0" data-testid="strength-age-chart">
       <figcaption className="text-sm font-semibold">{title}</figcaption>
-      <div aria-hidden="true" className="h-44 w-full">
+      <div aria-hidden="true" className="h-56 w-full">
         <ComposedChart responsive style={{ width: "100%", height: "100%" }} margin={{ top: 8, right: 12, bottom: 18, left: 4 }} accessibilityLayer={false}>
           <CartesianGrid stroke={INK_200} strokeDasharray="3 3" />
           <XAxis dataKey="age" type="number" domain={[0, Math.max(28, ...ages) + 2]} ticks={[0, 7, 14, 28, ...ages.filter((a) => a > 28)]} stroke={INK_600} tick={axisTick}
@@ -70,8 +70,8 @@ export function RunningAverageChart({ acceptance }: { acceptance: MixAcceptance 
           <CartesianGrid stroke={INK_200} strokeDasharray="3 3" vertical={false} />
           <XAxis dataKey="n" type="number" domain={[0.5, Math.max(3, data.length) + 0.5]} ticks={data.map((d) => d.n)} tickFormatter={(n: number) => data[n - 1]?.set ?? ""} stroke={INK_600} tick={axisTick} />
           <YAxis type="number" domain={[bottom, top]} ticks={range(bottom, top, step)} width={52} stroke={INK_600} tick={axisTick} />
-          <ReferenceLine y={fc} stroke={INK_900} strokeWidth={2} label={{ value: `f′c ${formatStrength(acceptance.mix.fcMPa, u)}`, position: "insideTopRight", fill: INK_900, fontSize: 12 }} />
-          <ReferenceLine y={limit} stroke={DANGER_700} strokeDasharray="6 4" label={{ value: `Lowest single test ${formatStrength(acceptance.individualLimitMPa, u)}`, position: "insideBottomRight", fill: DANGER_700, fontSize: 12 }} />
+          <ReferenceLine y={fc} stroke={INK_900} strokeWidth={2} label={{ value: `f′c ${formatStrength(acceptance.mix.fcMPa, u)}`, position: "insideTopLeft", fill: INK_900, fontSize: 12 }} />
+          <ReferenceLine y={limit} stroke={DANGER_700} strokeDasharray="6 4" label={{ value: `Lowest single test ${formatStrength(acceptance.individualLimitMPa, u)}`, position: "insideBottomLeft", fill: DANGER_700, fontSize: 12 }} />
           <Scatter dataKey="test" fill={CAUTION_700} isAnimationActive={false} name="Strength test" />
           <Line dataKey="running" type="linear" stroke={LICHEN_600} strokeWidth={3} dot={{ r: 5, fill: LICHEN_600, stroke: "#ffffff", strokeWidth: 2 }} connectNulls={false} isAnimationActive={false} name="Average of three" />
         </ComposedChart>
