@@ -1,14 +1,14 @@
 // The lab: acceptance of the demo mix with the low break against lib/concrete called on the same
 // numbers, the queue by due date, who may enter breaks, and bad break input.
 import { randomUUID } from "node:crypto";
-import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as queueRoute } from "@/app/api/lab/queue/route";
 import { GET as acceptanceRoute } from "@/app/api/projects/[projectId]/lab/acceptance/route";
 import { GET as setsRoute } from "@/app/api/projects/[projectId]/lab/sets/route";
 import { POST } from "@/app/api/projects/[projectId]/records/[type]/route";
 import { db } from "@/db";
-import { breaks, specimenSets } from "@/db/schema";
+import { breaks, placements, specimenSets } from "@/db/schema";
 import { DEMO_IDS } from "@/db/seed";
 import { cylinderStrengthMPa, evaluateAcceptance, inToMm, mpaToPsi, psiToMPa, strengthTest } from "@/lib/concrete";
 import { listLabQueue } from "@/lib/lab/queue";
@@ -29,22 +29,27 @@ describe("acceptance of the demo mix LC-4000-A (the low 28-day break)", () => {
     expect(res.json.mixes).toHaveLength(1);
     const acc = res.json.mixes[0];
 
-    // The same numbers, straight from the database, through lib/concrete only.
-    const sets = await db.select().from(specimenSets)
-      .where(and(eq(specimenSets.projectId, LARKSPUR), inArray(specimenSets.setCode, ["LC-P1-A", "LC-P1-B"])))
+    // The same numbers, straight from the database, through lib/concrete only: every set of the
+    // mix's placements in cast order (the e2e run may have added breaks to LC-P2-A; they count too).
+    const sets = await db.select({ set: specimenSets }).from(specimenSets)
+      .innerJoin(placements, eq(placements.id, specimenSets.placementId))
+      .where(and(eq(specimenSets.projectId, LARKSPUR), eq(placements.mixId, acc.mix.id), isNull(specimenSets.deletedAt)))
       .orderBy(asc(specimenSets.castAt));
     const expectedPsi: number[] = [];
-    for (const set of sets) {
+    const expectedSets: string[] = [];
+    for (const { set } of sets) {
       const rows = await db.select().from(breaks)
         .where(and(eq(breaks.specimenSetId, set.id), eq(breaks.ageDays, 28), isNull(breaks.deletedAt)));
+      if (rows.length < 3) continue; // ACI 318: a strength test of 4 × 8 in cylinders averages at least three
       // ASTM C39: f = P / (π d²/4), L/D-corrected when ≤ 1.75 (here 8/4 = 2: no correction).
       const cylinders = rows.map((b) => cylinderStrengthMPa({ maxLoadKN: b.loadKN, diameterMm: b.diameterMm, lengthMm: b.lengthMm ?? undefined }));
-      // ACI 318: a strength test of 4 × 8 in cylinders averages at least three.
       expectedPsi.push(mpaToPsi(strengthTest(cylinders, { diameterMm: set.cylinderDiameterMm })));
+      expectedSets.push(set.setCode);
     }
     const direct = evaluateAcceptance({ fc: 4000, tests: expectedPsi, unitSystem: "IP" });
 
-    expect(acc.tests.map((t: { setCode: string }) => t.setCode)).toEqual(["LC-P1-A", "LC-P1-B"]);
+    expect(acc.tests.map((t: { setCode: string }) => t.setCode)).toEqual(expectedSets);
+    expect(expectedSets.slice(0, 2)).toEqual(["LC-P1-A", "LC-P1-B"]);
     acc.tests.forEach((t: { averageMPa: number }, i: number) => expect(mpaToPsi(t.averageMPa)).toBeCloseTo(expectedPsi[i], 6));
     expect(acc.tests.map((t: { lowIndividual: boolean }) => t.lowIndividual)).toEqual(direct.tests.map((t) => t.lowIndividual));
     expect(mpaToPsi(acc.individualLimitMPa)).toBeCloseTo(direct.individualLimit, 6);
@@ -56,13 +61,13 @@ describe("acceptance of the demo mix LC-4000-A (the low 28-day break)", () => {
     // 3380, 3290, 3420 psi (average 3363 psi, loads rounded to 0.1 kN) → low; LC-P1-A (≈ 4457 psi) is not.
     expect(direct.individualLimit).toBe(3500);
     expect(expectedPsi[1]).toBeCloseTo(3363.3, 0);
-    expect(direct.tests.map((t) => t.lowIndividual)).toEqual([false, true]);
-    // Criterion (a) needs three tests: with two it cannot be judged yet [src: DOMAIN.md §5].
-    expect(acc.averageJudged).toBe(false);
+    expect(direct.tests.slice(0, 2).map((t) => t.lowIndividual)).toEqual([false, true]);
+    // Criterion (a) needs three tests: with the seed's two it cannot be judged yet [src: DOMAIN.md §5].
+    expect(acc.averageJudged).toBe(expectedPsi.length >= 3);
     expect(acc.ok).toBe(false);
-    expect(acc.flags).toHaveLength(1);
-    expect(acc.flags[0]).toMatchObject({ kind: "individual", setCode: "LC-P1-B" });
-    expect(acc.flags[0].rule).toMatch(/ACI 318-19 §26\.12\.3\.1\(b\)/);
+    const p1b = acc.flags.find((f: { setCode: string }) => f.setCode === "LC-P1-B");
+    expect(p1b).toMatchObject({ kind: "individual" });
+    expect(p1b.rule).toMatch(/ACI 318-19 §26\.12\.3\.1\(b\)/);
     // Cores: three averaging ≥ 85 % of f'c, none below 75 % [src: UFGS 03300]: 3400 and 3000 psi.
     expect(mpaToPsi(acc.followUp.coreAverageMinMPa)).toBeCloseTo(3400, 6);
     expect(mpaToPsi(acc.followUp.coreIndividualMinMPa)).toBeCloseTo(3000, 6);
