@@ -1,7 +1,7 @@
 "use client";
 
 import clsx from "clsx";
-import { CalendarDays, FolderKanban, Gauge, HardHat, ShieldCheck } from "lucide-react";
+import { CalendarDays, FlaskConical, FolderKanban, Gauge, HardHat, ShieldCheck } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
@@ -23,7 +23,9 @@ const NAV = [
 
 export function AppShell({ user, projects, children }: { user: ShellUser; projects: UserProject[]; children: React.ReactNode }) {
   const pathname = usePathname();
-  const nav = user.isAdmin ? [...NAV, { href: "/admin", label: "Admin", icon: ShieldCheck }] : NAV;
+  // The lab queue is for the people who make and break cylinders: office and inspector roles.
+  const labNav = projects.some((p) => p.role === "office" || p.role === "inspector") ? [...NAV, { href: "/lab", label: "Lab", icon: FlaskConical }] : NAV;
+  const nav = user.isAdmin ? [...labNav, { href: "/admin", label: "Admin", icon: ShieldCheck }] : labNav;
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
 
   return (

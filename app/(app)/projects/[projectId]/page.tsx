@@ -49,6 +49,7 @@ export default async function ProjectPage({
         actions={
           <>
             <Link href={`/projects/${projectId}/mixes`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="mixes-link">Mix designs</Link>
+            <Link href={`/projects/${projectId}/lab`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="lab-link">Lab results</Link>
             <Link href={`/projects/${projectId}/digest`} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold text-ink-900 hover:bg-ink-50" data-testid="digest-link">Daily digest</Link>
           </>
         }

@@ -1,0 +1,97 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import clsx from "clsx";
+import Link from "next/link";
+import { useState } from "react";
+import { Notice } from "@/components/ui/notice";
+import { Select } from "@/components/ui/select";
+import { callApi } from "@/lib/api/client";
+import type { LabQueue } from "@/lib/lab/queue";
+import { dateText, dateTimeText, relativeDays, strengthText } from "./format";
+import { StatusBadge } from "./status-badge";
+
+type Show = "open" | "all" | "overdue" | "tested";
+const STATUS_PARAM: Record<Show, string | null> = { open: "due,overdue", all: null, overdue: "overdue", tested: "tested" };
+
+/** The lab queue across the user's projects, by due date; dense for the office desk. */
+export function LabQueueTable() {
+  const [projectId, setProjectId] = useState("");
+  const [show, setShow] = useState<Show>("open");
+  const params = new URLSearchParams();
+  if (projectId) params.set("projectId", projectId);
+  if (STATUS_PARAM[show]) params.set("status", STATUS_PARAM[show]!);
+  const query = useQuery({
+    queryKey: ["lab-queue", projectId, show],
+    queryFn: async () => {
+      const res = await callApi<LabQueue>(`/api/lab/queue?${params}`);
+      if (!res.ok) throw new Error(res.error.message);
+      return res.data;
+    },
+  });
+  const items = query.data?.items ?? [];
+  const overdue = items.filter((i) => i.status === "overdue").length;
+  return (
+    <section className="card" aria-labelledby="queue-title">
+      <div className="flex flex-wrap items-end gap-3 border-b border-ink-100 p-3">
+        <h2 id="queue-title" className="mr-auto text-lg font-bold">Tests by due date</h2>
+        <Select label="Project" value={projectId} onChange={(e) => setProjectId(e.target.value)} data-testid="queue-project">
+          <option value="">All my projects</option>
+          {query.data?.projects.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+        </Select>
+        <Select label="Show" value={show} onChange={(e) => setShow(e.target.value as Show)} data-testid="queue-show">
+          <option value="open">Not yet tested</option>
+          <option value="overdue">Overdue only</option>
+          <option value="tested">Tested</option>
+          <option value="all">All</option>
+        </Select>
+      </div>
+      {query.isError ? <Notice tone="danger" title={(query.error as Error).message} className="m-3" /> : null}
+      {overdue > 0 ? (
+        <Notice tone="danger" title={`${overdue} test${overdue === 1 ? " is" : "s are"} overdue`} className="m-3" testId="queue-overdue-notice">
+          The ASTM C39 window for the test age has closed without a break. Ask the lab, and record why in the break or the diary.
+        </Notice>
+      ) : null}
+      {query.isPending ? <p className="p-3 text-muted">Loading…</p> : items.length === 0 ? (
+        <p className="p-3 text-muted" data-testid="queue-empty">Nothing here for this choice.</p>
+      ) : (
+        <div className="overflow-x-auto">
+          <table className="w-full text-left text-sm" data-testid="lab-queue">
+            <thead className="bg-ink-50 text-ink-700">
+              <tr>
+                <th className="px-3 py-2">Due</th>
+                <th className="px-3 py-2">Age</th>
+                <th className="px-3 py-2">Status</th>
+                <th className="px-3 py-2">Set</th>
+                <th className="px-3 py-2">Project</th>
+                <th className="px-3 py-2">Placement</th>
+                <th className="px-3 py-2">Mix</th>
+                <th className="px-3 py-2">Cast</th>
+                <th className="px-3 py-2 text-right">Broken</th>
+                <th className="px-3 py-2 text-right">Mean</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-ink-100">
+              {items.map((i) => (
+                <tr key={i.key} data-testid="queue-row" data-status={i.status} className={clsx(i.status === "overdue" && "bg-danger-50")}>
+                  <td className="whitespace-nowrap px-3 py-1.5"><span className="font-semibold">{dateText(i.dueAt, i.timeZone)}</span>{i.status !== "tested" ? <span className="ml-2 text-xs text-muted">{relativeDays(i.dueAt)}</span> : null}</td>
+                  <td className="px-3 py-1.5 font-mono">{i.ageDays} d</td>
+                  <td className="px-3 py-1.5"><StatusBadge status={i.status} /></td>
+                  <td className="px-3 py-1.5 font-mono">
+                    <Link href={`/projects/${i.projectId}/lab?placement=${i.placementId}`} className="font-semibold text-lichen-700 underline-offset-4 hover:underline">{i.setCode}</Link>
+                  </td>
+                  <td className="px-3 py-1.5">{i.projectName}</td>
+                  <td className="px-3 py-1.5">{i.placementElement}</td>
+                  <td className="px-3 py-1.5 font-mono">{i.mixCode ?? "—"}</td>
+                  <td className="whitespace-nowrap px-3 py-1.5">{dateTimeText(i.castAt, i.timeZone)}</td>
+                  <td className="px-3 py-1.5 text-right font-mono">{i.brokenCount}</td>
+                  <td className="whitespace-nowrap px-3 py-1.5 text-right font-mono">{strengthText(i.averageMPa, i.unitSystem)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+    </section>
+  );
+}

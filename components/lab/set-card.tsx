@@ -1,0 +1,80 @@
+"use client";
+
+import { OctagonAlert } from "lucide-react";
+import type { UnitSystem } from "@/lib/concrete";
+import { dueAt } from "@/lib/lab/due";
+import type { LabSetView } from "@/lib/lab/queries";
+import type { MixAcceptance } from "@/lib/lab/strength-tests";
+import { BreakForm } from "./break-form";
+import { StrengthAgeChart } from "./charts";
+import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";
+
+type Props = { projectId: string; set: LabSetView; unitSystem: UnitSystem; timeZone: string; canEnterBreaks: boolean; acceptance: MixAcceptance | null };
+
+/** One specimen set: its cylinders, breaks, strength tests, a strength-age chart and break entry. */
+export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreaks, acceptance }: Props) {
+  const lowSets = new Set(acceptance?.flags.filter((f) => f.kind === "individual").map((f) => f.setCode));
+  const low = lowSets.has(set.setCode);
+  return (
+    <article className="card p-4" data-testid="set-card" data-set={set.setCode}>
+      <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
+        <h3 className="font-mono text-lg font-bold">{set.setCode}</h3>
+        <span className="text-sm">{set.placement.element} · mix <span className="font-mono">{set.mixCode ?? "—"}</span></span>
+        <span className="text-sm text-muted">{set.count} cylinders {nominalCylinderText(set.cylinderDiameterMm, set.cylinderLengthMm, u)} · cast {dateTimeText(set.castAt, timeZone)}</span>
+        {low ? <span className="ml-auto inline-flex items-center gap-1 text-sm font-semibold text-danger-700" data-testid="set-low"><OctagonAlert className="h-4 w-4" aria-hidden="true" />Low strength test</span> : null}
+      </header>
+      <p className="mt-1 text-sm">Test ages: {[...set.testAgesDays].sort((a, b) => a - b).map((age) => `${age} d (due ${dateText(dueAt(new Date(set.castAt), age), timeZone)})`).join(" · ")}</p>
+      <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr]">
+        <div>
+          {set.breaks.length === 0 ? <p className="text-sm text-muted">No breaks yet.</p> : (
+            <table className="w-full text-left text-sm" data-testid="break-table">
+              <thead className="bg-ink-50 text-ink-700">
+                <tr><th className="px-2 py-1">Tested</th><th className="px-2 py-1">Age</th><th className="px-2 py-1 text-right">Load</th><th className="px-2 py-1">Size</th><th className="px-2 py-1">Fracture</th><th className="px-2 py-1 text-right">Strength</th></tr>
+              </thead>
+              <tbody className="divide-y divide-ink-100">
+                {set.breaks.map((b) => (
+                  <tr key={b.id} data-testid="break-row">
+                    <td className="whitespace-nowrap px-2 py-1">{dateTimeText(b.testedAt, timeZone)}</td>
+                    <td className="px-2 py-1 font-mono">{b.ageDays} d</td>
+                    <td className="px-2 py-1 text-right font-mono">{u === "SI" ? `${b.loadKN.toFixed(1)} kN` : `${Math.round(b.loadKN / 0.00444822162).toLocaleString("en-US")} lbf`}</td>
+                    <td className="px-2 py-1 font-mono text-xs">{cylinderText(b.diameterMm, b.lengthMm, u)}</td>
+                    <td className="px-2 py-1">{b.fractureType ? `Type ${b.fractureType}` : "—"}</td>
+                    <td className="px-2 py-1 text-right font-mono font-semibold">{strengthText(b.strengthMPa, u)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+          {set.tests.length > 0 ? (
+            <ul className="mt-2 text-sm" data-testid="set-tests">
+              {set.tests.map((t) => (
+                <li key={t.ageDays}>
+                  <strong>{t.ageDays} days:</strong>{" "}
+                  {acceptance && t.ageDays !== acceptance.mix.fcAgeDays ? (
+                    <>mean {strengthText(t.meanMPa, u)} of {t.cylindersMPa.length} cylinders <span className="text-muted">· not the design age ({acceptance.mix.fcAgeDays} d), not judged</span></>
+                  ) : t.averageMPa !== null ? (
+                    <>strength test {strengthText(t.averageMPa, u)} ({t.cylindersMPa.length} cylinders)</>
+                  ) : (
+                    <>mean {strengthText(t.meanMPa, u)} of {t.cylindersMPa.length} so far; {t.incompleteReason}</>
+                  )}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+        {set.breaks.length > 0 ? (
+          <StrengthAgeChart title="Strength against age" cylinders={set.breaks.map((b) => ({ ageDays: b.ageDays, strengthMPa: b.strengthMPa }))} fcMPa={acceptance?.mix.fcMPa ?? null} unitSystem={u} />
+        ) : null}
+      </div>
+      {canEnterBreaks ? (
+        <BreakForm
+          projectId={projectId}
+          set={{ id: set.id, castAt: set.castAt, cylinderDiameterMm: set.cylinderDiameterMm, cylinderLengthMm: set.cylinderLengthMm, testAgesDays: set.testAgesDays, testedAges: set.tests.map((t) => t.ageDays) }}
+          unitSystem={u}
+          timeZone={timeZone}
+          judge={acceptance ? { fcAgeDays: acceptance.mix.fcAgeDays, individualLimitMPa: acceptance.individualLimitMPa } : null}
+        />
+      ) : null}
+    </article>
+  );
+}

@@ -1,0 +1,109 @@
+// Server reads for the lab: a project's specimen sets with their breaks, strength tests and
+// acceptance per mix. Every read is scoped to a project the user may read (lib/auth).
+import { and, asc, eq, inArray, isNull } from "drizzle-orm";
+import { db } from "@/db";
+import { breaks, mixDesigns, placements, projects, specimenSets } from "@/db/schema";
+import { parseOrThrow } from "@/lib/api/handler";
+import { authorize } from "@/lib/auth/authorize";
+import { can } from "@/lib/auth/can";
+import type { SessionUser } from "@/lib/auth/options";
+import { notFound } from "@/lib/errors";
+import { assertUuid } from "@/lib/records/guards";
+import { acceptanceQuerySchema, setsQuerySchema } from "./schemas";
+import { mixAcceptance, strengthTests, type LabBreak, type LabSet, type MixAcceptance, type StrengthTestRow } from "./strength-tests";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+async function projectOrThrow(user: SessionUser, projectId: string) {
+  assertUuid(projectId, "Project");
+  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
+  if (!project) throw notFound("Project");
+  const role = await authorize(user, "project.read", projectId);
+  return { project, role };
+}
+
+type SetRow = LabSet & {
+  deliveryId: string | null;
+  cylinderLengthMm: number;
+  initialCuringMinC: number | null;
+  initialCuringMaxC: number | null;
+  version: number;
+  placement: { id: string; element: string; level: string; mixId: string | null; state: string };
+};
+
+async function loadProjectLab(projectId: string, placementId?: string) {
+  const conditions = [eq(specimenSets.projectId, projectId), isNull(specimenSets.deletedAt)];
+  if (placementId) conditions.push(eq(specimenSets.placementId, placementId));
+  const setRows = await db
+    .select({
+      set: specimenSets,
+      placement: { id: placements.id, element: placements.element, level: placements.level, mixId: placements.mixId, state: placements.state },
+    })
+    .from(specimenSets)
+    .innerJoin(placements, and(eq(placements.id, specimenSets.placementId), eq(placements.projectId, projectId)))
+    .where(and(...conditions))
+    .orderBy(asc(specimenSets.castAt), asc(specimenSets.setCode));
+  const sets: SetRow[] = setRows.map(({ set, placement }) => ({ ...set, castAt: set.castAt, placement }));
+  const setIds = sets.map((s) => s.id);
+  const breakRows: LabBreak[] = setIds.length
+    ? await db
+        .select()
+        .from(breaks)
+        .where(and(eq(breaks.projectId, projectId), inArray(breaks.specimenSetId, setIds), isNull(breaks.deletedAt)))
+        .orderBy(asc(breaks.testedAt), asc(breaks.id))
+    : [];
+  return { sets, breaks: breakRows };
+}
+
+async function projectMixes(projectId: string) {
+  return db
+    .select({ id: mixDesigns.id, code: mixDesigns.code, fcMPa: mixDesigns.fcMPa, fcAgeDays: mixDesigns.fcAgeDays })
+    .from(mixDesigns)
+    .where(and(eq(mixDesigns.projectId, projectId), isNull(mixDesigns.deletedAt)))
+    .orderBy(asc(mixDesigns.code));
+}
+
+export type LabSetView = SetRow & { mixCode: string | null; breaks: LabBreak[]; tests: StrengthTestRow[] };
+
+/** The specimen sets of a project (optionally of one placement) with their breaks and strength tests. */
+export async function getProjectSets(user: SessionUser, projectId: string, query: unknown) {
+  const q = parseOrThrow(setsQuerySchema, query ?? {});
+  const { project, role } = await projectOrThrow(user, projectId);
+  const [{ sets, breaks: breakRows }, mixes] = await Promise.all([loadProjectLab(projectId, q.placement), projectMixes(projectId)]);
+  const tests = strengthTests(sets, breakRows);
+  const mixCode = new Map(mixes.map((m) => [m.id, m.code]));
+  const views: LabSetView[] = sets.map((s) => ({
+    ...s,
+    mixCode: s.placement.mixId ? (mixCode.get(s.placement.mixId) ?? null) : null,
+    breaks: breakRows.filter((b) => b.specimenSetId === s.id),
+    tests: tests.filter((t) => t.setId === s.id),
+  }));
+  return {
+    project: { id: project.id, name: project.name, unitSystem: project.unitSystem, timeZone: project.timeZone },
+    canEnterBreaks: can(user, "break.write", role) || can(user, "record.correct", role),
+    sets: views,
+  };
+}
+
+/**
+ * ACI 318 acceptance per mix on one project: every mix that has specimen sets, or the one named
+ * by `mix` (its id or code). An unknown mix is a 404.
+ */
+export async function getProjectAcceptance(user: SessionUser, projectId: string, query: unknown): Promise<{ mixes: MixAcceptance[] }> {
+  const q = parseOrThrow(acceptanceQuerySchema, query ?? {});
+  const { project } = await projectOrThrow(user, projectId);
+  const [{ sets, breaks: breakRows }, allMixes] = await Promise.all([loadProjectLab(projectId), projectMixes(projectId)]);
+  let mixes = allMixes.filter((m) => sets.some((s) => s.placement.mixId === m.id));
+  if (q.mix) {
+    const wanted = allMixes.find((m) => (UUID.test(q.mix!) ? m.id === q.mix : m.code.toLowerCase() === q.mix!.toLowerCase()));
+    if (!wanted) throw notFound("Mix design");
+    mixes = [wanted];
+  }
+  return {
+    mixes: mixes.map((mix) => {
+      const mixSets = sets.filter((s) => s.placement.mixId === mix.id);
+      const ids = new Set(mixSets.map((s) => s.id));
+      return mixAcceptance(mix, strengthTests(mixSets, breakRows.filter((b) => ids.has(b.specimenSetId))), project.unitSystem);
+    }),
+  };
+}
