@@ -75,14 +75,14 @@ export function LabQueueTable() {
               {items.map((i) => (
                 <tr key={i.key} data-testid="queue-row" data-status={i.status} className={clsx(i.status === "overdue" && "bg-danger-50")}>
                   <td className="whitespace-nowrap px-3 py-1.5"><span className="font-semibold">{dateText(i.dueAt, i.timeZone)}</span>{i.status !== "tested" ? <span className="ml-2 text-xs text-muted">{relativeDays(i.dueAt)}</span> : null}</td>
-                  <td className="px-3 py-1.5 font-mono">{i.ageDays} d</td>
+                  <td className="whitespace-nowrap px-3 py-1.5 font-mono">{i.ageDays} d</td>
                   <td className="px-3 py-1.5"><StatusBadge status={i.status} /></td>
-                  <td className="px-3 py-1.5 font-mono">
+                  <td className="whitespace-nowrap px-3 py-1.5 font-mono">
                     <Link href={`/projects/${i.projectId}/lab?placement=${i.placementId}`} className="font-semibold text-lichen-700 underline-offset-4 hover:underline">{i.setCode}</Link>
                   </td>
                   <td className="px-3 py-1.5">{i.projectName}</td>
                   <td className="px-3 py-1.5">{i.placementElement}</td>
-                  <td className="px-3 py-1.5 font-mono">{i.mixCode ?? "—"}</td>
+                  <td className="whitespace-nowrap px-3 py-1.5 font-mono">{i.mixCode ?? "—"}</td>
                   <td className="whitespace-nowrap px-3 py-1.5">{dateTimeText(i.castAt, i.timeZone)}</td>
                   <td className="px-3 py-1.5 text-right font-mono">{i.brokenCount}</td>
                   <td className="whitespace-nowrap px-3 py-1.5 text-right font-mono">{strengthText(i.averageMPa, i.unitSystem)}</td>
