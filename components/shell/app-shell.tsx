@@ -1,7 +1,7 @@
 "use client";
 
 import clsx from "clsx";
-import { CalendarDays, FolderKanban, Gauge, HardHat, ShieldCheck } from "lucide-react";
+import { CalendarDays, FolderKanban, Gauge, HardHat, ShieldCheck, TableProperties } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
@@ -23,7 +23,10 @@ const NAV = [
 
 export function AppShell({ user, projects, children }: { user: ShellUser; projects: UserProject[]; children: React.ReactNode }) {
   const pathname = usePathname();
-  const nav = user.isAdmin ? [...NAV, { href: "/admin", label: "Admin", icon: ShieldCheck }] : NAV;
+  // The office review is for the roles that reconcile or read what the field sent.
+  const reviews = projects.some((p) => p.role === "office" || p.role === "inspector" || p.role === "owner");
+  const withReview = reviews ? [...NAV.slice(0, 3), { href: "/review", label: "Review", icon: TableProperties }, ...NAV.slice(3)] : NAV;
+  const nav = user.isAdmin ? [...withReview, { href: "/admin", label: "Admin", icon: ShieldCheck }] : withReview;
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
 
   return (
