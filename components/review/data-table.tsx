@@ -29,6 +29,7 @@ export function DataTable<T>({
   testId: string;
   busy?: boolean;
 }) {
+  // eslint-disable-next-line react-hooks/incompatible-library -- TanStack Table is the stack's table; this component is simply not compiler-memoized
   const table = useReactTable({
     data: rows,
     columns,
