@@ -1,0 +1,122 @@
+// The PDF daily report (GET /api/projects/{p}/reports/daily?date=): the PDF opens and its text,
+// extracted with unpdf (pdf.js), holds the project, the date, every placement of the day and every
+// warning; the references are the database rows themselves and the digest's own warning rules
+// (lib/digest summarizeDay), so the report cannot drift from the e-mail. Bad dates and outsiders
+// are refused.
+import { mkdirSync, writeFileSync } from "node:fs";
+import { and, eq, gte, isNull, lt } from "drizzle-orm";
+import { NextRequest } from "next/server";
+import { PDFDict, PDFDocument, PDFName } from "pdf-lib";
+import { extractText, getDocumentProxy } from "unpdf";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db";
+import { DEMO_IDS, DEMO_USERS, seedDemo } from "@/db/seed";
+import { placements, projects } from "@/db/schema";
+import * as reportRoute from "@/app/api/projects/[projectId]/reports/daily/route";
+import { loadDigestDay } from "@/lib/digest/load";
+import { localDayRange } from "@/lib/digest/schedule";
+import { summarizeDay } from "@/lib/digest/summary";
+import { callRoute, createUser, sessionCookie, type TestUser } from "./helpers";
+
+const LARKSPUR = DEMO_IDS.projects.larkspur;
+const DAY = "2026-11-17"; // the demo's hot, windy afternoon: a slump out of tolerance, a rejected load
+const office = DEMO_USERS.find((u) => u.email === "olu.office@example.test")! as TestUser;
+const owner = DEMO_USERS.find((u) => u.email === "oona.owner@example.test")! as TestUser;
+
+async function getReport(user: TestUser, date: string, projectId = LARKSPUR): Promise<Response> {
+  const req = new NextRequest(new URL(`/api/projects/${projectId}/reports/daily?date=${encodeURIComponent(date)}`, "http://localhost:3100"), {
+    headers: { cookie: await sessionCookie(user) },
+  });
+  return reportRoute.GET(req, { params: Promise.resolve({ projectId }) });
+}
+
+/** The PDF's text, every run of white space made one space (a wrapped line reads as one). */
+async function pdfText(bytes: Uint8Array): Promise<{ text: string; pages: number }> {
+  const pdf = await getDocumentProxy(new Uint8Array(bytes));
+  const { text, totalPages } = await extractText(pdf, { mergePages: true });
+  return { text: text.replace(/\s+/g, " "), pages: totalPages };
+}
+const flat = (s: string) => s.replace(/\s+/g, " ").trim();
+
+beforeAll(async () => {
+  await seedDemo(db);
+});
+
+describe("PDF daily report", () => {
+  it("holds the project, the date, every placement of the day and every warning", async () => {
+    const res = await getReport(office, DAY);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    expect(res.headers.get("content-disposition")).toMatch(/daily-report-.*2026-11-17\.pdf/);
+    const bytes = new Uint8Array(await res.arrayBuffer());
+    mkdirSync(".data", { recursive: true });
+    writeFileSync(".data/report-test.pdf", bytes); // for pdftoppm and a look
+
+    // The PDF opens (pdf-lib parses it back) and embeds our own fonts, not a standard 14 font.
+    const parsed = await PDFDocument.load(bytes);
+    expect(parsed.getPageCount()).toBeGreaterThan(0);
+    // Each font descriptor carries an embedded font program (FontFile2/FontFile3, PDF 32000-1 §9.9) of IBM Plex Mono.
+    const descriptors = parsed.context
+      .enumerateIndirectObjects()
+      .map(([, obj]) => obj)
+      .filter((obj): obj is PDFDict => obj instanceof PDFDict && obj.get(PDFName.of("Type")) === PDFName.of("FontDescriptor"));
+    expect(descriptors.length).toBe(2); // regular and semibold
+    for (const d of descriptors) {
+      expect(d.get(PDFName.of("FontFile2")) ?? d.get(PDFName.of("FontFile3"))).toBeDefined();
+      expect(String(d.get(PDFName.of("FontName")))).toMatch(/IBMPlexMono/);
+    }
+
+    const { text } = await pdfText(bytes);
+    const [project] = await db.select().from(projects).where(eq(projects.id, LARKSPUR));
+    expect(text).toContain(project.name);
+    expect(text).toContain(DAY);
+    expect(text).toContain("Tuesday, November 17, 2026"); // 2026-11-17 is a Tuesday [calendar]
+
+    // Every placement planned on the project-local day, straight from the table.
+    const range = localDayRange(DAY, project.timeZone);
+    const rows = await db
+      .select({ element: placements.element })
+      .from(placements)
+      .where(and(eq(placements.projectId, LARKSPUR), isNull(placements.deletedAt), gte(placements.plannedStart, range.start), lt(placements.plannedStart, range.end)));
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) expect(text).toContain(flat(r.element));
+
+    // Every warning the digest's rules raise for the day, by its title.
+    const warnings = summarizeDay(await loadDigestDay(LARKSPUR, DAY)).warnings;
+    expect(warnings.length).toBeGreaterThan(0);
+    expect(text).toContain(`Warnings (${warnings.length})`);
+    for (const w of warnings) expect(text).toContain(flat(w.title));
+  });
+
+  it("says so on a day with nothing recorded, for any member (the owner too)", async () => {
+    const res = await getReport(owner, "2026-03-02");
+    expect(res.status).toBe(200);
+    const { text } = await pdfText(new Uint8Array(await res.arrayBuffer()));
+    expect(text).toContain("Nothing was recorded for this project on this date.");
+    expect(text).toContain("No diary was written for this date.");
+    expect(text).toContain("Warnings (0)");
+  });
+
+  it("refuses a bad or missing date with a clear message", async () => {
+    for (const bad of ["2026-02-30", "17/11/2026", "", "2026-11-17T00:00"]) {
+      const r = await callRoute(reportRoute.GET, { user: office, url: `/api/projects/${LARKSPUR}/reports/daily?date=${encodeURIComponent(bad)}`, params: { projectId: LARKSPUR } });
+      expect(r.status, bad).toBe(400);
+      expect(r.json.error.code).toBe("invalid_input");
+      expect(r.json.error.message).toMatch(/date/i);
+    }
+    const missing = await callRoute(reportRoute.GET, { user: office, url: `/api/projects/${LARKSPUR}/reports/daily`, params: { projectId: LARKSPUR } });
+    expect(missing.status).toBe(400);
+    expect(missing.json.error.message).toMatch(/2026-11-17/);
+  });
+
+  it("refuses a user who is not a member, and a signed-out caller", async () => {
+    const outsider = await createUser();
+    const r = await callRoute(reportRoute.GET, { user: outsider, url: `/api/projects/${LARKSPUR}/reports/daily?date=${DAY}`, params: { projectId: LARKSPUR } });
+    expect(r.status).toBe(403);
+    expect(r.json.error.message).toMatch(/not a member/);
+    const anon = await callRoute(reportRoute.GET, { user: null, url: `/api/projects/${LARKSPUR}/reports/daily?date=${DAY}`, params: { projectId: LARKSPUR } });
+    expect(anon.status).toBe(401);
+    const notUuid = await callRoute(reportRoute.GET, { user: office, url: `/api/projects/nope/reports/daily?date=${DAY}`, params: { projectId: "nope" } });
+    expect([400, 404]).toContain(notUuid.status);
+  });
+});
