@@ -10,7 +10,7 @@ import { parseOrThrow } from "@/lib/api/handler";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { formatEvaporation, formatSpeed, formatTemperature } from "@/lib/concrete";
+import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { loadDigestDay } from "@/lib/digest/load";
 import { isLocalDate } from "@/lib/digest/schedule";
 import { summarizeDay } from "@/lib/digest/summary";
@@ -149,12 +149,13 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     const trucks = day.deliveries.filter((d) => d.placementId === p.id);
     const lines = summary.trucks.lines.filter((_, j) => day.deliveries[j].placementId === p.id);
     if (trucks.length) {
-      l.row(["Truck", "Volume", "Times", "Notes"], [0.26, 0.1, 0.4, 0.24], { bold: true, color: MUTED });
+      l.row(["Truck", "Volume", "Times", "Notes"], [0.22, 0.09, 0.45, 0.24], { bold: true, color: MUTED });
       lines.forEach((t) => {
         const notes = [t.late ? "LATE" : null, t.rejected ? `REJECTED: ${t.rejected}` : null, t.water].filter(Boolean).join("; ");
-        l.row([t.ticket, t.volume, t.times, notes || "-"], [0.26, 0.1, 0.4, 0.24], { color: t.rejected || t.late ? DANGER : undefined });
+        l.row([t.ticket, t.volume, t.times, notes || "-"], [0.22, 0.09, 0.45, 0.24], { color: t.rejected || t.late ? DANGER : undefined });
       });
-    } else l.text("No trucks recorded.", { color: MUTED, indent: 0 });
+    } else l.text("No trucks recorded.", { color: MUTED });
+    l.y -= 4;
 
     const tests = day.fieldTests.filter((t) => t.placementId === p.id);
     if (tests.length) {
@@ -164,7 +165,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
         l.row(
           [
             time(t.sampledAt),
-            t.slumpMm === null ? "-" : units === "SI" ? `${Math.round(t.slumpMm)} mm` : `${(t.slumpMm / 25.4).toFixed(2)} in`,
+            t.slumpMm === null ? "-" : formatLength(t.slumpMm, units, units === "SI" ? 0 : 1),
             t.airPct === null ? "-" : `${t.airPct.toFixed(1)} %`,
             t.concreteTempC === null ? "-" : formatTemperature(t.concreteTempC, units),
             ticket ? `Ticket ${ticket}` : "-",

@@ -3,15 +3,16 @@
 // warning; the references are the database rows themselves and the digest's own warning rules
 // (lib/digest summarizeDay), so the report cannot drift from the e-mail. Bad dates and outsiders
 // are refused.
+import { randomUUID } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { and, eq, gte, isNull, lt } from "drizzle-orm";
 import { NextRequest } from "next/server";
-import { PDFDict, PDFDocument, PDFName } from "pdf-lib";
+import { PDFDict, PDFDocument, PDFName, PDFRawStream } from "pdf-lib";
 import { extractText, getDocumentProxy } from "unpdf";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { DEMO_IDS, DEMO_USERS, seedDemo } from "@/db/seed";
-import { placements, projects } from "@/db/schema";
+import { placements, projects, signOffs } from "@/db/schema";
 import * as reportRoute from "@/app/api/projects/[projectId]/reports/daily/route";
 import { loadDigestDay } from "@/lib/digest/load";
 import { localDayRange } from "@/lib/digest/schedule";
@@ -86,6 +87,34 @@ describe("PDF daily report", () => {
     expect(warnings.length).toBeGreaterThan(0);
     expect(text).toContain(`Warnings (${warnings.length})`);
     for (const w of warnings) expect(text).toContain(flat(w.title));
+  });
+
+  it("lists a signature with the signer's typed name and draws the signature image", async () => {
+    const [placement] = await db
+      .select({ id: placements.id })
+      .from(placements)
+      .where(and(eq(placements.projectId, LARKSPUR), isNull(placements.deletedAt), gte(placements.plannedStart, new Date("2026-11-17T06:00:00Z")), lt(placements.plannedStart, new Date("2026-11-18T06:00:00Z"))));
+    const id = randomUUID();
+    // A 1 × 1 PNG (PNG spec, the smallest valid grayscale image) as the drawn signature.
+    const png = "data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=";
+    await db.insert(signOffs).values({
+      id, projectId: LARKSPUR, changeSeq: 9_000_000_000, recordType: "placements", recordId: placement.id, signerId: office.id, role: "office",
+      signedAt: new Date("2026-11-17T23:10:00Z"), typedName: "Olu Adeyemi (report test)", signatureImage: png, contentHash: "ab".repeat(32),
+    });
+    try {
+      const bytes = new Uint8Array(await (await getReport(office, DAY)).arrayBuffer());
+      const { text } = await pdfText(bytes);
+      expect(text).toContain("Olu Adeyemi (report test)");
+      expect(text).toContain("Signed Nov 17, 2026, 5:10 PM"); // 23:10 UTC is 17:10 CST (UTC-6) in Chicago [IANA tz]
+      const images = (await PDFDocument.load(bytes)).context
+        .enumerateIndirectObjects()
+        .filter(([, obj]) => obj instanceof PDFRawStream && obj.dict.get(PDFName.of("Subtype")) === PDFName.of("Image"));
+      // pdf-lib stores a PNG's alpha as a second image, the first one's /SMask (PDF 32000-1 §11.6.5.3).
+      const masks = new Set(images.map(([, obj]) => String((obj as PDFRawStream).dict.get(PDFName.of("SMask")))).filter((r) => r !== "undefined"));
+      expect(images.filter(([ref]) => !masks.has(String(ref))).length).toBe(1);
+    } finally {
+      await db.delete(signOffs).where(eq(signOffs.id, id));
+    }
   });
 
   it("says so on a day with nothing recorded, for any member (the owner too)", async () => {
