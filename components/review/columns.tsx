@@ -36,6 +36,7 @@ export function placementColumns(): ColumnDef<PlacementReviewRow>[] {
     {
       id: "element",
       header: P("element"),
+      meta: { wrap: true },
       cell: ({ row }) => {
         const r = row.original;
         return (

@@ -29,7 +29,7 @@ export function CheckMenu({
     <details className="group relative" data-testid={testId}>
       <summary className="flex cursor-pointer list-none flex-col gap-0.5 [&::-webkit-details-marker]:hidden">
         <span className="text-xs font-semibold text-ink-700">{label}</span>
-        <span className="inline-flex min-w-36 items-center justify-between gap-2 rounded-md border border-ink-300 bg-white px-2 py-1.5 text-sm">
+        <span className="inline-flex h-9 min-w-36 items-center justify-between gap-2 rounded-md border border-ink-300 bg-white px-2 text-sm">
           <span className="truncate">{summary}</span>
           <ChevronDown className="h-4 w-4 shrink-0 transition group-open:rotate-180" aria-hidden="true" />
         </span>
@@ -60,7 +60,7 @@ export function SmallDate({ label, value, onChange, testId }: { label: string; v
         data-testid={testId}
         value={value}
         onChange={(e) => onChange(e.target.value)}
-        className="rounded-md border border-ink-300 bg-white px-2 py-1 text-sm"
+        className="h-9 rounded-md border border-ink-300 bg-white px-2 text-sm"
       />
     </label>
   );
@@ -82,7 +82,7 @@ export function SmallSelect({
   return (
     <label className="flex flex-col gap-0.5">
       <span className="text-xs font-semibold text-ink-700">{label}</span>
-      <select data-testid={testId} value={value} onChange={(e) => onChange(e.target.value)} className="rounded-md border border-ink-300 bg-white px-2 py-1.5 text-sm">
+      <select data-testid={testId} value={value} onChange={(e) => onChange(e.target.value)} className="h-9 rounded-md border border-ink-300 bg-white px-2 text-sm">
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}

@@ -41,7 +41,7 @@ export function DataTable<T>({
   });
   return (
     <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-      <table data-testid={testId} aria-busy={busy || undefined} className={clsx("w-full border-collapse text-sm", busy && "opacity-60")}>
+      <table data-testid={testId} aria-busy={busy || undefined} className={clsx("w-full border-collapse text-[13px] leading-snug", busy && "opacity-60")}>
         <thead className="bg-ink-50 text-left text-xs uppercase tracking-wide text-ink-700">
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
@@ -56,7 +56,7 @@ export function DataTable<T>({
                     key={header.id}
                     scope="col"
                     aria-sort={active ? (sort.dir === "asc" ? "ascending" : "descending") : undefined}
-                    className={clsx("whitespace-nowrap border-b border-ink-200 px-2 py-2 font-semibold", align && "text-right")}
+                    className={clsx("whitespace-nowrap border-b border-ink-200 px-1.5 py-2 font-semibold", align && "text-right")}
                   >
                     {sortable ? (
                       <button
@@ -81,9 +81,10 @@ export function DataTable<T>({
           {table.getRowModel().rows.map((row) => (
             <tr key={row.id} data-testid={`${testId}-row`} className={clsx("border-b border-ink-100 hover:bg-lichen-50/50", rowClassName?.(row.original))}>
               {row.getVisibleCells().map((cell) => {
-                const align = (cell.column.columnDef.meta as { align?: string } | undefined)?.align === "right";
+                const meta = cell.column.columnDef.meta as { align?: string; wrap?: boolean } | undefined;
+                const align = meta?.align === "right";
                 return (
-                  <td key={cell.id} data-col={cell.column.id} className={clsx("whitespace-nowrap px-2 py-1.5 align-top", align && "text-right tabular-nums")}>
+                  <td key={cell.id} data-col={cell.column.id} className={clsx("px-1.5 py-1.5 align-top", meta?.wrap ? "min-w-[10rem] max-w-[15rem]" : "whitespace-nowrap", align && "text-right tabular-nums")}>
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 );

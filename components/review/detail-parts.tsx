@@ -37,7 +37,7 @@ export function MiniTable({ head, rows, testId }: { head: string[]; rows: { key:
           {rows.map((r) => (
             <tr key={r.key} className={clsx("border-b border-ink-100 align-top", r.tone === "danger" && "bg-danger-50", r.tone === "caution" && "bg-caution-50")}>
               {r.cells.map((c, i) => (
-                <td key={i} className="px-1.5 py-1">
+                <td key={i} className={clsx("px-1.5 py-1", i < r.cells.length - 1 && "whitespace-nowrap")}>
                   {c}
                 </td>
               ))}
@@ -55,7 +55,7 @@ export function Facts({ items }: { items: [string, React.ReactNode][] }) {
       {items.map(([k, v]) => (
         <div key={k} className="min-w-0">
           <dt className="text-xs font-semibold text-ink-600">{k}</dt>
-          <dd className="truncate text-ink-950">{v}</dd>
+          <dd className="break-words text-ink-950">{v}</dd>
         </div>
       ))}
     </dl>

@@ -8,7 +8,7 @@ import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-par
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
-import { formatEvaporation, formatLength, formatSpeed, formatTemperature, formatVolume, formatWaterVolume, formatDensity } from "@/lib/concrete/units";
+import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
@@ -84,7 +84,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
               </span>,
             ],
             ["Placed (accepted trucks)", formatVolume(deliveries.filter((d) => d.status !== "rejected").reduce((s, d) => s + Number(d.volumeM3), 0), units, 1)],
-            ["Mix", mix ? `${mix.code} · f'c ${mix.fcMPa} MPa at ${mix.fcAgeDays} d${mix.supplier ? ` · ${mix.supplier}` : ""}` : "—"],
+            ["Mix", mix ? `${mix.code} · f'c ${formatStrength(mix.fcMPa, units)} at ${mix.fcAgeDays} d${mix.supplier ? ` · ${mix.supplier}` : ""}` : "—"],
             ["Signed", p.signedAt ? dayTime.format(new Date(p.signedAt as string)) : "Not signed"],
           ]}
         />
