@@ -1,7 +1,9 @@
 // A small flowing layout over pdf-lib: wrapped text, headings, column rows and images, with new
-// pages as the cursor runs out. Fonts are the app's own IBM Plex Mono (WOFF from
-// @fontsource/ibm-plex-mono, converted to TrueType: the variable Plex Sans ships only as WOFF2,
-// which @pdf-lib/fontkit cannot subset into visible glyphs).
+// pages as the cursor runs out. Fonts are the app's own IBM Plex Mono, from the .woff files of
+// @fontsource/ibm-plex-mono. The app's IBM Plex Sans (@fontsource-variable) ships only WOFF2, which
+// @pdf-lib/fontkit cannot read; and @pdf-lib/fontkit 1.1.1 fails on these WOFF 1.0 files too
+// ("Trying to access beyond buffer length" while reading glyph boxes), so woff.ts unpacks them to
+// plain TrueType first, which it embeds and subsets correctly.
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
