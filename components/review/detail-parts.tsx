@@ -37,7 +37,7 @@ export function MiniTable({ head, rows, testId }: { head: string[]; rows: { key:
           {rows.map((r) => (
             <tr key={r.key} className={clsx("border-b border-ink-100 align-top", r.tone === "danger" && "bg-danger-50", r.tone === "caution" && "bg-caution-50")}>
               {r.cells.map((c, i) => (
-                <td key={i} className={clsx("px-1.5 py-1", i < r.cells.length - 1 && "whitespace-nowrap")}>
+                <td key={i} className={clsx("px-1.5 py-1", i < r.cells.length - 2 && "whitespace-nowrap")}>
                   {c}
                 </td>
               ))}
