@@ -5,14 +5,16 @@
 // are refused.
 import { randomUUID } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
-import { and, eq, gte, isNull, lt } from "drizzle-orm";
+import { PutObjectCommand } from "@aws-sdk/client-s3";
+import { and, eq, gte, inArray, isNull, lt } from "drizzle-orm";
 import { NextRequest } from "next/server";
 import { PDFDict, PDFDocument, PDFName, PDFRawStream } from "pdf-lib";
 import { extractText, getDocumentProxy } from "unpdf";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { DEMO_IDS, DEMO_USERS, seedDemo } from "@/db/seed";
-import { placements, projects, signOffs } from "@/db/schema";
+import { photos, placements, projects, signOffs } from "@/db/schema";
+import { bucket, s3 } from "@/lib/photos/storage";
 import * as reportRoute from "@/app/api/projects/[projectId]/reports/daily/route";
 import { loadDigestDay } from "@/lib/digest/load";
 import { localDayRange } from "@/lib/digest/schedule";
@@ -37,6 +39,8 @@ async function pdfText(bytes: Uint8Array): Promise<{ text: string; pages: number
   const { text, totalPages } = await extractText(pdf, { mergePages: true });
   return { text: text.replace(/\s+/g, " "), pages: totalPages };
 }
+// A 1 × 1 PNG (a valid image by the PNG specification: IHDR, IDAT, IEND).
+const PNG_1X1 = "data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=";
 const flat = (s: string) => s.replace(/\s+/g, " ").trim();
 
 beforeAll(async () => {
@@ -95,8 +99,7 @@ describe("PDF daily report", () => {
       .from(placements)
       .where(and(eq(placements.projectId, LARKSPUR), isNull(placements.deletedAt), gte(placements.plannedStart, new Date("2026-11-17T06:00:00Z")), lt(placements.plannedStart, new Date("2026-11-18T06:00:00Z"))));
     const id = randomUUID();
-    // A 1 × 1 PNG (PNG spec, the smallest valid grayscale image) as the drawn signature.
-    const png = "data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII=";
+    const png = PNG_1X1; // the drawn signature
     await db.insert(signOffs).values({
       id, projectId: LARKSPUR, changeSeq: 9_000_000_000, recordType: "placements", recordId: placement.id, signerId: office.id, role: "office",
       signedAt: new Date("2026-11-17T23:10:00Z"), typedName: "Olu Adeyemi (report test)", signatureImage: png, contentHash: "ab".repeat(32),
@@ -114,6 +117,40 @@ describe("PDF daily report", () => {
       expect(images.filter(([ref]) => !masks.has(String(ref))).length).toBe(1);
     } finally {
       await db.delete(signOffs).where(eq(signOffs.id, id));
+    }
+  });
+
+  it("draws a thumbnail of a stored photo and lists one whose bytes are gone without failing", async () => {
+    const [placement] = await db
+      .select({ id: placements.id })
+      .from(placements)
+      .where(and(eq(placements.projectId, LARKSPUR), isNull(placements.deletedAt), gte(placements.plannedStart, new Date("2026-11-17T06:00:00Z")), lt(placements.plannedStart, new Date("2026-11-18T06:00:00Z"))));
+    const png = Buffer.from(PNG_1X1.split(",")[1], "base64");
+    const stored = randomUUID();
+    const gone = randomUUID();
+    const key = `test/${stored}.png`;
+    await s3().send(new PutObjectCommand({ Bucket: bucket(), Key: key, Body: png, ContentType: "image/png" }));
+    const photo = (id: string, storageKey: string, caption: string, n: number) => ({
+      id, projectId: LARKSPUR, changeSeq: 9_000_000_100 + n, recordType: "placements", recordId: placement.id, caption,
+      takenAt: new Date("2026-11-17T21:00:00Z"), sha256: "cd".repeat(32), sizeBytes: png.length, contentType: "image/png", storageKey, storedAt: new Date("2026-11-17T21:05:00Z"),
+    });
+    await db.insert(photos).values([photo(stored, key, "Fogging at the deck edge (report test)", 1), photo(gone, `test/${gone}.png`, "Lost bytes (report test)", 2)]);
+    try {
+      const res = await getReport(office, DAY);
+      expect(res.status).toBe(200);
+      const bytes = new Uint8Array(await res.arrayBuffer());
+      writeFileSync(".data/report-photos.pdf", bytes); // for a look at the thumbnails
+      const { text } = await pdfText(bytes);
+      expect(text).toContain("Photos (2)");
+      expect(text).toContain("Fogging at the deck edge");
+      expect(text).toContain("Lost bytes (report test) (3:00 PM) (no thumbnail");
+      const images = (await PDFDocument.load(bytes)).context
+        .enumerateIndirectObjects()
+        .filter(([, obj]) => obj instanceof PDFRawStream && obj.dict.get(PDFName.of("Subtype")) === PDFName.of("Image"));
+      const masks = new Set(images.map(([, obj]) => String((obj as PDFRawStream).dict.get(PDFName.of("SMask")))).filter((r) => r !== "undefined"));
+      expect(images.filter(([ref]) => !masks.has(String(ref))).length).toBe(1); // the stored one only
+    } finally {
+      await db.delete(photos).where(inArray(photos.id, [stored, gone]));
     }
   });
 
