@@ -16,7 +16,7 @@ import { isLocalDate } from "@/lib/digest/schedule";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
 import { assertUuid } from "@/lib/records/guards";
-import { CAUTION, DANGER, Layout, MUTED, PAGE } from "./pdf-layout";
+import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE } from "./pdf-layout";
 
 export const reportDateSchema = z
   .string({ error: "Add ?date= with a date such as 2026-11-17" })
@@ -233,8 +233,13 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     if (col === 0) l.need(THUMB.height + 24);
     const scale = Math.min(THUMB.width / img.width, THUMB.height / img.height);
     const x = PAGE.margin + col * (THUMB.width + 12);
-    l.image(img, x, img.width * scale, img.height * scale);
-    const caption = l.wrap(label, THUMB.width, l.regular, 6)[0] ?? "";
+    // A frame of the thumbnail's box, so a pale photo still reads as one.
+    l.page.drawRectangle({ x, y: l.y - THUMB.height, width: THUMB.width, height: THUMB.height, borderColor: RULE, borderWidth: 0.5 });
+    const w = img.width * scale;
+    const h = img.height * scale;
+    l.page.drawImage(img, { x: x + (THUMB.width - w) / 2, y: l.y - (THUMB.height + h) / 2, width: w, height: h });
+    const lines = l.wrap(label, THUMB.width, l.regular, 6);
+    const caption = lines.length > 1 ? `${lines[0].replace(/.{0,3}$/, "")}...` : (lines[0] ?? "");
     l.page.drawText(caption, { x, y: l.y - THUMB.height - 9, size: 6, font: l.regular, color: MUTED });
     col += 1;
     if (col === THUMB.perRow) {

@@ -7,7 +7,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
-import { PDFDocument, rgb, type PDFFont, type PDFImage, type PDFPage } from "pdf-lib";
+import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import { woffToSfnt } from "./woff";
 
 const FONT_DIR = path.join(process.cwd(), "node_modules/@fontsource/ibm-plex-mono/files");
@@ -116,10 +116,6 @@ export class Layout {
       x += widths[i];
     });
     this.y -= h;
-  }
-
-  image(img: PDFImage, x: number, w: number, h: number) {
-    this.page.drawImage(img, { x, y: this.y - h, width: w, height: h });
   }
 
   /** Footer on every page: what the report is and the page number. */
