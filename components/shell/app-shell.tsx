@@ -1,7 +1,7 @@
 "use client";
 
 import clsx from "clsx";
-import { CalendarDays, FlaskConical, FolderKanban, Gauge, HardHat, ShieldCheck } from "lucide-react";
+import { CalendarDays, FlaskConical, FolderKanban, Gauge, HardHat, ShieldCheck, TableProperties } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
@@ -21,11 +21,19 @@ const NAV = [
   { href: "/tools/evaporation", label: "Calculator", icon: Gauge },
 ];
 
+/** Dense desktop tables: reached from the project page on a phone, not from the bottom bar. */
+const DESK_ONLY = new Set(["/review", "/lab"]);
+
 export function AppShell({ user, projects, children }: { user: ShellUser; projects: UserProject[]; children: React.ReactNode }) {
   const pathname = usePathname();
-  // The lab queue is for the people who make and break cylinders: office and inspector roles.
-  const labNav = projects.some((p) => p.role === "office" || p.role === "inspector") ? [...NAV, { href: "/lab", label: "Lab", icon: FlaskConical }] : NAV;
-  const nav = user.isAdmin ? [...labNav, { href: "/admin", label: "Admin", icon: ShieldCheck }] : labNav;
+  // The office review is for the roles that reconcile or read what the field sent; the lab queue
+  // for the people who make and break cylinders.
+  const roles = new Set(projects.map((p) => p.role));
+  const reviews = roles.has("office") || roles.has("inspector") || roles.has("owner");
+  const lab = roles.has("office") || roles.has("inspector");
+  const withReview = reviews ? [...NAV.slice(0, 3), { href: "/review", label: "Review", icon: TableProperties }, ...NAV.slice(3)] : NAV;
+  const withLab = lab ? [...withReview, { href: "/lab", label: "Lab", icon: FlaskConical }] : withReview;
+  const nav = user.isAdmin ? [...withLab, { href: "/admin", label: "Admin", icon: ShieldCheck }] : withLab;
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
 
   return (
@@ -63,7 +71,7 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
       <main className="mx-auto w-full max-w-7xl flex-1 px-3 pb-28 pt-4 md:pb-10 lg:px-6">{children}</main>
 
       {/* Phone: the main places sit under the thumb. */}
-      <BottomNav label="Main" items={nav} isActive={isActive} className="md:hidden" />
+      <BottomNav label="Main" items={nav.filter((item) => !DESK_ONLY.has(item.href))} isActive={isActive} className="md:hidden" />
     </div>
   );
 }

@@ -14,3 +14,4 @@ export * from "./signoffs";
 export * from "./sync";
 export * from "./sync-log";
 export * from "./digest";
+export * from "./review-views";

@@ -1,0 +1,85 @@
+// What the office sees of one placement: everything the field recorded (the sign-off snapshot's
+// records), the mix, the digest's warnings for this placement, sign-offs, amendments and conflicts.
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { db } from "@/db";
+import { amendments, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
+import { can } from "@/lib/auth/can";
+import { authorize } from "@/lib/auth/authorize";
+import type { SessionUser } from "@/lib/auth/options";
+import { loadDigestDay } from "@/lib/digest/load";
+import { localDate } from "@/lib/digest/schedule";
+import { summarizeDay } from "@/lib/digest/summary";
+import type { DigestDay } from "@/lib/digest/types";
+import { notFound } from "@/lib/errors";
+import { assertUuid } from "@/lib/records/guards";
+import { placementSnapshot } from "@/lib/signoff/snapshot";
+
+type Row = Record<string, unknown>;
+
+/** The digest's day, narrowed to one placement's records, so its warnings are that placement's. */
+export function dayForPlacement(day: DigestDay, placementId: string): DigestDay {
+  const mine = <T extends { placementId: string | null }>(rows: T[]) => rows.filter((r) => r.placementId === placementId);
+  const placement = [...day.placements, ...day.otherPlacements].filter((p) => p.id === placementId);
+  return {
+    ...day,
+    placements: placement,
+    otherPlacements: [],
+    deliveries: mine(day.deliveries),
+    fieldTests: mine(day.fieldTests),
+    weather: mine(day.weather),
+    specimenSets: mine(day.specimenSets),
+    breaks: mine(day.breaks),
+    diary: null,
+    photos: [],
+  };
+}
+
+export async function loadPlacementReview(user: SessionUser, projectId: string, placementId: string) {
+  assertUuid(projectId, "Project");
+  assertUuid(placementId, "Placement");
+  const role = await authorize(user, "project.read", projectId);
+  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
+  if (!project) throw notFound("Project");
+  const snapshot = await placementSnapshot(db, projectId, placementId);
+  const placement = snapshot.placement as Row | undefined;
+  if (!placement || placement.deletedAt) throw notFound("Placement");
+  const mixId = placement.mixId as string | null;
+  const [mix] = mixId ? await db.select().from(mixDesigns).where(and(eq(mixDesigns.id, mixId), eq(mixDesigns.projectId, projectId))) : [];
+  const [signatures, notes, conflictRows] = await Promise.all([
+    db
+      .select({ id: signOffs.id, role: signOffs.role, signedAt: signOffs.signedAt, typedName: signOffs.typedName, signerName: users.name, signatureImage: signOffs.signatureImage, contentHash: signOffs.contentHash })
+      .from(signOffs)
+      .leftJoin(users, eq(users.id, signOffs.signerId))
+      .where(and(eq(signOffs.projectId, projectId), eq(signOffs.recordType, "placements"), eq(signOffs.recordId, placementId)))
+      .orderBy(asc(signOffs.signedAt)),
+    db
+      .select({ id: amendments.id, what: amendments.what, why: amendments.why, createdAt: amendments.createdAt, authorName: users.name })
+      .from(amendments)
+      .leftJoin(users, eq(users.id, amendments.authorId))
+      .where(and(eq(amendments.projectId, projectId), eq(amendments.recordType, "placements"), eq(amendments.recordId, placementId)))
+      .orderBy(asc(amendments.createdAt)),
+    db
+      .select({ id: conflicts.id, recordType: conflicts.recordType, recordId: conflicts.recordId, reason: conflicts.reason, createdAt: conflicts.createdAt, resolvedAt: conflicts.resolvedAt, clientPayload: conflicts.clientPayload, serverPayload: conflicts.serverPayload })
+      .from(conflicts)
+      .where(and(eq(conflicts.projectId, projectId), inArray(conflicts.recordId, snapshot.recordIds)))
+      .orderBy(desc(conflicts.createdAt)),
+  ]);
+  const date = localDate(placement.plannedStart as Date, project.timeZone);
+  const warnings = summarizeDay(dayForPlacement(await loadDigestDay(projectId, date), placementId)).warnings.filter((w) => w.kind !== "cold");
+  const signed = placement.state === "signed";
+  return {
+    role,
+    canCorrect: !signed && can(user, "record.correct", role),
+    project,
+    date,
+    placement,
+    mix: mix ?? null,
+    children: snapshot.children,
+    photos: snapshot.photos,
+    signatures,
+    amendments: notes,
+    conflicts: conflictRows,
+    warnings,
+  };
+}
+export type PlacementReview = Awaited<ReturnType<typeof loadPlacementReview>>;
