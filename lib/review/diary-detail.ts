@@ -3,7 +3,7 @@
 // answered with `diary: null`, so the page can say it is missing.
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { diaryCrew, diaryDelays, diaryEntries, diaryEquipment, diaryVisitors, projects, users } from "@/db/schema";
+import { diaryCrew, diaryDelays, diaryEntries, diaryEquipment, diaryVisitors, photos, projects, users } from "@/db/schema";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { isLocalDate } from "@/lib/digest/schedule";
@@ -26,14 +26,19 @@ export async function loadDiaryReview(user: SessionUser, projectId: string, date
   const id = entry?.diary.id;
   const live = <T extends typeof diaryCrew | typeof diaryEquipment | typeof diaryDelays | typeof diaryVisitors>(t: T) =>
     and(eq(t.projectId, projectId), eq(t.diaryEntryId, id!), isNull(t.deletedAt));
-  const [crew, equipment, delays, visitors] = id
+  const [crew, equipment, delays, visitors, diaryPhotos] = id
     ? await Promise.all([
         db.select().from(diaryCrew).where(live(diaryCrew)).orderBy(asc(diaryCrew.createdAt)),
         db.select().from(diaryEquipment).where(live(diaryEquipment)).orderBy(asc(diaryEquipment.createdAt)),
         db.select().from(diaryDelays).where(live(diaryDelays)).orderBy(asc(diaryDelays.createdAt)),
         db.select().from(diaryVisitors).where(live(diaryVisitors)).orderBy(asc(diaryVisitors.createdAt)),
+        db
+          .select({ id: photos.id, caption: photos.caption, takenAt: photos.takenAt, storedAt: photos.storedAt })
+          .from(photos)
+          .where(and(eq(photos.projectId, projectId), eq(photos.recordType, "diary-entries"), eq(photos.recordId, id!), isNull(photos.deletedAt)))
+          .orderBy(asc(photos.takenAt), asc(photos.id)),
       ])
-    : [[], [], [], []];
+    : [[], [], [], [], []];
   const placements = await listReviewPlacements(user, placementListQuery.parse({ projects: projectId, from: date, to: date, sort: "date", dir: "asc", pageSize: "200" }));
   return {
     role,
@@ -44,6 +49,7 @@ export async function loadDiaryReview(user: SessionUser, projectId: string, date
     equipment,
     delays,
     visitors,
+    photos: diaryPhotos,
     placements: placements.rows,
   };
 }

@@ -1,4 +1,5 @@
-// The office enters a failing break on the lab page and sees the flag and the chart; the owner
+// The office goes from the review table (has warnings) to a placement and its specimens, enters a
+// failing break on the lab page and sees the flag and the chart; the owner
 // reads the same page without edit controls. Demo data: Larkspur Commons, podium west (LC-P2-A).
 import { expect, test, type Page } from "@playwright/test";
 import { DEMO, signIn } from "./support";
@@ -32,11 +33,29 @@ class LabPage {
   }
 }
 
-test("the office enters 28-day breaks that fail acceptance and sees the low-result flag and the charts", async ({ page }) => {
+test("the office filters to placements with warnings, opens one, enters 28-day breaks that fail acceptance and sees the low-result flag and the charts", async ({ page }) => {
   await page.setViewportSize({ width: 1440, height: 900 });
   await signIn(page, DEMO.olu);
   await expect(page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Lab" })).toBeVisible();
   const lab = new LabPage(page);
+  // From the review table: only placements with warnings; open the first, then its specimens.
+  await page.goto("/review");
+  const rows = page.getByTestId("placements-table").getByTestId("placements-table-row");
+  await expect(rows.first()).toBeVisible();
+  const filtered = page.waitForResponse((r) => r.url().includes("/api/review/placements") && r.url().includes("hasWarnings=1") && r.ok());
+  await page.getByTestId("placements-filter-warnings").selectOption("1");
+  await filtered;
+  await expect(rows.first().getByTestId("warned")).toBeVisible();
+  const warnedHref = (await rows.first().getByTestId("placement-link").getAttribute("href"))!;
+  const warnedId = warnedHref.split("/placements/")[1].split("/")[0];
+  await rows.first().getByTestId("placement-link").click();
+  await expect(page.getByTestId("placement-review")).toBeVisible();
+  await page.getByTestId("lab-link").click();
+  await expect(page).toHaveURL(new RegExp(`/projects/${LARKSPUR}/lab\\?placement=${warnedId}`));
+  await expect(page.getByTestId("placement-filter")).toBeVisible();
+  await expect(page.getByTestId("set-card").first()).toBeVisible();
+  // The warned placements' 28-day tests are not due yet in the demo data; the podium's west half
+  // (cast on Nov 4) is, so the office goes on to that placement's sets.
   await lab.open(PODIUM_WEST);
   await expect(page.getByTestId("placement-filter")).toBeVisible();
   const set = lab.set("LC-P2-A");

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { RecordPhotos } from "@/components/photos/record-photos";
+import { StoredPhotos } from "@/components/photos/stored-photos";
 import { AuditTrail } from "@/components/review/audit-trail";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
@@ -103,7 +103,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
       </Section>
       {diary ? (
         <Section title="Photos">
-          <RecordPhotos projectId={projectId} recordType="diary-entries" recordId={diary.id} canAdd={false} title="Diary photos" />
+          {data.photos.length ? <StoredPhotos projectId={projectId} photos={data.photos} /> : <Empty>No photos.</Empty>}
         </Section>
       ) : null}
     </div>

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { RecordPhotos } from "@/components/photos/record-photos";
+import { StoredPhotos, type StoredPhoto } from "@/components/photos/stored-photos";
 import { AuditTrail } from "@/components/review/audit-trail";
 import { Correction } from "@/components/review/correction";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
@@ -235,8 +235,8 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
       </Section>
 
       <Section title="Photos" count={data.photos.length} testId="section-photos">
-        {photoRecords.map(([type, id, title]) => (
-          <RecordPhotos key={id} projectId={projectId} recordType={type} recordId={id} canAdd={false} title={title} />
+        {photoRecords.map(([, id, title]) => (
+          <StoredPhotos key={id} projectId={projectId} title={title} photos={(data.photos as StoredPhoto[]).filter((ph) => (ph as unknown as R).recordId === id)} />
         ))}
         {data.photos.length === 0 ? <Empty>No photos.</Empty> : <p className="text-xs text-muted">{data.photos.length} photo{data.photos.length === 1 ? "" : "s"} attached to this placement&apos;s records.</p>}
       </Section>
