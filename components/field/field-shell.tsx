@@ -4,7 +4,7 @@
 // device's copy otherwise), the sync loop, a project switcher from the device database, and the
 // bottom navigation. Rendered by the static (field) layout, so it never asks the server for anything.
 import { BottomNav } from "@/components/shell/bottom-nav";
-import { CalendarDays, GitMerge, Gauge, LogIn, NotebookPen, UserRound } from "lucide-react";
+import { CalendarDays, ClipboardCheck, GitMerge, Gauge, LogIn, NotebookPen, UserRound } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useCallback, useEffect, useMemo, useState } from "react";
@@ -18,6 +18,7 @@ import { FieldContext, useProjects } from "./common";
 const NAV = [
   { href: "/field/today", label: "Today", icon: CalendarDays },
   { href: "/field/diary", label: "Diary", icon: NotebookPen },
+  { href: "/field/visits", label: "Visits", icon: ClipboardCheck },
   { href: "/tools/evaporation", label: "Calculator", icon: Gauge },
   { href: "/field/conflicts", label: "Conflicts", icon: GitMerge },
 ];

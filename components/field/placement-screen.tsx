@@ -17,6 +17,7 @@ import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@
 import { useSyncDb } from "@/lib/sync/client/react";
 import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
 import { HoldBanner } from "@/components/inspection/hold-banner";
+import { OpenFindings } from "@/components/findings/open-findings";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
 import { AuditTrail } from "@/components/signoff/audit-trail";
 import { PlacementSignOff } from "@/components/signoff/placement-sign-off";
@@ -159,6 +160,7 @@ export function PlacementScreen() {
         <p className="text-muted">{project.name}</p>
       </div>
       <HoldBanner placement={placement} project={project} />
+      <OpenFindings projectIds={[placement.projectId]} placementId={placement.id} title="Open findings on this placement" />
 
       <Section title="Plan" testId="placement-plan">
         <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-base">

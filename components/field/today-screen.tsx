@@ -7,6 +7,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { OpenFindings } from "@/components/findings/open-findings";
 import { formatLength, formatVolume } from "@/lib/concrete";
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import type { PlacementState } from "@/lib/records/enums";
@@ -91,6 +92,9 @@ export function TodayScreen() {
           onDone={() => setPlanning(null)}
         />
       ) : null}
+      <div className="mb-3">
+        <OpenFindings projectIds={shown.map((p) => p.id)} />
+      </div>
       {projects === undefined || rows === undefined ? (
         <p className="text-muted">Reading this device…</p>
       ) : projects.length === 0 ? (

@@ -15,3 +15,4 @@ export * from "./sync";
 export * from "./sync-log";
 export * from "./digest";
 export * from "./review-views";
+export * from "./site-visits";

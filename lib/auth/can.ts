@@ -28,6 +28,7 @@ export const ACTIONS = [
   "visit.write",
   "finding.answer",
   "finding.close",
+  "visit.sign",
   "amendment.write",
   "record.correct", // office correction of any unsigned record
   "digest.manage",
@@ -63,6 +64,7 @@ const INSPECTOR: Action[] = [
   "photo.add",
   "visit.write",
   "finding.close",
+  "visit.sign",
   "amendment.write",
 ];
 

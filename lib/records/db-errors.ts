@@ -9,6 +9,8 @@ export const SIGNED_SQLSTATE = "PW409";
 export const SIGNED_MESSAGE = "This placement is signed; add an amendment instead.";
 
 export const signedConflict = () => conflict(SIGNED_MESSAGE, { reason: "signed" });
+export const SIGNED_VISIT_MESSAGE = "This visit report is signed; add an amendment instead, or record new findings on a new visit.";
+export const signedVisitConflict = () => conflict(SIGNED_VISIT_MESSAGE, { reason: "signed" });
 
 type PgError = { code?: string; constraint?: string };
 
@@ -22,7 +24,10 @@ export function mapDbError(error: unknown, def?: RecordDef): unknown {
   if (error instanceof AppError) return error;
   const pg = pgError(error);
   if (!pg) return error;
-  if (pg.code === SIGNED_SQLSTATE) return def?.frozenBy === "record" ? conflict(PHOTO_SIGNED_MESSAGE, { reason: "signed" }) : signedConflict();
+  if (pg.code === SIGNED_SQLSTATE) {
+    if (def?.frozenBy === "record") return conflict(PHOTO_SIGNED_MESSAGE, { reason: "signed" });
+    return def?.frozenBy === "visit" || def?.frozenBy === "siteVisitId" ? signedVisitConflict() : signedConflict();
+  }
   if (pg.code === "23505") {
     if (def?.unique && pg.constraint === def.unique.index) {
       return new AppError("conflict", def.unique.message, { [def.unique.field]: def.unique.message }, { reason: "duplicate" });

@@ -14,3 +14,12 @@ export const CHECKLIST_KINDS = ["readiness", "hot-weather", "cold-weather"] as c
 export const CHECKLIST_ANSWERS = ["yes", "no", "na"] as const;
 export const STRENGTH_AGES_DAYS = [28, 56] as const;
 export const CYLINDER_DIAMETERS_MM = [100, 150] as const;
+
+// The inspection log (site visits and their findings, lib/site-visits).
+export const SITE_VISIT_STATES = ["draft", "submitted", "signed"] as const;
+export type SiteVisitState = (typeof SITE_VISIT_STATES)[number];
+export const FINDING_STATES = ["open", "answered", "closed"] as const;
+export type FindingState = (typeof FINDING_STATES)[number];
+/** Our own plain words: minor (fix in the normal course), major (fix before work continues there), critical (stop that work now). */
+export const FINDING_SEVERITIES = ["minor", "major", "critical"] as const;
+export type FindingSeverity = (typeof FINDING_SEVERITIES)[number];

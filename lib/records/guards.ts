@@ -4,6 +4,7 @@ import type { Executor } from "@/db";
 import { amendments, checklists, placements } from "@/db/schema";
 import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { conflict, invalidInput, notFound } from "@/lib/errors";
+import { assertVisitNotSigned } from "@/lib/site-visits/freeze";
 import { signedConflict } from "./db-errors";
 import { getRecordDef, type RecordDef } from "./registry";
 import type { RecordRow } from "./types";
@@ -39,26 +40,29 @@ export async function checkLinks(
 ): Promise<void> {
   const links = [def.parent, ...(def.refs ?? [])].filter((link) => link !== undefined);
   for (const link of links) {
-    const id = values[link.field];
-    if (id === undefined || id === null) continue;
-    const target = getRecordDef(link.type);
-    const [row] = await tx
-      .select()
-      .from(target.table)
-      .where(and(eq(target.table.id, id as string), eq(target.table.projectId, projectId)))
-      .for("share");
-    const name = target.label.toLowerCase();
-    if (!row) {
-      const message = `There is no ${name} with this id on this project`;
-      throw invalidInput(message, { [link.field]: message });
-    }
-    if ((row as RecordRow).deletedAt) {
-      const message = `That ${name} was deleted`;
-      throw invalidInput(message, { [link.field]: message });
-    }
-    if (link.samePlacement && (row as RecordRow).placementId !== record.placementId) {
-      const message = `That ${name} belongs to another placement`;
-      throw invalidInput(message, { [link.field]: message });
+    const value = values[link.field];
+    // A list of links (a visit's placements) is checked one id at a time.
+    for (const id of Array.isArray(value) ? value : [value]) {
+      if (id === undefined || id === null) continue;
+      const target = getRecordDef(link.type);
+      const [row] = await tx
+        .select()
+        .from(target.table)
+        .where(and(eq(target.table.id, id as string), eq(target.table.projectId, projectId)))
+        .for("share");
+      const name = target.label.toLowerCase();
+      if (!row) {
+        const message = `There is no ${name} with this id on this project`;
+        throw invalidInput(message, { [link.field]: message });
+      }
+      if ((row as RecordRow).deletedAt) {
+        const message = `That ${name} was deleted`;
+        throw invalidInput(message, { [link.field]: message });
+      }
+      if (link.samePlacement && (row as RecordRow).placementId !== record.placementId) {
+        const message = `That ${name} belongs to another placement`;
+        throw invalidInput(message, { [link.field]: message });
+      }
     }
   }
   if (def.target) await checkTarget(tx, def, projectId, values);
@@ -128,6 +132,7 @@ async function freezingPlacementId(tx: Executor, def: RecordDef, row: Record<str
  * The database trigger refuses the same changes; this check gives the friendly answer first.
  */
 export async function assertNotSigned(tx: Executor, def: RecordDef, row: Record<string, unknown>): Promise<void> {
+  if (def.frozenBy === "visit" || def.frozenBy === "siteVisitId") return assertVisitNotSigned(tx, def.frozenBy, row);
   if (def.frozenBy === "self" && row.state === "signed") throw signedConflict();
   if (def.frozenBy === "record") {
     const placementId = await freezingPlacementId(tx, def, row);

@@ -16,6 +16,8 @@ export const RECORD_TYPES = [
   "diary-equipment",
   "diary-delays",
   "diary-visitors",
+  "site-visits",
+  "findings",
   "photos",
 ] as const;
 export type RecordType = (typeof RECORD_TYPES)[number];

@@ -44,8 +44,11 @@ export type RecordDef = {
   parent?: Link;
   /** Other records it may point at (same project). */
   refs?: Link[];
-  /** How to find the placement whose signature freezes this record. */
-  frozenBy: "self" | "placementId" | "checklist" | "record" | null;
+  /**
+   * How to find the placement whose signature freezes this record; "visit" / "siteVisitId": the
+   * signed visit report that freezes it (lib/site-visits/freeze.ts).
+   */
+  frozenBy: "self" | "placementId" | "checklist" | "record" | "visit" | "siteVisitId" | null;
   /**
    * A link whose type is itself a field (photos: recordType + recordId): the target must exist in
    * the same project and not be deleted; deleting the target tombstones this record too.
@@ -282,6 +285,35 @@ const DEFS: Record<RecordType, RecordDef> = {
     dateField: "createdAt",
     dateKind: "instant",
     mergeable: [],
+  },
+  "site-visits": {
+    type: "site-visits",
+    label: "Site visit",
+    table: t.siteVisits,
+    create: s.siteVisitCreateSchema,
+    update: s.siteVisitUpdateSchema,
+    action: "visit.write",
+    refs: [{ field: "placementIds", type: "placements" }],
+    frozenBy: "visit",
+    dateField: "visitDate",
+    dateKind: "date",
+    mergeable: ["arrivedAt", "leftAt"],
+  },
+  findings: {
+    type: "findings",
+    label: "Finding",
+    table: t.findings,
+    create: s.findingCreateSchema,
+    update: s.findingUpdateSchema,
+    action: "visit.write",
+    parent: { field: "siteVisitId", type: "site-visits" },
+    refs: [placementLink],
+    frozenBy: "siteVisitId",
+    dateField: "createdAt",
+    dateKind: "instant",
+    mergeable: ["severity", "dueDate"],
+    deleteBlocked: (row) =>
+      row.state === "open" && !row.answeredAt ? null : "This finding has been answered; close it (or reopen it) instead of deleting it.",
   },
   photos: {
     type: "photos",

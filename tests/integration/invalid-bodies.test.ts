@@ -79,6 +79,14 @@ const FIELDS: Record<RecordType, Record<string, Field>> = {
   "diary-equipment": { diaryEntryId: parent(), name: req(text(80)), count: nul(num(0, 100, true)), hours: nul(num(0, 1_000)) },
   "diary-delays": { diaryEntryId: parent(), cause: req(text(80)), minutes: req(num(0, 1_440, true)), description: opt(text(1_000)) },
   "diary-visitors": { diaryEntryId: parent(), name: req(text(120)), company: opt(text(120)), purpose: opt(text(300)) },
+  "site-visits": {
+    visitDate: req({ k: "date" }), arrivedAt: nul({ k: "instant" }), leftAt: nul({ k: "instant" }), areasInspected: opt(text(2_000)),
+    elementsInspected: opt(text(2_000)), testsWitnessed: opt(text(2_000)), weather: opt(text(300)), notes: opt(text(5_000)),
+  },
+  findings: {
+    siteVisitId: parent(), placementId: nul({ k: "id" }), description: req(text(2_000)), location: opt(text(200)),
+    severity: req({ k: "enum", values: ["minor", "major", "critical"] }), requirement: opt(text(300)), actionRequired: opt(text(2_000)), dueDate: nul({ k: "date" }),
+  },
   photos: {
     recordType: { k: "enum", values: ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries", "amendments"], required: true, createOnly: true },
     recordId: parent(), caption: opt(text(500)), takenAt: { k: "instant", nullable: true, createOnly: true },
@@ -172,6 +180,7 @@ const CROSS: Partial<Record<RecordType, { body: Record<string, unknown>; field: 
   ],
   "specimen-sets": [{ body: { initialCuringMinC: 25, initialCuringMaxC: 20 }, field: "initialCuringMaxC" }],
   "field-tests": [{ body: { slumpMm: null, airPct: null, concreteTempC: null, densityKgM3: null }, field: "slumpMm" }],
+  "site-visits": [{ body: { arrivedAt: "2026-11-16T10:00:00-06:00", leftAt: "2026-11-16T09:00:00-06:00" }, field: "leftAt" }],
 };
 
 const WATCHED = [...RECORD_TYPES.map((type) => getTableName(getRecordDef(type).table)), "audit_entries", "project_change_counters"];

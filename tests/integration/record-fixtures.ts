@@ -27,6 +27,8 @@ export const WRITER: Record<RecordType, ProjectRole> = {
   "diary-equipment": "superintendent",
   "diary-delays": "superintendent",
   "diary-visitors": "superintendent",
+  "site-visits": "inspector",
+  findings: "inspector",
   photos: "superintendent",
 };
 
@@ -47,6 +49,8 @@ export const WRITERS: Record<RecordType, ProjectRole[]> = {
   "diary-equipment": ["superintendent", "office"],
   "diary-delays": ["superintendent", "office"],
   "diary-visitors": ["superintendent", "office"],
+  "site-visits": ["inspector", "office"],
+  findings: ["inspector", "office"],
   // "photo.add" (lib/auth/can): the field and the office; owners only view.
   photos: ["superintendent", "inspector", "office"],
 };
@@ -72,6 +76,7 @@ const PARENT_TYPE: Partial<Record<RecordType, { field: string; type: RecordType 
   "diary-equipment": { field: "diaryEntryId", type: "diary-entries" },
   "diary-delays": { field: "diaryEntryId", type: "diary-entries" },
   "diary-visitors": { field: "diaryEntryId", type: "diary-entries" },
+  findings: { field: "siteVisitId", type: "site-visits" },
   // A photo points at any record by type and id; the fixtures use a delivery.
   photos: { field: "recordId", type: "deliveries" },
 };
@@ -113,6 +118,10 @@ export function validBody(type: RecordType, parentId?: string): Record<string, u
       return { ...link, id, cause: "Late truck", minutes: 35, description: "Truck 4 stuck at the rail crossing" };
     case "diary-visitors":
       return { ...link, id, name: "R. Quill", company: "Fenwick Hollow Materials Lab", purpose: "Cylinder pick-up" };
+    case "site-visits":
+      return { id, visitDate: "2026-11-16", arrivedAt: at(0), leftAt: at(150), areasInspected: "Podium, grid A-D/1-4", elementsInspected: "Slab reinforcement", testsWitnessed: "", weather: "Overcast, 8 °C", notes: "" };
+    case "findings":
+      return { ...link, id, description: "Bottom bar cover 25 mm where 40 mm is specified", location: "Grid C/3", severity: "major", requirement: "Spec 03 30 00 §3.2; S-201 note 4", actionRequired: "Raise the chairs and show me before the pour", dueDate: "2026-11-17" };
     case "photos":
       return { ...link, id, recordType: "deliveries", caption: "Slump cone, truck B-17", takenAt: at(40), sha256: "ab".repeat(32), sizeBytes: 412_345, contentType: "image/jpeg" };
   }
@@ -135,6 +144,8 @@ export const PATCHES: Record<RecordType, Record<string, unknown>> = {
   "diary-equipment": { hours: 7.5 },
   "diary-delays": { minutes: 40 },
   "diary-visitors": { purpose: "Audit of the curing box" },
+  "site-visits": { notes: "Pre-pour walk with the superintendent", leftAt: at(180) },
+  findings: { severity: "critical", location: "Grid C/3 to C/4" },
   photos: { caption: "Slump cone, truck B-17, after the water addition" },
 };
 

@@ -26,6 +26,7 @@ const TABLE: Record<Action, string> = {
   "visit.write": "I",
   "finding.answer": "S",
   "finding.close": "I",
+  "visit.sign": "I",
   "amendment.write": "IO",
   "record.correct": "O",
   "digest.manage": "O",

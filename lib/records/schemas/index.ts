@@ -8,4 +8,5 @@ export * from "./weather";
 export * from "./checklist";
 export * from "./curing";
 export * from "./diary";
+export * from "./site-visits";
 export * from "./photo";

@@ -118,10 +118,13 @@ export class SyncDb extends Dexie {
       projects: "id",
       blobs: "id, uploadState, recordId",
     };
-    for (const type of LOCAL_RECORD_TYPES) if (type !== "photos") stores[tableNameOf(type)] = storeSpec(type);
+    const later: RecordType[] = ["photos", "site-visits", "findings"];
+    for (const type of LOCAL_RECORD_TYPES) if (!later.includes(type)) stores[tableNameOf(type)] = storeSpec(type);
     this.version(1).stores(stores);
     // 2: photo metadata as a synced record type (the bytes stay in `blobs`).
     this.version(2).stores({ [tableNameOf("photos")]: storeSpec("photos") });
+    // 3: the inspection log (site visits and their findings).
+    this.version(3).stores({ [tableNameOf("site-visits")]: storeSpec("site-visits"), [tableNameOf("findings")]: storeSpec("findings") });
   }
 
   /** The table of a record type. */

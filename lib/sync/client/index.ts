@@ -15,6 +15,7 @@ export {
   type DeviceIdentity,
 } from "./db";
 export { createLocal, updateLocal, deleteLocal, transitionLocal, resolveConflictLocal, newRecordId, transitionArgsSchema, type WriteResult } from "./mutate";
+export { transitionSiteRecordLocal } from "./site-visits";
 export { LocalWriteError, LocalValidationError, isLocalWriteError, type LocalErrorCode } from "./errors";
 export { getRecord, listByProject, listByParent, listProjects, listOutbox, listConflicts, dismissRejection, readSyncSummary, countUnsynced, type SyncSummary } from "./queries";
 export { LOCAL_TYPES, LOCAL_RECORD_TYPES, tableNameOf, localDef, isLocalRecordType, type RecordType, type ParentField } from "./record-types";

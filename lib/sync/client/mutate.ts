@@ -18,6 +18,7 @@ import { z } from "zod";
 import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { describeAllowed, findTransition, rolesFor, type PlacementState } from "@/lib/placements/workflow";
+import { assertVisitNotSigned } from "./site-visits";
 import { getMeta, setMeta, type LocalRecord, type OutboxEntry, type SyncDb } from "./db";
 import { LocalWriteError, validationError } from "./errors";
 import { isLocalRecordType, localDef, type RecordType } from "./record-types";
@@ -60,7 +61,7 @@ function parseOrThrow<T>(schema: z.ZodType<T>, input: unknown): T {
 }
 
 /** Takes the next mutation id and queues the entry (inside the caller's transaction). */
-async function appendEntry(
+export async function appendEntry(
   db: SyncDb,
   entry: Pick<OutboxEntry, "name" | "recordType" | "projectId" | "recordId" | "args" | "baseVersion">,
 ): Promise<number> {
@@ -81,12 +82,12 @@ async function appendEntry(
 }
 
 /** The base version of a new change: the acknowledged version, or none when a change is still waiting. */
-function baseVersionFor(row: LocalRecord, waiting: readonly OutboxEntry[]): number | undefined {
+export function baseVersionFor(row: LocalRecord, waiting: readonly OutboxEntry[]): number | undefined {
   if (waiting.length > 0) return undefined;
   return row.version >= 1 ? row.version : undefined;
 }
 
-async function loadLive(db: SyncDb, type: RecordType, id: string): Promise<LocalRecord> {
+export async function loadLive(db: SyncDb, type: RecordType, id: string): Promise<LocalRecord> {
   const def = localDef(type);
   const row = await db.records(type).get(id);
   if (!row) throw new LocalWriteError("not_found", `${def.label} not found on this device.`);
@@ -116,6 +117,7 @@ async function freezingPlacement(db: SyncDb, type: RecordType, values: Record<st
 }
 
 async function assertNotSigned(db: SyncDb, type: RecordType, values: Record<string, unknown>) {
+  if (type === "site-visits" || type === "findings") return assertVisitNotSigned(db, type, values);
   const placement = await freezingPlacement(db, type, values);
   if (placement?.state === "signed") {
     if (type === "photos") throw new LocalWriteError("signed", PHOTO_SIGNED_MESSAGE);
@@ -123,7 +125,7 @@ async function assertNotSigned(db: SyncDb, type: RecordType, values: Record<stri
   }
 }
 
-function writeTx<T>(db: SyncDb, fn: () => Promise<T>): Promise<T> {
+export function writeTx<T>(db: SyncDb, fn: () => Promise<T>): Promise<T> {
   return db.transaction("rw", db.syncTables(), fn);
 }
 
@@ -167,6 +169,7 @@ const PARENT_TYPES: Record<NonNullable<ReturnType<typeof localDef>["parentField"
   diaryEntryId: "diary-entries",
   checklistId: "checklists",
   specimenSetId: "specimen-sets",
+  siteVisitId: "site-visits",
 };
 
 /** The fields of a stored row the create schema knows (the sync bookkeeping left out). */

@@ -12,7 +12,7 @@ import * as s from "@/lib/records/schemas";
 export type { RecordType };
 
 /** Fields by which a child record points at its parent (all indexed locally). */
-export type ParentField = "placementId" | "diaryEntryId" | "checklistId" | "specimenSetId";
+export type ParentField = "placementId" | "diaryEntryId" | "checklistId" | "specimenSetId" | "siteVisitId";
 
 export type LocalTypeDef = {
   type: RecordType;
@@ -178,6 +178,55 @@ export const LOCAL_TYPES: Record<RecordType, LocalTypeDef> = {
     parentField: "diaryEntryId",
     indexes: [],
     defaults: { company: "", purpose: "" },
+  }),
+  "site-visits": def({
+    type: "site-visits",
+    table: "siteVisits",
+    label: "Site visit",
+    create: s.siteVisitCreateSchema,
+    update: s.siteVisitUpdateSchema,
+    indexes: ["[projectId+visitDate]", "state"],
+    defaults: {
+      arrivedAt: null,
+      leftAt: null,
+      areasInspected: "",
+      elementsInspected: "",
+      testsWitnessed: "",
+      weather: "",
+      notes: "",
+      placementIds: [],
+      state: "draft",
+      submittedAt: null,
+      signedAt: null,
+      signedBy: null,
+    },
+  }),
+  findings: def({
+    type: "findings",
+    table: "findings",
+    label: "Finding",
+    create: s.findingCreateSchema,
+    update: s.findingUpdateSchema,
+    parentField: "siteVisitId",
+    // placementId: the placement a finding holds up (shown on that placement's screen).
+    indexes: ["placementId", "state"],
+    defaults: {
+      placementId: null,
+      location: "",
+      requirement: "",
+      actionRequired: "",
+      dueDate: null,
+      state: "open",
+      response: null,
+      answeredAt: null,
+      answeredBy: null,
+      closedAt: null,
+      closedBy: null,
+      closeNote: null,
+      reopenedAt: null,
+      reopenedBy: null,
+      reopenReason: null,
+    },
   }),
   // Photo metadata; the bytes wait in the `blobs` table and go through the photo lane (lib/photos/client).
   // storageKey and storedAt are the server's: null until a pull brings them.

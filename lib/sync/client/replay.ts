@@ -4,6 +4,7 @@
 import type { SyncedRecord } from "@/lib/sync/protocol";
 import type { LocalRecord, OutboxEntry, SyncDb } from "./db";
 import { localDef, type RecordType } from "./record-types";
+import { applyLifecycleEntry } from "./site-visits-replay";
 
 /** The wire form of values: dates as ISO strings, no undefined (what JSON would carry). */
 export function toWire<T>(value: T): T {
@@ -60,6 +61,7 @@ export function applyEntry(row: SyncedRecord | undefined, entry: OutboxEntry, us
     }
     case "transition": {
       if (!row) return undefined;
+      if (entry.recordType === "site-visits" || entry.recordType === "findings") return applyLifecycleEntry(row, entry, userId);
       const to = entry.args.to as string;
       const reason = (entry.args.reason as string | undefined) ?? null;
       return { ...row, state: to, holdReason: to === "held" ? reason : null, updatedAt: entry.createdAt, updatedBy: userId };

@@ -13,6 +13,7 @@ import { transitionPlacement } from "@/lib/placements/transition";
 import { getRecord } from "@/lib/records/read";
 import type { RecordContext, RecordRow } from "@/lib/records/types";
 import { createRecord, deleteRecord, updateRecord } from "@/lib/records/write";
+import { transitionSiteRecord } from "@/lib/site-visits/transition";
 import type { Mutation, MutationOutcome } from "../protocol";
 
 export type Applied = {
@@ -38,7 +39,10 @@ async function write(ctx: RecordContext, m: Mutation): Promise<RecordRow> {
     case "delete":
       return deleteRecord(ctx, m.recordType, m.projectId, m.recordId, { baseVersion: m.baseVersion });
     case "transition":
-      if (m.recordType !== "placements") throw new AppError("invalid_input", "Only placements change state.");
+      if (m.recordType === "site-visits" || m.recordType === "findings") {
+        return transitionSiteRecord(ctx, m.recordType, m.projectId, m.recordId, { ...m.args, baseVersion: m.baseVersion ?? 1 }, { fromSync: true });
+      }
+      if (m.recordType !== "placements") throw new AppError("invalid_input", "Only placements, visit reports and findings change state.");
       return transitionPlacement(ctx, m.projectId, m.recordId, { ...m.args, baseVersion: m.baseVersion });
     case "resolve":
       return resolveConflict(ctx, m);

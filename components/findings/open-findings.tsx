@@ -1,0 +1,51 @@
+"use client";
+
+// Findings still needing work (open or answered), from this device's copy: on Today (by project)
+// and on the placement they hold up. Each links to its visit report.
+import { useLiveQuery } from "dexie-react-hooks";
+import Link from "next/link";
+import { Notice } from "@/components/ui/notice";
+import { Section, str } from "@/components/field/common";
+import { FINDING_STATE_LABELS, isOutstanding } from "@/lib/site-visits/lifecycle";
+import type { FindingState } from "@/lib/records/enums";
+import { listByProject, type LocalRecord } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+
+const SEVERITY_ORDER: Record<string, number> = { critical: 0, major: 1, minor: 2 };
+
+export function useOpenFindings(projectIds: string[], placementId?: string): LocalRecord[] | undefined {
+  const db = useSyncDb();
+  const key = projectIds.join(",");
+  return useLiveQuery(async () => {
+    const rows = (await Promise.all(projectIds.map((id) => listByProject(db, "findings", id)))).flat();
+    return rows
+      .filter((f) => !f.deletedAt && isOutstanding(f.state) && (!placementId || f.placementId === placementId))
+      .sort((a, b) => (SEVERITY_ORDER[str(a.severity)] ?? 9) - (SEVERITY_ORDER[str(b.severity)] ?? 9) || str(a.dueDate).localeCompare(str(b.dueDate)));
+  }, [db, key, placementId]);
+}
+
+export function OpenFindings({ projectIds, placementId, title = "Open findings" }: { projectIds: string[]; placementId?: string; title?: string }) {
+  const rows = useOpenFindings(projectIds, placementId);
+  if (!rows || rows.length === 0) return null;
+  return (
+    <Section title={title} testId="open-findings">
+      {placementId ? (
+        <Notice tone="caution" title="The inspector's findings hold up this placement" className="mb-3">
+          Work them out with the inspector; the project specifications and the engineer of record decide what conforms.
+        </Notice>
+      ) : null}
+      <ul className="flex flex-col gap-2">
+        {rows.map((f) => (
+          <li key={f.id}>
+            <Link href={`/field/visit?id=${str(f.siteVisitId)}#finding-${f.id}`} className="block rounded border border-ink-200 p-3 hover:bg-ink-50" data-testid="open-finding">
+              <span className="font-semibold text-ink-950">{str(f.description)}</span>
+              <span className="block text-sm text-muted">
+                {[str(f.severity), FINDING_STATE_LABELS[str(f.state) as FindingState], str(f.location), f.dueDate ? `due ${str(f.dueDate)}` : ""].filter(Boolean).join(" · ")}
+              </span>
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </Section>
+  );
+}

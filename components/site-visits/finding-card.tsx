@@ -1,0 +1,109 @@
+"use client";
+
+// One finding: what does not conform, where, how serious, the requirement, the action and its due
+// date; the superintendent's answer; the inspector's close or reopen. The buttons shown are the moves
+// lib/site-visits/lifecycle allows this role (the server checks again).
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { formatDateTime, str, writeErrorOf } from "@/components/field/common";
+import type { ProjectRole } from "@/lib/auth/roles";
+import type { FindingState } from "@/lib/records/enums";
+import { allowedMoves, FINDING_STATE_LABELS } from "@/lib/site-visits/lifecycle";
+import { transitionSiteRecordLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+
+const NEEDS_LABEL = { response: "What was done (your answer)", reason: "Why it is reopened" } as const;
+
+export function FindingCard({ finding, project }: { finding: LocalRecord; project: ProjectRow }) {
+  const db = useSyncDb();
+  const state = str(finding.state) as FindingState;
+  const moves = allowedMoves("findings", state, (project.role ?? null) as ProjectRole | null);
+  const [active, setActive] = useState<string | null>(null);
+  const [text, setText] = useState("");
+  const [error, setError] = useState<string | null>(null);
+  const move = moves.find((m) => m.to === active);
+
+  const submit = async (to: string) => {
+    const m = moves.find((x) => x.to === to);
+    setError(null);
+    try {
+      const arg = m?.needs === "response" ? { response: text.trim() } : m?.needs === "reason" ? { reason: text.trim() } : { note: text.trim() || undefined };
+      await transitionSiteRecordLocal(db, "findings", finding.id, { to, ...arg });
+      setActive(null);
+      setText("");
+    } catch (e) {
+      setError(writeErrorOf(e).message);
+    }
+  };
+
+  return (
+    <li id={`finding-${finding.id}`} className="rounded border border-ink-200 p-3" data-testid="finding">
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="font-bold text-ink-950">{str(finding.description)}</span>
+        <span className="rounded bg-ink-100 px-2 text-sm font-semibold" data-testid="finding-state">
+          {FINDING_STATE_LABELS[state] ?? state}
+        </span>
+        <span className="text-sm text-muted">{str(finding.severity)}</span>
+      </div>
+      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
+        <dt className="text-muted">Where</dt>
+        <dd>{str(finding.location) || "—"}</dd>
+        <dt className="text-muted">Requirement</dt>
+        <dd>{str(finding.requirement) || "—"}</dd>
+        <dt className="text-muted">Action required</dt>
+        <dd>{str(finding.actionRequired) || "—"}</dd>
+        <dt className="text-muted">By</dt>
+        <dd>{str(finding.dueDate) || "—"}</dd>
+        {finding.response ? (
+          <>
+            <dt className="text-muted">Answer</dt>
+            <dd data-testid="finding-response">
+              {str(finding.response)} <span className="text-muted">({formatDateTime(finding.answeredAt, project.timeZone)})</span>
+            </dd>
+          </>
+        ) : null}
+        {finding.reopenReason && state === "open" ? (
+          <>
+            <dt className="text-muted">Reopened</dt>
+            <dd>{str(finding.reopenReason)}</dd>
+          </>
+        ) : null}
+      </dl>
+      {moves.length > 0 ? (
+        <div className="mt-2 flex flex-wrap gap-2">
+          {moves.map((m) => (
+            <Button key={m.to} variant={m.to === "open" ? "secondary" : "primary"} data-testid={`finding-${m.verb}`} onClick={() => (m.needs || m.to === "closed" ? setActive(m.to) : void submit(m.to))}>
+              {m.verb[0].toUpperCase() + m.verb.slice(1)}
+            </Button>
+          ))}
+        </div>
+      ) : null}
+      {active ? (
+        <form
+          className="mt-2 flex flex-col gap-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void submit(active);
+          }}
+        >
+          <Field label={move?.needs ? NEEDS_LABEL[move.needs] : "Note from the re-inspection (optional)"} value={text} onChange={(e) => setText(e.target.value)} data-testid="finding-move-text" />
+          <div className="flex gap-2">
+            <Button type="submit" disabled={Boolean(move?.needs) && !text.trim()} data-testid="finding-move-save">
+              Save
+            </Button>
+            <Button variant="secondary" onClick={() => setActive(null)}>
+              Cancel
+            </Button>
+          </div>
+        </form>
+      ) : null}
+      {error ? (
+        <Notice tone="danger" title="Not changed" className="mt-2">
+          {error}
+        </Notice>
+      ) : null}
+    </li>
+  );
+}

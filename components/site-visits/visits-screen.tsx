@@ -1,0 +1,100 @@
+"use client";
+
+// The inspection log on this device: every visit report of the projects shown, newest first; the
+// inspector starts a new one here (works offline, same sync path as every field record).
+import { useLiveQuery } from "dexie-react-hooks";
+import { ChevronRight, Plus } from "lucide-react";
+import Link from "next/link";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/page-header";
+import { mayWrite, str, todayLocal, useFieldContext, useProjects, writeErrorOf } from "@/components/field/common";
+import { VISIT_STATE_LABELS, isOutstanding } from "@/lib/site-visits/lifecycle";
+import type { SiteVisitState } from "@/lib/records/enums";
+import { createLocal, listByProject } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+
+export function VisitsScreen() {
+  const db = useSyncDb();
+  const router = useRouter();
+  const projects = useProjects();
+  const { selectedProjectId } = useFieldContext();
+  const shown = (projects ?? []).filter((p) => !selectedProjectId || p.id === selectedProjectId);
+  const key = shown.map((p) => p.id).join(",");
+  const [error, setError] = useState<string | null>(null);
+
+  const rows = useLiveQuery(async () => {
+    const out = [];
+    for (const project of shown) {
+      const [visits, findings] = await Promise.all([listByProject(db, "site-visits", project.id), listByProject(db, "findings", project.id)]);
+      for (const visit of visits) {
+        if (visit.deletedAt) continue;
+        const outstanding = findings.filter((f) => f.siteVisitId === visit.id && !f.deletedAt && isOutstanding(f.state)).length;
+        out.push({ visit, project, outstanding });
+      }
+    }
+    return out.sort((a, b) => str(b.visit.visitDate).localeCompare(str(a.visit.visitDate)));
+  }, [db, key]);
+
+  const writer = shown.find((p) => mayWrite(p, "visit.write") && p.role === "inspector");
+  const start = async () => {
+    if (!writer) return;
+    setError(null);
+    try {
+      const { id } = await createLocal(db, "site-visits", writer.id, { visitDate: todayLocal() });
+      router.push(`/field/visit?id=${id}`);
+    } catch (e) {
+      setError(writeErrorOf(e).message);
+    }
+  };
+
+  return (
+    <>
+      <PageHeader
+        title="Site visits"
+        subtitle="The inspector's visit reports and their findings"
+        actions={
+          writer ? (
+            <Button data-testid="new-visit" onClick={() => void start()}>
+              <Plus className="h-5 w-5" aria-hidden="true" /> New visit
+            </Button>
+          ) : null
+        }
+      />
+      {error ? (
+        <Notice tone="danger" title="Not started" className="mb-3">
+          {error}
+        </Notice>
+      ) : null}
+      {rows === undefined ? (
+        <p className="text-muted">Reading this device…</p>
+      ) : rows.length === 0 ? (
+        <div className="card p-5" data-testid="visits-empty">
+          <p className="text-lg font-semibold">No visit reports on this device yet.</p>
+        </div>
+      ) : (
+        <ul className="grid gap-3 md:grid-cols-2" data-testid="visits-list">
+          {rows.map(({ visit, project, outstanding }) => (
+            <li key={visit.id}>
+              <Link href={`/field/visit?id=${visit.id}`} className="card flex items-center gap-3 p-4 hover:bg-ink-50" data-testid="visit-link">
+                <div className="min-w-0 flex-1">
+                  <p className="text-lg font-bold text-ink-950">
+                    {str(visit.visitDate)} · {VISIT_STATE_LABELS[str(visit.state) as SiteVisitState] ?? str(visit.state)}
+                  </p>
+                  <p className="text-sm text-muted">
+                    {project.name}
+                    {str(visit.areasInspected) ? ` · ${str(visit.areasInspected)}` : ""}
+                  </p>
+                  {outstanding > 0 ? <p className="mt-1 font-semibold text-danger-800">{outstanding} open finding{outstanding === 1 ? "" : "s"}</p> : null}
+                </div>
+                <ChevronRight className="h-6 w-6 shrink-0 text-ink-500" aria-hidden="true" />
+              </Link>
+            </li>
+          ))}
+        </ul>
+      )}
+    </>
+  );
+}

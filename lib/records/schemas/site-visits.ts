@@ -1,0 +1,62 @@
+import { z } from "zod";
+import { FINDING_SEVERITIES } from "@/lib/records/enums";
+import { calendarDate, choice, clientId, instant, optionalText, ordered, recordId, requiredText } from "./fields";
+
+const MAX_VISIT_PLACEMENTS = 50;
+
+export const siteVisitFields = {
+  visitDate: calendarDate("Visit date"),
+  arrivedAt: instant("Time on site from").nullable(),
+  leftAt: instant("Time on site to").nullable(),
+  areasInspected: optionalText("Areas inspected", 2_000),
+  elementsInspected: optionalText("Elements inspected", 2_000),
+  testsWitnessed: optionalText("Tests witnessed", 2_000),
+  weather: optionalText("Weather", 300),
+  notes: optionalText("Notes", 5_000),
+  placementIds: z
+    .array(recordId("Placement"), { error: "Placements must be a list of placement ids" })
+    .max(MAX_VISIT_PLACEMENTS, `Link at most ${MAX_VISIT_PLACEMENTS} placements to one visit`)
+    .refine((ids) => new Set(ids).size === ids.length, "Each placement can be linked once"),
+};
+
+const OPTIONAL_VISIT = {
+  arrivedAt: true,
+  leftAt: true,
+  areasInspected: true,
+  elementsInspected: true,
+  testsWitnessed: true,
+  weather: true,
+  notes: true,
+  placementIds: true,
+} as const;
+
+export const siteVisitCreateSchema = z
+  .object({ id: clientId, ...siteVisitFields })
+  .partial(OPTIONAL_VISIT)
+  .superRefine((v, ctx) => ordered(ctx, v.arrivedAt, v.leftAt, "leftAt", "The time you left must be after the time you arrived"));
+
+export const siteVisitUpdateSchema = z.object(siteVisitFields).partial().extend({
+  state: z.never({ error: "Submit or sign the report with its own action, not by editing it" }).optional(),
+});
+
+export const findingFields = {
+  placementId: recordId("Placement").nullable(),
+  description: requiredText("What does not conform", 2_000),
+  location: optionalText("Where", 200),
+  severity: choice("Severity", FINDING_SEVERITIES),
+  requirement: optionalText("Requirement", 300),
+  actionRequired: optionalText("Action required", 2_000),
+  dueDate: calendarDate("Due date").nullable(),
+};
+
+export const findingCreateSchema = z
+  .object({ id: clientId, siteVisitId: recordId("Site visit"), ...findingFields })
+  .partial({ placementId: true, location: true, requirement: true, actionRequired: true, dueDate: true });
+
+export const findingUpdateSchema = z.object(findingFields).partial().extend({
+  state: z.never({ error: "Answer, close or reopen a finding with its own action, not by editing it" }).optional(),
+  response: z.never({ error: "The superintendent answers a finding with the answer action" }).optional(),
+});
+
+export type SiteVisitInput = z.input<typeof siteVisitCreateSchema>;
+export type FindingInput = z.input<typeof findingCreateSchema>;
