@@ -8,6 +8,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { formatDateTime, str, writeErrorOf } from "@/components/field/common";
+import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { FindingState } from "@/lib/records/enums";
 import { allowedMoves, FINDING_STATE_LABELS } from "@/lib/site-visits/lifecycle";
@@ -71,6 +72,8 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
           </>
         ) : null}
       </dl>
+      {/* Evidence: the inspector's photos of the nonconformance, the superintendent's of the fix. */}
+      <RecordPhotos projectId={finding.projectId} recordType="findings" recordId={finding.id} canAdd={canAddPhotos(project) && state !== "closed"} title="Finding photos" />
       {moves.length > 0 ? (
         <div className="mt-2 flex flex-wrap gap-2">
           {moves.map((m) => (

@@ -4,7 +4,7 @@ export const PHOTO_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;
 export type PhotoType = (typeof PHOTO_TYPES)[number];
 
 /** The records a photo can belong to (record types of lib/records), and an amendment of a signed placement. */
-export const ATTACHABLE = ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries"] as const;
+export const ATTACHABLE = ["placements", "deliveries", "field-tests", "weather-observations", "checklist-items", "curing-readings", "diary-entries", "site-visits", "findings"] as const;
 export const PHOTO_TARGETS = [...ATTACHABLE, "amendments"] as const;
 export type PhotoTarget = (typeof PHOTO_TARGETS)[number];
 

@@ -233,6 +233,28 @@ describe("a signed visit report refuses changes", () => {
     expect(await findingRow(findingId)).toMatchObject({ description: validBody("findings", visitId).description, deletedAt: null });
   });
 
+  it("raw SQL: photos of the signed report are frozen; a finding's photos stay, and new evidence may still be added", async () => {
+    const photo = (recordType: string, recordId: string, id = randomUUID()) =>
+      sql`insert into photos (id, project_id, version, change_seq, record_type, record_id, sha256, size_bytes, content_type)
+          values (${id}, ${s.project.id}, 1, 0, ${recordType}, ${recordId}, ${"c".repeat(64)}, 1000, 'image/jpeg')`;
+    expect((await pgErrorOf(photo("site-visits", visitId))).code).toBe("PW409");
+    const evidence = randomUUID();
+    expect(await pgErrorOf(photo("findings", findingId, evidence))).toEqual({});
+    // The server completing the upload is allowed; changing or removing the photo is not.
+    expect(await pgErrorOf(sql`update photos set stored_at = now(), storage_key = 'k', version = 2 where id = ${evidence}`)).toEqual({});
+    for (const statement of [
+      sql`update photos set caption = 'another view' where id = ${evidence}`,
+      sql`update photos set sha256 = ${"d".repeat(64)} where id = ${evidence}`,
+      sql`update photos set deleted_at = now() where id = ${evidence}`,
+      sql`delete from photos where id = ${evidence}`,
+    ]) {
+      expect((await pgErrorOf(statement)).code).toBe("PW409");
+    }
+    await db.execute(sql`alter table photos disable trigger photos_signed_visit_frozen`);
+    await db.execute(sql`delete from photos where id = ${evidence}`);
+    await db.execute(sql`alter table photos enable trigger photos_signed_visit_frozen`);
+  });
+
   it("the follow-up goes on after the sign-off, and the report still matches what was signed", async () => {
     expect((await move(s.team.superintendent, findingId, { to: "answered", response: "Chairs replaced" }, 1)).result).toBe("applied");
     expect((await move(s.team.inspector, findingId, { to: "closed" }, 2)).result).toBe("applied");

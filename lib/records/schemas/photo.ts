@@ -6,7 +6,7 @@ import { clientId, instant, optionalText, recordId } from "./fields";
 // storageKey and storedAt are the server's: not in these schemas, so a device can never set them.
 export const photoFields = {
   recordType: z.enum(PHOTO_TARGETS, {
-    error: "Photos attach to a placement, delivery, test, observation, checklist item, curing reading, diary or amendment.",
+    error: "Photos attach to a placement, delivery, test, observation, checklist item, curing reading, diary, site visit, finding or amendment.",
   }),
   recordId: recordId("Record"),
   caption: optionalText("Caption", 500),
