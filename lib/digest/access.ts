@@ -15,7 +15,7 @@ import { buildDigest, digestLinks, type DigestMessage } from "./content";
 import { loadDigestDay } from "./load";
 import { queueStarted, scheduleNext } from "./queue";
 import { listRecipientRows, type RecipientView } from "./recipients";
-import { localDate } from "./schedule";
+import { localDate } from "@/lib/time/zone";
 import { DigestSendError, listSentDigests, sendDigest, type HistoryRow, type SendReport } from "./send";
 import { appOrigin } from "@/lib/mail/transport";
 

@@ -19,7 +19,7 @@ import {
   weatherObservations,
 } from "@/db/schema";
 import { notFound } from "@/lib/errors";
-import { addDays, localDate, localDayRange } from "./schedule";
+import { addDays, localDate, localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestPlacement } from "./types";
 
 const placementColumns = {

@@ -10,7 +10,7 @@ import { MAIL_FROM, appOrigin, getTransport } from "@/lib/mail/transport";
 import { buildDigest, digestLinks } from "./content";
 import { loadDigestDay } from "./load";
 import { activeRecipients } from "./recipients";
-import { isLocalDate, zonedTimeToInstant } from "./schedule";
+import { isLocalDate, zonedTimeToInstant } from "@/lib/time/zone";
 import { oneClickUnsubscribeUrl, unsubscribeUrl } from "./unsubscribe";
 
 /** What sendDigest needs of a mail transport; a nodemailer Transporter is one. */

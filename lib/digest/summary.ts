@@ -3,7 +3,7 @@
 import { formatStrength, formatTemperature, formatVolume, formatWaterVolume, mmToIn, toDisplay, unitLabel } from "@/lib/concrete";
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import type { PlacementState } from "@/lib/records/enums";
-import { localDate } from "./schedule";
+import { localDate } from "@/lib/time/zone";
 import type { DigestWarning, Lookup } from "./checks";
 import { testWarnings } from "./test-checks";
 import { dischargeWarnings, waterWarnings } from "./truck-checks";

@@ -12,7 +12,7 @@ import type { SessionUser } from "@/lib/auth/options";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { loadDigestDay } from "@/lib/digest/load";
-import { isLocalDate } from "@/lib/digest/schedule";
+import { isLocalDate } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
 import { assertUuid } from "@/lib/records/guards";

@@ -7,7 +7,7 @@ import { can } from "@/lib/auth/can";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { loadDigestDay } from "@/lib/digest/load";
-import { localDate } from "@/lib/digest/schedule";
+import { localDate } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
 import type { DigestDay } from "@/lib/digest/types";
 import { notFound } from "@/lib/errors";

@@ -6,7 +6,7 @@ import { db } from "@/db";
 import { diaryCrew, diaryDelays, diaryEntries, diaryEquipment, diaryVisitors, photos, projects, users } from "@/db/schema";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
-import { isLocalDate } from "@/lib/digest/schedule";
+import { isLocalDate } from "@/lib/time/zone";
 import { invalidInput, notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
 import { listReviewPlacements } from "./placements";

@@ -17,7 +17,7 @@ import { photos, placements, projects, signOffs } from "@/db/schema";
 import { bucket, s3 } from "@/lib/photos/storage";
 import * as reportRoute from "@/app/api/projects/[projectId]/reports/daily/route";
 import { loadDigestDay } from "@/lib/digest/load";
-import { localDayRange } from "@/lib/digest/schedule";
+import { localDayRange } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
 import { callRoute, createUser, sessionCookie, type TestUser } from "./helpers";
 

@@ -2,7 +2,7 @@
 // source), with the same day rules as lib/digest/load.ts, so the builder is tested without a database.
 import { DEMO_PROJECTS, DEMO_USERS } from "@/db/seed";
 import { demoRecords, type DemoRecord } from "@/db/seed-records-data";
-import { localDayRange } from "@/lib/digest/schedule";
+import { localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestMix, DigestPlacement } from "@/lib/digest/types";
 import { computeBreak, computeWeather } from "@/lib/records/compute";
 

@@ -2,14 +2,8 @@
 // US rule (Energy Policy Act of 2005): clocks go forward at 02:00 on the second Sunday of March
 // (2026-03-08) and back at 02:00 on the first Sunday of November (2026-11-01).
 import { describe, expect, it } from "vitest";
-import {
-  addDays,
-  digestDateFor,
-  localDate,
-  localDayRange,
-  nextSendTime,
-  zonedTimeToInstant,
-} from "@/lib/digest/schedule";
+import { digestDateFor, nextSendTime } from "@/lib/digest/schedule";
+import { addDays, localDate, localDayRange, zonedTimeToInstant } from "@/lib/time/zone";
 
 const CHICAGO = "America/Chicago";
 const at = (iso: string) => new Date(iso);

@@ -1,0 +1,99 @@
+// Project-local time: calendar dates and wall-clock hours in the project's time zone, turned into
+// instants with the Intl time-zone data (daylight-saving changes included). Pure: no imports, no clock.
+
+const DAY_MS = 86_400_000;
+const formatters = new Map<string, Intl.DateTimeFormat>();
+
+function formatter(timeZone: string): Intl.DateTimeFormat {
+  let f = formatters.get(timeZone);
+  if (!f) {
+    f = new Intl.DateTimeFormat("en-US", {
+      timeZone,
+      hourCycle: "h23",
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      second: "2-digit",
+    });
+    formatters.set(timeZone, f);
+  }
+  return f;
+}
+
+export type WallClock = { year: number; month: number; day: number; hour: number; minute: number; second: number };
+
+/** The wall clock in `timeZone` at `instant`. */
+export function zonedParts(instant: Date, timeZone: string): WallClock {
+  const parts = formatter(timeZone).formatToParts(instant);
+  const get = (type: Intl.DateTimeFormatPartTypes) => Number(parts.find((p) => p.type === type)!.value);
+  return { year: get("year"), month: get("month"), day: get("day"), hour: get("hour"), minute: get("minute"), second: get("second") };
+}
+
+/** Offset of the zone from UTC at `instant`, in ms (Chicago in winter: −6 h). */
+function offsetMs(instant: Date, timeZone: string): number {
+  const p = zonedParts(instant, timeZone);
+  const asUtc = Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second);
+  return asUtc - Math.floor(instant.getTime() / 1000) * 1000;
+}
+
+const pad = (n: number, width = 2) => String(n).padStart(width, "0");
+
+export function isLocalDate(value: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) return false;
+  const [y, m, d] = value.split("-").map(Number);
+  const t = new Date(Date.UTC(y, m - 1, d));
+  return t.getUTCFullYear() === y && t.getUTCMonth() === m - 1 && t.getUTCDate() === d;
+}
+
+export function isTimeZone(value: string): boolean {
+  try {
+    formatter(value);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** The calendar date (YYYY-MM-DD) in `timeZone` at `instant`. */
+export function localDate(instant: Date, timeZone: string): string {
+  const p = zonedParts(instant, timeZone);
+  return `${pad(p.year, 4)}-${pad(p.month)}-${pad(p.day)}`;
+}
+
+/** A calendar date moved by whole days (no time zone involved). */
+export function addDays(date: string, days: number): string {
+  const [y, m, d] = date.split("-").map(Number);
+  const t = new Date(Date.UTC(y, m - 1, d) + days * DAY_MS);
+  return `${pad(t.getUTCFullYear(), 4)}-${pad(t.getUTCMonth() + 1)}-${pad(t.getUTCDate())}`;
+}
+
+/**
+ * The instant at which the wall clock in `timeZone` shows `hour`:00 on `date`. An hour that occurs
+ * twice (clocks set back) is its first occurrence; an hour skipped (clocks set forward) becomes the
+ * same number of minutes after the change (02:00 on a spring-forward night in Chicago → 03:00 CDT).
+ */
+export function zonedTimeToInstant(date: string, hour: number, timeZone: string): Date {
+  if (!isLocalDate(date)) throw new RangeError(`Not a calendar date: ${date}`);
+  if (!Number.isInteger(hour) || hour < 0 || hour > 23) throw new RangeError(`Not an hour of the day: ${hour}`);
+  const [y, m, d] = date.split("-").map(Number);
+  const wall = Date.UTC(y, m - 1, d, hour);
+  // The offsets in force a day either side cover any single change of offset around this hour.
+  const before = offsetMs(new Date(wall - DAY_MS), timeZone);
+  const after = offsetMs(new Date(wall + DAY_MS), timeZone);
+  const matches = [...new Set([before, after])]
+    .map((offset) => wall - offset)
+    .filter((t) => {
+      const p = zonedParts(new Date(t), timeZone);
+      return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) === wall;
+    })
+    .sort((a, b) => a - b);
+  // No match: the hour does not exist that day; the offset before the change moves it forward.
+  return new Date(matches[0] ?? wall - before);
+}
+
+/** The instants [start, end) of a project-local calendar day (23 or 25 hours on a change day). */
+export function localDayRange(date: string, timeZone: string): { start: Date; end: Date } {
+  return { start: zonedTimeToInstant(date, 0, timeZone), end: zonedTimeToInstant(addDays(date, 1), 0, timeZone) };
+}
