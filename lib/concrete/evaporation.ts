@@ -26,11 +26,17 @@ export interface EvaporationRiskOptions {
   highAt?: number;
 }
 
-// Published thresholds per unit system; 0.2 lb/ft²/h is not an exact conversion of 1.0 kg/m²/h.
-const THRESHOLDS: Record<UnitSystem, { cautionAt: number; highAt: number }> = {
+// ACI 305R Fig. 2.1.5: precautions are needed when the rate approaches 1.0 kg/m²/h (0.2 lb/ft²/h);
+// published per unit system, not an exact conversion of each other. The caution band from half of
+// that is this product's own choice, not a published limit.
+export const EVAPORATION_LIMITS: Record<UnitSystem, { cautionAt: number; highAt: number }> = {
   SI: { cautionAt: 0.5, highAt: 1.0 },
   IP: { cautionAt: 0.1, highAt: 0.2 },
 };
+/** Low-bleed mixes (silica fume, low w/cm) crack at about half the rate (Silica Fume Association guidance). */
+export const LOW_BLEED_FACTOR = 0.5;
+/** Our caution band starts at this fraction of the precaution level (this product's choice). */
+export const CAUTION_FRACTION = 0.5;
 
 function validateSI(input: EvaporationInputSI): void {
   assertRange(input.concreteTempC, "concreteTempC", "Concrete temperature", -40, 70, "°C");
@@ -88,8 +94,8 @@ export function evaporationRisk(
   options: EvaporationRiskOptions = {},
 ): EvaporationRisk {
   assertNonNegative(rate, "rate", "Evaporation rate");
-  const defaults = THRESHOLDS[unitSystem];
-  const factor = options.lowBleed ? 0.5 : 1;
+  const defaults = EVAPORATION_LIMITS[unitSystem];
+  const factor = options.lowBleed ? LOW_BLEED_FACTOR : 1;
   const cautionAt = options.cautionAt ?? defaults.cautionAt * factor;
   const highAt = options.highAt ?? defaults.highAt * factor;
   assertFinite(cautionAt, "cautionAt", "Caution threshold");
@@ -118,7 +124,9 @@ export interface EvaporationDescription {
   windNote: string;
 }
 
-const RULE = "ACI 305R: precautions when evaporation exceeds 1.0 kg/m²/h (0.2 lb/ft²/h)";
+const RULE =
+  "ACI 305R: precautions are needed when evaporation approaches 1.0 kg/m²/h (0.2 lb/ft²/h); " +
+  "the caution band from half of that is this product's own choice, not a published limit";
 const NEGATIVE_REASON = "Concrete is cooler than the dew point of the air: no evaporation";
 const UNCERTAINTY_NOTE =
   "The estimate is uncertain by about ±40 % (Hover 2020): read it as a risk level, not a precise number.";

@@ -116,11 +116,34 @@ export function evaluateAcceptance({
   return { ok, individualLimit: limit, averageJudged: tests.length >= 3, tests: evaluated };
 }
 
-// Published per edition, not converted: the SI edition's 115 m³ is not 150 yd³ (114.7 m³).
+// Published per edition, not converted: ACI 318M's 110 m³ (from memory of the SI edition) is not
+// 150 yd³ (114.7 m³). At least five tests per class of concrete; none required for a total under
+// 38 m³ (50 yd³) when the building official accepts evidence of satisfactory strength [memory].
 export const SAMPLING_LIMITS = {
-  SI: { volume: 115, surface: 460, volumeUnit: "m³", surfaceUnit: "m²" },
-  IP: { volume: 150, surface: 5000, volumeUnit: "yd³", surfaceUnit: "ft²" },
+  SI: { volume: 110, surface: 460, volumeUnit: "m³", surfaceUnit: "m²", smallQuantity: 38 },
+  IP: { volume: 150, surface: 5000, volumeUnit: "yd³", surfaceUnit: "ft²", smallQuantity: 50 },
 } as const;
+export const MIN_TESTS_PER_CLASS = 5;
+
+// ACI 318-19 §26.12.2.1(b) and (c) [memory]: the tests a whole class of concrete needs over the
+// project, or none when the total is under the small quantity and the building official agrees.
+export function testsForClass({
+  totalVolume,
+  testsByFrequency,
+  unitSystem,
+}: {
+  /** Total of the class on the project, in m³ (SI) or yd³ (IP). */
+  totalVolume: number;
+  /** Tests the daily / volume / surface frequency asks for. */
+  testsByFrequency: number;
+  unitSystem: UnitSystem;
+}): { required: number; smallQuantity: boolean } {
+  assertNonNegative(totalVolume, "totalVolume", "Total volume of the class");
+  assertNonNegative(testsByFrequency, "testsByFrequency", "Tests by frequency");
+  if (totalVolume < SAMPLING_LIMITS[unitSystem].smallQuantity) return { required: 0, smallQuantity: true };
+  // Fewer than five batches: every batch is tested (§26.12.2.1(b)); otherwise at least five tests.
+  return { required: Math.max(MIN_TESTS_PER_CLASS, testsByFrequency), smallQuantity: false };
+}
 
 function checkSamplingInput(
   [volume, volumeField]: [number, string],
@@ -152,7 +175,7 @@ export function requiredTestsIP({
   return Math.max(days, ceilCount(volumeYd3 / volume), ceilCount(surfaceFt2 / surface));
 }
 
-// ACI 318-19 §26.12.2.1: once a day, per 115 m³ and per 460 m²; IP projects use the published 150 yd³ / 5000 ft².
+// ACI 318-19 §26.12.2.1: once a day, per 110 m³ and per 460 m²; IP projects use the published 150 yd³ / 5000 ft².
 export function requiredTests({
   volumeM3,
   surfaceM2,

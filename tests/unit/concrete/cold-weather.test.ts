@@ -1,6 +1,7 @@
 import { describe, it, expect } from "vitest";
 
 import {
+  hoursAbove,
   checkConcreteTempAtDischarge,
   coldWeatherCautions,
   hotWeatherCautions,
@@ -62,6 +63,7 @@ describe("isColdWeather", () => {
     expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4 }).cold).toBe(false);
     expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 8 })).toEqual({
       cold: false,
+      limit: 4,
       reason: "Air temperature stays above 4 °C during the protection period",
     });
   });
@@ -79,15 +81,56 @@ describe("isColdWeather", () => {
     expect(isColdWeather({ definition: "aci306r-current", forecastMinAirTempC: 4.2, thresholdC: 5 }).cold).toBe(true);
   });
 
-  it("1990 definition: mean below 4 °C for more than 3 successive days [src: ACI 306.1-90, ACI 308.1]", () => {
-    const three = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [5, 3, 2, 1, 6, 3] });
+  it("1990 definition: mean below 5 °C (SI edition [memory]; 40 °F [src: ACI 306.1-90, ACI 308.1]) for more than 3 successive days ending today", () => {
+    const three = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [6, 3, 2, 1] });
     expect(three.cold).toBe(false);
-    expect(three.reason).toMatch(/at most 3 successive days/);
-    const four = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [5, 3, 2, 1, 0, 6] });
+    expect(three.reason).toMatch(/for 3 successive days; cold weather needs more than 3/);
+    const four = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [6, 4.5, 3, 2, 1] });
     expect(four.cold).toBe(true);
-    expect(four.reason).toBe("Average daily temperature was below 4 °C for 4 successive days (more than 3)");
-    // Exactly 4 °C is not "below 4 °C" and breaks the run.
-    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [3, 3, 4, 3, 3] }).cold).toBe(false);
+    expect(four.limit).toBe(5);
+    expect(four.reason).toBe("Average daily temperature has been below 5 °C for 4 successive days (more than 3)");
+    // Exactly 5 °C is not "below 5 °C" and breaks the run; a warm last day ends the period.
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [3, 3, 3, 5] }).cold).toBe(false);
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [3, 3, 2, 1, 0, 6] }).cold).toBe(false);
+  });
+
+  it("1990 definition, inch-pound: the published 40 °F, compared in °F [src: ACI 306.1-90]", () => {
+    const f = (tempF: number) => ((tempF - 32) * 5) / 9;
+    // 40 °F exactly is not below 40 °F, even though it is 4.44 °C (below the SI edition's 5 °C).
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [f(39), f(38), f(40), f(37)], unitSystem: "IP" }).cold).toBe(false);
+    const cold = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [f(39), f(38), f(39.9), f(37)], unitSystem: "IP" });
+    expect(cold.cold).toBe(true);
+    expect(cold.limit).toBe(40);
+  });
+
+  it("1990 definition, second condition: air above 10 °C (50 °F) for more than half of a day ends cold weather [src: ACI 306R-88 definition, as quoted in the AASHTO glossary]", () => {
+    const means = [2, 2, 3, 4.9];
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: means, dailyWarmHours: [0, 0, 0, 12] }).cold).toBe(true);
+    const warm = isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: means, dailyWarmHours: [0, 0, 0, 12.5] });
+    expect(warm.cold).toBe(false);
+    expect(warm.reason).toMatch(/above 10 °C for more than half of a day/);
+    // A warm day earlier in the run breaks it too.
+    expect(isColdWeather({ definition: "aci306-1990", dailyMeanTempsC: [2, 2, 3, 4, 1], dailyWarmHours: [0, 13, 0, 0, 0] }).cold).toBe(false);
+  });
+
+  it("current definition, inch-pound: air at 40 °F has fallen to the limit [src: ACI 306R]", () => {
+    const f = (tempF: number) => ((tempF - 32) * 5) / 9;
+    expect(isColdWeather({ definition: "aci306r-current", observedAirTempsC: [f(40)], unitSystem: "IP" }).cold).toBe(true);
+    expect(isColdWeather({ definition: "aci306r-current", observedAirTempsC: [f(40.5)], unitSystem: "IP" }).cold).toBe(false);
+    expect(isColdWeather({ definition: "aci306r-current", observedAirTempsC: [f(40)], unitSystem: "IP" }).reason).toMatch(/at or below 40 °F/);
+  });
+
+  it("hours above a limit, by straight lines between readings [computed]", () => {
+    const at = (h: number) => new Date(Date.UTC(2026, 0, 1, h));
+    // 8 → 12 °C over 2 h crosses 10 °C half-way: 1 h above; then 12 → 12 for 3 h: 3 h; a 5 h gap is not joined.
+    const readings = [
+      { at: at(0), tempC: 8 },
+      { at: at(2), tempC: 12 },
+      { at: at(5), tempC: 12 },
+      { at: at(10), tempC: 12 },
+    ];
+    expect(hoursAbove(readings, 10)).toBeCloseTo(4, 9);
+    expect(hoursAbove([{ at: at(0), tempC: 11 }], 10)).toBe(0);
   });
 
   it("refuses a check with no temperatures", () => {

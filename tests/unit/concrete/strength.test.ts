@@ -10,6 +10,7 @@ import {
   lengthDiameterFactor,
   requiredTests,
   requiredTestsIP,
+  testsForClass,
   strengthTest,
 } from "../../../lib/concrete/strength";
 import { ft2ToM2, inToMm, lbfToKN, mpaToPsi, yd3ToM3 } from "../../../lib/concrete/units";
@@ -151,14 +152,17 @@ describe("requiredTests (ACI 318-19 §26.12.2.1)", () => {
     expect(requiredTests({ volumeM3: yd3ToM3(400), surfaceM2: ft2ToM2(30_000), days: 1, unitSystem: "IP" })).toBe(6);
   });
 
-  it("the same pour judged by the SI limits (115 m³, 460 m²) needs 7 [computed: 2787 m² / 460 = 6.06]", () => {
+  it("the same pour judged by the SI limits (110 m³ [memory of ACI 318M], 460 m²) needs 7 [computed: 2787 m² / 460 = 6.06]", () => {
     expect(requiredTests({ volumeM3: yd3ToM3(400), surfaceM2: ft2ToM2(30_000), days: 1 })).toBe(7);
   });
 
   it("at least once a day; volume governs for mass pours [computed]", () => {
     expect(requiredTests({ volumeM3: 20, surfaceM2: 0, days: 3 })).toBe(3);
-    expect(requiredTests({ volumeM3: 345, surfaceM2: 0, days: 1 })).toBe(3);
-    expect(requiredTests({ volumeM3: 345.1, surfaceM2: 0, days: 1 })).toBe(4);
+    // 110 m³ per test [memory of ACI 318M §26.12.2.1]: 330 m³ is 3 tests, a little more is 4.
+    expect(requiredTests({ volumeM3: 330, surfaceM2: 0, days: 1 })).toBe(3);
+    expect(requiredTests({ volumeM3: 330.1, surfaceM2: 0, days: 1 })).toBe(4);
+    // Not the converted 114.7 m³: 115 m³ already needs 2 tests.
+    expect(requiredTests({ volumeM3: 115, surfaceM2: 0, days: 1 })).toBe(2);
   });
 
   it("refuses a fractional number of days", () => {
@@ -194,5 +198,18 @@ describe("coreAcceptance (UFGS 03300)", () => {
   it("needs three cores and says the engineer of record decides adequacy", () => {
     expect(fieldOf(() => coreAcceptance([26, 27], 30))).toBe("coreStrengths");
     expect(STRUCTURAL_ADEQUACY_NOTE).toMatch(/engineer of record/);
+  });
+});
+
+describe("testsForClass (ACI 318-19 §26.12.2.1 [memory])", () => {
+  it("at least five tests per class of concrete", () => {
+    expect(testsForClass({ totalVolume: 200, testsByFrequency: 2, unitSystem: "SI" })).toEqual({ required: 5, smallQuantity: false });
+    expect(testsForClass({ totalVolume: 2000, testsByFrequency: 19, unitSystem: "SI" })).toEqual({ required: 19, smallQuantity: false });
+  });
+  it("none required under 38 m³ (50 yd³) when the building official accepts evidence of strength", () => {
+    expect(testsForClass({ totalVolume: 37.9, testsByFrequency: 1, unitSystem: "SI" })).toEqual({ required: 0, smallQuantity: true });
+    expect(testsForClass({ totalVolume: 38, testsByFrequency: 1, unitSystem: "SI" }).smallQuantity).toBe(false);
+    expect(testsForClass({ totalVolume: 49, testsByFrequency: 1, unitSystem: "IP" }).smallQuantity).toBe(true);
+    expect(testsForClass({ totalVolume: 50, testsByFrequency: 1, unitSystem: "IP" }).required).toBe(5);
   });
 });

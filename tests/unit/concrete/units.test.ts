@@ -62,7 +62,7 @@ describe("exact conversion factors", () => {
   });
 
   it("converts published pairs close to each other but not exactly [src: DOMAIN Units]", () => {
-    // 150 yd³ ↔ 115 m³ and 500 psi ↔ 3.5 MPa are published pairs, not exact conversions.
+    // 150 yd³ ↔ 110 m³ and 500 psi ↔ 3.5 MPa are published pairs, not exact conversions.
     expect(yd3ToM3(150)).toBeCloseTo(114.68, 2);
     expect(psiToMPa(500)).toBeCloseTo(3.447, 3);
     expect(m3ToYd3(0.764554858)).toBeCloseTo(1, 12);
