@@ -3,8 +3,8 @@
 import clsx from "clsx";
 import { CircleCheck, OctagonAlert } from "lucide-react";
 import { Notice } from "@/components/ui/notice";
-import type { MixAcceptance } from "@/lib/lab/strength-tests";
-import { RULE_AVERAGE, RULE_INDIVIDUAL } from "@/lib/lab/strength-tests";
+import type { MixAcceptance } from "@/lib/checks/strength";
+import { RULE_AVERAGE, RULE_INDIVIDUAL } from "@/lib/checks/strength";
 import { RunningAverageChart } from "./charts";
 import { strengthText } from "./format";
 

@@ -2,7 +2,7 @@
 
 import { CartesianGrid, ComposedChart, Line, ReferenceLine, Scatter, XAxis, YAxis } from "recharts";
 import { formatStrength, mpaToPsi, type UnitSystem } from "@/lib/concrete";
-import type { MixAcceptance } from "@/lib/lab/strength-tests";
+import type { MixAcceptance } from "@/lib/checks/strength";
 
 const INK_600 = "#445466";
 const INK_200 = "#cdd5de";

@@ -6,7 +6,7 @@ import { Notice } from "@/components/ui/notice";
 import { callApi } from "@/lib/api/client";
 import type { UnitSystem } from "@/lib/concrete";
 import type { getProjectSets } from "@/lib/lab/queries";
-import type { MixAcceptance } from "@/lib/lab/strength-tests";
+import type { MixAcceptance } from "@/lib/checks/strength";
 import { AcceptancePanel } from "./acceptance-panel";
 import { SetCard } from "./set-card";
 

@@ -4,7 +4,7 @@ import { OctagonAlert } from "lucide-react";
 import type { UnitSystem } from "@/lib/concrete";
 import { dueAt } from "@/lib/lab/due";
 import type { LabSetView } from "@/lib/lab/queries";
-import type { MixAcceptance } from "@/lib/lab/strength-tests";
+import type { MixAcceptance } from "@/lib/checks/strength";
 import { BreakForm } from "./break-form";
 import { StrengthAgeChart } from "./charts";
 import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";

@@ -163,6 +163,7 @@ export type CheckSpecimenSet = {
   id: string;
   placementId: string;
   setCode: string;
+  castAt: Date;
   cylinderDiameterMm: number;
 };
 

@@ -79,13 +79,16 @@ export interface FieldTestCheck {
   temperature?: PropertyCheck<Partial<NumericRange>>;
   /** True when every property that was measured is within its range. */
   ok: boolean;
-  /** Present when something is out of range. */
+  /** Present when the slump or the air content is out of range (ASTM C94's check test). */
   retestNote?: string;
 }
 
-const RETEST_NOTE =
-  "Out of range: run a check test at once on another portion of the same load; " +
-  "if that also fails, the load is rejected.";
+// ASTM C94, slump and air content tolerance clause: the check test is made on another portion of the
+// same sample; after a second failure the concrete has failed the specification, and what happens to
+// the load is the purchaser's decision. It covers slump and air, not temperature.
+export const CHECK_TEST_NOTE =
+  "Slump or air content out of range: make a check test at once on another portion of the same sample. " +
+  "If the check test also fails, the concrete has failed the specification; what happens to the load is the purchaser's decision (ASTM C94).";
 
 // ASTM C94 §7 tolerances plus the discharge temperature limit (ACI 305.1 §3.3.1) for one load's tests.
 export function checkFieldTest({
@@ -127,6 +130,6 @@ export function checkFieldTest({
     result.temperature = { value: concreteTempC, range, ok: withinRange(concreteTempC, range) };
   }
   result.ok = [result.slump, result.air, result.temperature].every((check) => check?.ok ?? true);
-  if (!result.ok) result.retestNote = RETEST_NOTE;
+  if (result.slump?.ok === false || result.air?.ok === false) result.retestNote = CHECK_TEST_NOTE;
   return result;
 }

@@ -10,7 +10,7 @@ import type { SessionUser } from "@/lib/auth/options";
 import { notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
 import { acceptanceQuerySchema, setsQuerySchema } from "./schemas";
-import { mixAcceptance, strengthTests, type LabBreak, type LabSet, type MixAcceptance, type StrengthTestRow } from "./strength-tests";
+import { mixAcceptance, strengthTests, type LabBreak, type LabSet, type MixAcceptance, type StrengthTestRow } from "@/lib/checks/strength";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

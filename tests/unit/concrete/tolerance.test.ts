@@ -107,7 +107,7 @@ describe("checkFieldTest", () => {
     expect(result.retestNote).toBeUndefined();
   });
 
-  it("flags an out-of-range property and asks for a check test [src: C94 as quoted in trade press]", () => {
+  it("flags an out-of-range property and asks for a check test on another portion of the same sample [src: ASTM C94 slump and air tolerance clause; memory of wording]", () => {
     const result = checkFieldTest({
       slumpMm: 130,
       slumpType: "target",
@@ -120,7 +120,17 @@ describe("checkFieldTest", () => {
     expect(result.slump?.ok).toBe(false);
     expect(result.air).toBeUndefined();
     expect(result.temperature?.ok).toBe(false);
-    expect(result.retestNote).toMatch(/check test/);
+    expect(result.retestNote).toMatch(/check test at once on another portion of the same sample/);
+    expect(result.retestNote).toMatch(/failed the specification/);
+    expect(result.retestNote).toMatch(/purchaser's decision/);
+    expect(result.retestNote).not.toMatch(/rejected/);
+  });
+
+  it("a temperature out of range alone asks for no C94 check test: the limit is the project specification's [src: ASTM C94 covers slump and air]", () => {
+    const result = checkFieldTest({ slumpType: "target", specifiedSlumpMm: 100, specifiedAirPct: 6, concreteTempC: 36 });
+    expect(result.ok).toBe(false);
+    expect(result.temperature?.ok).toBe(false);
+    expect(result.retestNote).toBeUndefined();
   });
 
   it("names the field of a bad measurement", () => {

@@ -1,5 +1,6 @@
-// Breaks grouped into strength tests and judged per mix (ACI 318). Pure: the calculations are
-// lib/concrete's (strengthTest, evaluateAcceptance); this file only groups, orders and words them.
+// Breaks grouped into strength tests and judged per mix (ACI 318): the lab's acceptance and the
+// findings every other surface shows. Pure: the calculations are lib/concrete's (strengthTest,
+// evaluateAcceptance); this file groups, orders and words them.
 import {
   ConcreteInputError,
   STRUCTURAL_ADEQUACY_NOTE,
@@ -10,6 +11,7 @@ import {
   strengthTest,
   type UnitSystem,
 } from "@/lib/concrete";
+import { GOVERNS, type CheckInput, type Finding, type Source } from "./types";
 
 export type LabBreak = {
   id: string;
@@ -99,7 +101,7 @@ export type AcceptanceRow = StrengthTestRow & {
   lowAverage: boolean | null;
 };
 
-export type LowFlag = { kind: "individual" | "average"; setCode: string; title: string; detail: string; rule: string };
+export type LowFlag = { kind: "individual" | "average"; setCode: string; title: string; detail: string; rule: string; source: Source; governs: string };
 
 export type MixAcceptance = {
   mix: LabMix;
@@ -168,6 +170,8 @@ export function mixAcceptance(mix: LabMix, rows: StrengthTestRow[], unitSystem: 
         title: `Low strength test: set ${t.setCode} at ${t.ageDays} days`,
         detail: `${fmt(t.averageMPa)} (average of ${t.cylindersMPa.length} cylinders) is below the ${fmt(limitMPa)} limit for f′c ${fmt(mix.fcMPa)}.`,
         rule: RULE_INDIVIDUAL,
+        source: ACI_318_INDIVIDUAL,
+        governs: GOVERNS,
       });
     }
     if (t.lowAverage) {
@@ -178,8 +182,69 @@ export function mixAcceptance(mix: LabMix, rows: StrengthTestRow[], unitSystem: 
         title: `Low average of three tests: ${first} to ${t.setCode}`,
         detail: `The average of three consecutive strength tests, ${fmt(t.runningAverageMPa!)}, is below f′c ${fmt(mix.fcMPa)}.`,
         rule: RULE_AVERAGE,
+        source: { document: "ACI 318", edition: "19", clause: "§26.12.3.1(a)", basis: "published" },
+        governs: GOVERNS,
       });
     }
   });
   return { mix, unitSystem, individualLimitMPa: limitMPa, averageJudged: verdict.averageJudged, ok: verdict.ok, tests, otherTests, flags, followUp };
+}
+
+const ACI_318_INDIVIDUAL: Source = { document: "ACI 318", edition: "19", clause: "§26.12.3.1(b)", basis: "published" };
+
+/**
+ * The findings of the breaks in the input: a test short of cylinders is information; a strength test
+ * at the mix's design age below the individual limit (ACI 318-19 §26.12.3.1(b)) is a warning.
+ * Criterion (a) needs the mix's whole series and is judged by mixAcceptance on the lab page.
+ */
+export function strengthFindings(input: Pick<CheckInput, "project" | "placements" | "specimenSets" | "breaks">): Finding[] {
+  const units = input.project.unitSystem;
+  const placement = new Map(input.placements.map((p) => [p.id, p]));
+  const sets: LabSet[] = input.specimenSets.map((s) => ({ ...s, count: 0, testAgesDays: [] }));
+  const breaks: LabBreak[] = input.breaks.map((b) => ({ ...b, loadKN: 0, diameterMm: 0, lengthMm: null, fractureType: null, version: 0 }));
+  const lastBreak = new Map<string, Date>();
+  for (const b of input.breaks) {
+    const key = `${b.specimenSetId}:${b.ageDays}`;
+    if (!lastBreak.has(key) || lastBreak.get(key)! < b.testedAt) lastBreak.set(key, b.testedAt);
+  }
+  const toUnits = (mpa: number) => (units === "SI" ? mpa : mpaToPsi(mpa));
+  const fmt = (mpa: number) => formatStrength(mpa, units);
+  const findings: Finding[] = [];
+  for (const row of strengthTests(sets, breaks)) {
+    const p = placement.get(row.placementId);
+    const key = `${row.setId}:${row.ageDays}`;
+    const base = { subject: { type: "strength-test" as const, id: key }, placementId: row.placementId, at: lastBreak.get(key)!.toISOString(), governs: GOVERNS };
+    const name = `set ${row.setCode}${p ? ` (${p.element})` : ""}, ${row.ageDays} days`;
+    if (row.averageMPa === null) {
+      findings.push({
+        ...base,
+        rule: "strength-incomplete",
+        severity: "info",
+        title: `Not yet a strength test: ${name}, ${row.cylindersMPa.length} of ${row.needed} cylinders broken`,
+        message: `ACI 318 counts the average of at least two 150 × 300 mm (6 × 12 in) or three 100 × 200 mm (4 × 8 in) cylinders as one strength test; one cylinder is not judged on its own. Mean so far ${fmt(row.meanMPa)}.`,
+        applied: { value: row.cylindersMPa.length, limit: row.needed, unit: "cylinders" },
+        source: { document: "ACI 318", edition: "19", clause: "§26.12.1.1", basis: "memory" },
+      });
+      continue;
+    }
+    const mix = p?.mix;
+    if (!mix || row.ageDays !== mix.fcAgeDays) continue;
+    // f'c is stored in MPa from a value typed in psi: round the conversion back to the typed value.
+    const fc = Math.round(toUnits(mix.fcMPa) * 1000) / 1000;
+    const verdict = evaluateAcceptance({ fc, tests: [toUnits(row.averageMPa)], unitSystem: units });
+    if (!verdict.tests[0].lowIndividual) continue;
+    const limitMPa = units === "SI" ? verdict.individualLimit : psiToMPa(verdict.individualLimit);
+    findings.push({
+      ...base,
+      rule: "strength-low",
+      severity: "warning",
+      title: `Low strength test: ${name}, ${fmt(row.averageMPa)}`,
+      message:
+        `The average of ${row.cylindersMPa.length} cylinders, ${fmt(row.averageMPa)}, is below the ${fmt(limitMPa)} limit for f′c ${fmt(mix.fcMPa)}. ${RULE_INDIVIDUAL} ` +
+        `Investigate the result; if low strength is confirmed, cores (ASTM C42) are usually judged adequate when three average at least 85 % of f′c and none is below 75 %. ${STRUCTURAL_ADEQUACY_NOTE}`,
+      applied: { value: toUnits(row.averageMPa), limit: verdict.individualLimit, unit: units === "SI" ? "MPa" : "psi" },
+      source: ACI_318_INDIVIDUAL,
+    });
+  }
+  return findings;
 }

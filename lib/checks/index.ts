@@ -1,0 +1,65 @@
+// The rulebook: what the records of a project mean under the published rules and the project's own
+// settings. Every surface (field screens offline, the server's stored findings, the digest, the
+// review table, the placement review page and the PDF) shows findings made here and nowhere else.
+import { localDate } from "@/lib/time/zone";
+import { coldWeatherFindings, curingFinding } from "./cold-weather";
+import { dischargeFinding, revolutionsFinding, siteWaterFinding } from "./delivery";
+import { fieldTestFindings, laterCheckTestPassed } from "./field-tests";
+import { strengthFindings } from "./strength";
+import { SEVERITIES, type CheckInput, type Finding, type Severity } from "./types";
+import { evaporationFinding, hotWeatherFinding } from "./weather";
+
+export * from "./types";
+
+export type EvaluateOptions = {
+  /** The time now, for what depends on it (a truck still discharging); omit on the server. */
+  now?: Date;
+};
+
+/** Every finding of the records in `input`, info included, in a stable order. */
+export function evaluate(input: CheckInput, options: EvaluateOptions = {}): Finding[] {
+  const { project } = input;
+  const placement = new Map(input.placements.map((p) => [p.id, p]));
+  const mixOf = (placementId: string | null) => (placementId ? (placement.get(placementId)?.mix ?? null) : null);
+  const findings: Finding[] = [];
+  for (const w of input.weather) {
+    findings.push(evaporationFinding(w, project, mixOf(w.placementId)));
+    const hot = hotWeatherFinding(w, project, mixOf(w.placementId));
+    if (hot) findings.push(hot);
+  }
+  findings.push(...coldWeatherFindings(input));
+  for (const c of input.curing) {
+    const f = curingFinding(c, placement.get(c.placementId), project);
+    if (f) findings.push(f);
+  }
+  for (const d of input.deliveries) {
+    for (const f of [dischargeFinding(d, project, options.now), revolutionsFinding(d, project), siteWaterFinding(d, mixOf(d.placementId), project)]) {
+      if (f) findings.push(f);
+    }
+  }
+  for (const t of input.fieldTests) {
+    const mix = mixOf(t.placementId);
+    findings.push(...fieldTestFindings(t, mix, project, laterCheckTestPassed(t, input.fieldTests, mix, project)));
+  }
+  findings.push(...strengthFindings(input));
+  return findings.sort(byTime);
+}
+
+const byTime = (a: Finding, b: Finding) => a.at.localeCompare(b.at) || a.rule.localeCompare(b.rule) || a.subject.id.localeCompare(b.subject.id);
+
+const rank = (s: Severity) => SEVERITIES.indexOf(s);
+
+/** What a person must see: cautions and warnings, most severe first. */
+export function attention(findings: Finding[]): Finding[] {
+  return findings.filter((f) => f.severity !== "info").sort((a, b) => rank(b.severity) - rank(a.severity) || byTime(a, b));
+}
+
+/** The findings that belong to a project-local date: day-level ones by their date, others by their time. */
+export function onDate(findings: Finding[], date: string, timeZone: string): Finding[] {
+  return findings.filter((f) => (f.subject.type === "day" ? f.subject.id === date : localDate(new Date(f.at), timeZone) === date));
+}
+
+/** The most severe level among findings, or null when there are none. */
+export function worst(findings: Finding[]): Severity | null {
+  return findings.reduce<Severity | null>((w, f) => (w === null || rank(f.severity) > rank(w) ? f.severity : w), null);
+}

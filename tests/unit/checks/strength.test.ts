@@ -1,0 +1,45 @@
+// The rulebook's strength findings: cylinders counted into strength tests as ACI 318 does (issue
+// item 5), judged at the design age against §26.12.3.1(b): f'c − 3.5 MPa (500 psi) up to 35 MPa
+// (5000 psi), 0.90 f'c above [../shared DOMAIN §5].
+import { describe, expect, it } from "vitest";
+import { strengthFindings } from "@/lib/checks/strength";
+import { input, mix, placement, project } from "./fixtures";
+
+const set = (diameter: number) => ({ id: "s1", placementId: "p1", setCode: "LC-P2-A", castAt: new Date("2026-06-16T15:00:00Z"), cylinderDiameterMm: diameter });
+const breakOf = (i: number, strengthMPa: number, ageDays = 28) => ({ id: `b${i}`, specimenSetId: "s1", testedAt: new Date(`2026-07-14T1${i}:00:00Z`), ageDays, strengthMPa });
+
+describe("strength tests per ACI 318", () => {
+  it("one broken 150 mm cylinder is not a strength test: information, never 'low strength'", () => {
+    const findings = strengthFindings(input({ specimenSets: [set(150)], breaks: [breakOf(1, 15)] }));
+    expect(findings.map((f) => [f.rule, f.severity])).toEqual([["strength-incomplete", "info"]]);
+    expect(findings[0].title).toContain("1 of 2 cylinders broken");
+  });
+
+  it("two 150 mm cylinders averaging below f'c − 3.5 MPa are a low strength test (f'c 27.6 → limit 24.1 MPa)", () => {
+    const [f] = strengthFindings(input({ specimenSets: [set(150)], breaks: [breakOf(1, 23.5), breakOf(2, 24.5)] }));
+    expect(f).toMatchObject({ rule: "strength-low", severity: "warning" });
+    expect(f.applied.limit).toBeCloseTo(24.1, 9);
+    expect(f.message).toContain("engineer of record");
+    expect(f.message).toContain("85 %");
+    expect(strengthFindings(input({ specimenSets: [set(150)], breaks: [breakOf(1, 24), breakOf(2, 24.2)] }))).toEqual([]);
+  });
+
+  it("100 mm cylinders need three [src: ACI FAQ citing ACI 318]", () => {
+    expect(strengthFindings(input({ specimenSets: [set(100)], breaks: [breakOf(1, 20), breakOf(2, 20)] }))[0].rule).toBe("strength-incomplete");
+    expect(strengthFindings(input({ specimenSets: [set(100)], breaks: [breakOf(1, 20), breakOf(2, 20), breakOf(3, 20)] }))[0].rule).toBe("strength-low");
+  });
+
+  it("inch-pound, f'c 4000 psi: a 3450 psi test is low (limit 3500 psi), 3500 is not [DOMAIN §5]", () => {
+    const psi = (v: number) => v * 0.006894757;
+    const p = placement({ mix: mix({ fcMPa: psi(4000) }) });
+    const ip = project({ unitSystem: "IP" });
+    const low = strengthFindings(input({ project: ip, placements: [p], specimenSets: [set(150)], breaks: [breakOf(1, psi(3400)), breakOf(2, psi(3500))] }));
+    expect(low[0].applied).toMatchObject({ limit: 3500, unit: "psi" });
+    expect(low[0].applied.value).toBeCloseTo(3450, 6);
+    expect(strengthFindings(input({ project: ip, placements: [p], specimenSets: [set(150)], breaks: [breakOf(1, psi(3500)), breakOf(2, psi(3500))] }))).toEqual([]);
+  });
+
+  it("early ages are not judged against f'c", () => {
+    expect(strengthFindings(input({ specimenSets: [set(150)], breaks: [breakOf(1, 15, 7), breakOf(2, 15, 7)] }))).toEqual([]);
+  });
+});
