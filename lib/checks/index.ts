@@ -63,3 +63,4 @@ export function onDate(findings: Finding[], date: string, timeZone: string): Fin
 export function worst(findings: Finding[]): Severity | null {
   return findings.reduce<Severity | null>((w, f) => (w === null || rank(f.severity) > rank(w) ? f.severity : w), null);
 }
+export * from "./records";
