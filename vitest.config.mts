@@ -9,7 +9,8 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], environment: "node" },
+        // Property tests over large grids take seconds on a busy 2-core machine.
+        test: { name: "unit", include: ["tests/unit/**/*.test.{ts,tsx}"], environment: "node", testTimeout: 30_000 },
       },
       {
         resolve: { alias },

@@ -4,6 +4,7 @@
 // rows that exist are left alone (they may have been edited since, or frozen by a sign-off).
 import { and, eq, inArray } from "drizzle-orm";
 import { parseOrThrow } from "@/lib/api/handler";
+import { refreshProject } from "@/lib/findings/store";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { getRecordDef, type RecordType } from "@/lib/records/registry";
 import type { Database, Transaction } from "./index";
@@ -66,5 +67,7 @@ export async function seedRecords(db: Database): Promise<void> {
     for (const [type, rows] of records) await insertMissing(tx, type, rows);
     const toSign = records.find(([type]) => type === "placements")![1].filter((p) => p.signedAt);
     await signPlacements(tx, toSign);
+    // The rows went in below the write path: judge every day of the demo with the rulebook once.
+    for (const projectId of new Set(records.flatMap(([, rows]) => rows.map((r) => r.projectId)))) await refreshProject(tx, projectId);
   });
 }

@@ -16,3 +16,4 @@ export * from "./sync-log";
 export * from "./digest";
 export * from "./review-views";
 export * from "./site-visits";
+export * from "./check-findings";

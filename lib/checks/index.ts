@@ -7,7 +7,7 @@ import { dischargeFinding, revolutionsFinding, siteWaterFinding } from "./delive
 import { fieldTestFindings, laterCheckTestPassed } from "./field-tests";
 import { strengthFindings } from "./strength";
 import { SEVERITIES, type CheckInput, type Finding, type Severity } from "./types";
-import { evaporationFinding, hotWeatherFinding } from "./weather";
+import { evaporationFinding, hotWeatherFindings } from "./weather";
 
 export * from "./types";
 
@@ -22,11 +22,8 @@ export function evaluate(input: CheckInput, options: EvaluateOptions = {}): Find
   const placement = new Map(input.placements.map((p) => [p.id, p]));
   const mixOf = (placementId: string | null) => (placementId ? (placement.get(placementId)?.mix ?? null) : null);
   const findings: Finding[] = [];
-  for (const w of input.weather) {
-    findings.push(evaporationFinding(w, project, mixOf(w.placementId)));
-    const hot = hotWeatherFinding(w, project, mixOf(w.placementId));
-    if (hot) findings.push(hot);
-  }
+  for (const w of input.weather) findings.push(evaporationFinding(w, project, mixOf(w.placementId)));
+  findings.push(...hotWeatherFindings(input));
   findings.push(...coldWeatherFindings(input));
   for (const c of input.curing) {
     const f = curingFinding(c, placement.get(c.placementId), project);

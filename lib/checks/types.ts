@@ -186,3 +186,10 @@ export type CheckInput = {
   specimenSets: CheckSpecimenSet[];
   breaks: CheckBreak[];
 };
+
+/** Where a finding's rule comes from, as one line: "ASTM C94 §10.7", "ACI 306.1-90 [from memory]". */
+export function citation(source: Source): string {
+  const name = [source.document + (source.edition ? `-${source.edition}` : ""), source.clause].filter(Boolean).join(" ");
+  const basis = { published: "", memory: " [from memory, not checked against the text]", product: " (this product's own choice, not a published limit)", project: "", practice: " (common practice)" }[source.basis];
+  return `${name}${basis}`;
+}

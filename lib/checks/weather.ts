@@ -17,7 +17,8 @@ import {
   formatTemperature,
   type UnitSystem,
 } from "@/lib/concrete";
-import { GOVERNS, type CheckMix, type CheckProject, type CheckWeather, type Finding, type Severity, type Source } from "./types";
+import { localDate } from "@/lib/time/zone";
+import { GOVERNS, type CheckInput, type CheckMix, type CheckProject, type CheckWeather, type Finding, type Severity, type Source } from "./types";
 
 export type Evaporation = {
   /** In the project's unit: kg/m²/h (SI) or lb/ft²/h (IP). */
@@ -142,25 +143,33 @@ export function evaporationFinding(reading: CheckWeather, project: CheckProject,
 // precaution level; [common practice] crews need water, shade and rest in the same conditions.
 const HOT = { SI: 27, IP: 80 } as const;
 
-export function hotWeatherFinding(reading: CheckWeather, project: CheckProject, mix: CheckMix | null): Finding | null {
+/** One finding per project-local day on which a reading meets ACI 305.1's hot-weather condition (at its hottest such reading). */
+export function hotWeatherFindings(input: Pick<CheckInput, "project" | "weather" | "placements">): Finding[] {
+  const { project } = input;
   const units = project.unitSystem;
-  const e = evaporationOf(reading, units);
-  const limit = evaporationLimit(project, mix);
-  const hottest = Math.max(reading.airTempC, reading.concreteTempC ?? -Infinity);
-  if (temperatureInUnits(hottest, units) < HOT[units] || !(e.rate > limit.highAt)) return null;
+  const mixOf = (id: string | null) => input.placements.find((p) => p.id === id)?.mix ?? null;
+  const hottestByDay = new Map<string, { reading: CheckWeather; tempC: number }>();
+  for (const w of input.weather) {
+    const tempC = Math.max(w.airTempC, w.concreteTempC ?? -Infinity);
+    if (temperatureInUnits(tempC, units) < HOT[units]) continue;
+    if (!(evaporationOf(w, units).rate > evaporationLimit(project, mixOf(w.placementId)).highAt)) continue;
+    const date = localDate(w.observedAt, project.timeZone);
+    const best = hottestByDay.get(date);
+    if (!best || tempC > best.tempC) hottestByDay.set(date, { reading: w, tempC });
+  }
   const unit = units === "SI" ? "°C" : "°F";
-  return {
-    rule: "hot-weather",
-    severity: "caution",
-    subject: { type: "weather", id: reading.id },
-    placementId: reading.placementId,
+  return [...hottestByDay.entries()].map(([date, { reading, tempC }]) => ({
+    rule: "hot-weather" as const,
+    severity: "caution" as const,
+    subject: { type: "day" as const, id: date },
+    placementId: null,
     at: reading.observedAt.toISOString(),
-    title: `Hot weather: ${formatTemperature(hottest, units)} with high evaporation`,
+    title: `Hot weather: up to ${formatTemperature(tempC, units)} with high evaporation`,
     message:
       `ACI 305.1 treats ${HOT[units]} ${unit} or more with evaporation above the precaution level as hot weather: use the hot-weather checklist ` +
       "(cool the materials, place in cooler hours, dampen the subgrade, shade the cylinders). Watch crews for heat stress: water, shade and rest breaks.",
-    applied: { value: temperatureInUnits(hottest, units), limit: HOT[units], unit },
-    source: { document: "ACI 305.1", edition: "14", basis: "published" },
+    applied: { value: temperatureInUnits(tempC, units), limit: HOT[units], unit },
+    source: { document: "ACI 305.1", edition: "14", basis: "published" as const },
     governs: GOVERNS,
-  };
+  }));
 }

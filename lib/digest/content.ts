@@ -1,6 +1,7 @@
 // Builds one digest e-mail (subject, HTML and plain text) from a loaded day. Pure: the links are
 // passed in, so the same day renders for the preview, each recipient and the tests.
 import { renderEmptyHtml, renderHtml, type DigestLinks } from "./html";
+import { citation } from "@/lib/checks";
 import { summarizeDay, type DigestSummary } from "./summary";
 import type { DigestDay } from "./types";
 
@@ -34,7 +35,7 @@ function renderText(s: DigestSummary, links: DigestLinks): string {
   if (s.warnings.length) {
     heading("Needs attention");
     for (const w of s.warnings) {
-      out.push(`! ${w.tone === "danger" ? "Warning" : "Caution"}: ${w.title}`, `  ${w.detail}`, `  Rule: ${w.rule}`);
+      out.push(`! ${w.severity === "warning" ? "Warning" : "Caution"}: ${w.title}${w.context ? ` (${w.context})` : ""}`, `  ${w.message}`, `  Rule: ${citation(w.source)}. ${w.governs}`);
     }
   }
   heading("Placements");

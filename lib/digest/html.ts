@@ -1,6 +1,6 @@
 // The digest's HTML part: table layout and inline styles, which is what mail programs render
 // reliably. Colours from the app's palette; warnings carry a word and a symbol, never colour alone.
-import type { DigestWarning } from "./checks";
+import { citation, type Finding } from "@/lib/checks";
 import type { DigestSummary } from "./summary";
 
 export type DigestLinks = { day: string; photo: (id: string) => string; preferences: string; unsubscribe: string | null };
@@ -40,14 +40,15 @@ function stat(label: string, value: string, note = "") {
   );
 }
 
-function warningBox(w: DigestWarning) {
-  const tone = C[w.tone];
-  const word = w.tone === "danger" ? "Warning" : "Caution";
+function warningBox(w: Finding & { context: string }) {
+  const tone = C[w.severity === "warning" ? "danger" : "caution"];
+  const word = w.severity === "warning" ? "Warning" : "Caution";
   return (
-    `<div data-kind="${w.kind}" style="margin:0 0 10px;padding:12px 14px;border:2px solid ${tone.border};border-left-width:6px;border-radius:8px;background:${tone.bg};color:${tone.text}">` +
+    `<div data-rule="${w.rule}" data-severity="${w.severity}" data-subject="${esc(`${w.subject.type}:${w.subject.id}`)}" style="margin:0 0 10px;padding:12px 14px;border:2px solid ${tone.border};border-left-width:6px;border-radius:8px;background:${tone.bg};color:${tone.text}">` +
     `<div style="font-size:15px;font-weight:700;line-height:1.4">&#9888; ${word}: ${esc(w.title)}</div>` +
-    `<div style="font-size:14px;line-height:1.5;margin-top:4px;color:${C.ink900}">${esc(w.detail)}</div>` +
-    `<div style="font-size:13px;line-height:1.45;margin-top:6px;color:${C.ink700}"><strong>Rule:</strong> ${esc(w.rule)}</div></div>`
+    (w.context ? `<div style="font-size:13px;line-height:1.4;color:${C.ink700}">${esc(w.context)}</div>` : "") +
+    `<div style="font-size:14px;line-height:1.5;margin-top:4px;color:${C.ink900}">${esc(w.message)}</div>` +
+    `<div style="font-size:13px;line-height:1.45;margin-top:6px;color:${C.ink700}"><strong>Rule:</strong> ${esc(citation(w.source))}. ${esc(w.governs)}</div></div>`
   );
 }
 

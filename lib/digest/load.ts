@@ -19,7 +19,8 @@ import {
   weatherObservations,
 } from "@/db/schema";
 import { notFound } from "@/lib/errors";
-import { addDays, localDate, localDayRange } from "@/lib/time/zone";
+import { loadCheckDay } from "@/lib/findings/load";
+import { localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestPlacement } from "./types";
 
 const placementColumns = {
@@ -77,27 +78,6 @@ async function loadPlacements(tx: Executor, projectId: string, where: SQL): Prom
   });
 }
 
-/** Daily means (high + low) / 2 of the consecutive days with readings that end on `date` (at most 4). */
-async function dailyMeans(tx: Executor, projectId: string, date: string, timeZone: string): Promise<number[]> {
-  const { start } = localDayRange(addDays(date, -3), timeZone);
-  const { end } = localDayRange(date, timeZone);
-  const rows = await tx
-    .select({ observedAt: weatherObservations.observedAt, airTempC: weatherObservations.airTempC })
-    .from(weatherObservations)
-    .where(and(eq(weatherObservations.projectId, projectId), isNull(weatherObservations.deletedAt), gte(weatherObservations.observedAt, start), lt(weatherObservations.observedAt, end)));
-  const byDay = new Map<string, number[]>();
-  for (const r of rows) {
-    const day = localDate(r.observedAt, timeZone);
-    byDay.set(day, [...(byDay.get(day) ?? []), r.airTempC]);
-  }
-  const means: number[] = [];
-  for (let d = date; byDay.has(d) && means.length < 4; d = addDays(d, -1)) {
-    const temps = byDay.get(d)!;
-    means.unshift((Math.max(...temps) + Math.min(...temps)) / 2);
-  }
-  return means;
-}
-
 const inDay = (col: PgColumn, range: { start: Date; end: Date }) => and(gte(col, range.start), lt(col, range.end))!;
 
 export async function loadDigestDay(projectId: string, date: string, tx: Executor = db): Promise<DigestDay> {
@@ -147,7 +127,7 @@ export async function loadDigestDay(projectId: string, date: string, tx: Executo
     deliveries: dayDeliveries,
     fieldTests: dayTests,
     weather: dayWeather,
-    dailyMeanAirTempsC: project.coldWeatherDefinition === "aci306-1990" ? await dailyMeans(tx, projectId, date, project.timeZone) : [],
+    checks: await loadCheckDay(tx, project, date),
     specimenSets: daySets,
     breaks: dayBreaks.map(({ b, setCode, placementId, cylinderDiameterMm }) => ({ ...b, setCode, placementId, cylinderDiameterMm })),
     diary: diary ? { submitted: diary.submittedAt !== null, weatherSummary: diary.weatherSummary, workDone: diary.workDone, crew, delays } : null,

@@ -4,11 +4,9 @@ import { formatStrength, formatTemperature, formatVolume, formatWaterVolume, mmT
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import type { PlacementState } from "@/lib/records/enums";
 import { localDate } from "@/lib/time/zone";
-import type { DigestWarning, Lookup } from "./checks";
-import { testWarnings } from "./test-checks";
-import { dischargeWarnings, waterWarnings } from "./truck-checks";
-import { coldWarnings, evaporationWarnings } from "./weather-checks";
-import { breakGroups, strengthWarnings } from "./strength";
+import { attention, type Finding } from "@/lib/checks";
+import { strengthTests } from "@/lib/checks/strength";
+import { dayFindings } from "@/lib/findings/load";
 import type { DigestDay, DigestPlacement } from "./types";
 
 export type PlacementLine = { element: string; where: string; start: string; volume: string; state: PlacementState; stateLabel: string; signed: string; holdReason: string | null };
@@ -28,7 +26,8 @@ export type DigestSummary = {
   breaks: BreakLine[];
   diary: { submitted: boolean; crewTotal: number; crew: string; delays: string[]; workDone: string; weatherSummary: string } | null;
   photos: { id: string; label: string }[];
-  warnings: DigestWarning[];
+  /** The rulebook's cautions and warnings for the day (lib/checks), most severe first, each with when and where. */
+  warnings: (Finding & { context: string })[];
   /** Nothing at all was recorded for the day. */
   isEmpty: boolean;
 };
@@ -58,7 +57,13 @@ export function summarizeDay(day: DigestDay): DigestSummary {
   const byId = new Map<string, DigestPlacement>([...day.otherPlacements, ...day.placements].map((p) => [p.id, p]));
   // A time on another day (a sign-off the morning after) carries its date.
   const time = (d: Date) => (localDate(d, project.timeZone) === date ? f.time.format(d) : f.dayTime.format(d));
-  const lookup: Lookup = { placement: (id) => (id ? byId.get(id) : undefined), time };
+  const lookup = { placement: (id: string | null) => (id ? byId.get(id) : undefined) };
+  const findings = dayFindings(day.checks, date);
+  const warnings = attention(findings).map((f) => ({
+    ...f,
+    context: [f.subject.type === "day" ? "" : time(new Date(f.at)), f.placementId ? (lookup.placement(f.placementId)?.element ?? "") : "site"].filter(Boolean).join(" · "),
+  }));
+  const about = (type: string, id: string) => warnings.filter((w) => w.subject.type === type && w.subject.id === id);
   const vol = (m3: number) => formatVolume(m3, units, 1);
 
   const accepted = day.deliveries.filter((d) => d.status === "accepted");
@@ -81,8 +86,7 @@ export function summarizeDay(day: DigestDay): DigestSummary {
     };
   });
 
-  const discharge = dischargeWarnings(day, lookup);
-  const lateTickets = new Set(discharge.filter((w) => w.kind === "late-truck").map((w) => w.title));
+  const late = new Set(warnings.filter((w) => w.rule === "discharge-time").map((w) => w.subject.id));
   // Name the placement beside each truck only when the day's trucks went to more than one.
   const severalPlacements = new Set(day.deliveries.map((d) => d.placementId)).size > 1;
   const trucks: TruckLine[] = day.deliveries.map((d) => {
@@ -95,22 +99,12 @@ export function summarizeDay(day: DigestDay): DigestSummary {
         minutes !== null
           ? `Batched ${time(d.batchedAt)}, discharged by ${time(d.dischargeFinishedAt!)} (${minutes} min)`
           : `Batched ${time(d.batchedAt)}, arrived ${time(d.arrivedAt)}`,
-      late: [...lateTickets].some((t) => t.includes(`ticket ${d.ticketNumber}`)),
+      late: late.has(d.id),
       rejected: d.status === "rejected" ? d.rejectReason || "Rejected at the site" : null,
       water: (d.waterAddedL ?? 0) > 0 ? `${formatWaterVolume(d.waterAddedL!, units)} water added at site` : null,
     };
   });
   const waterL = day.deliveries.reduce((s, d) => s + (d.waterAddedL ?? 0), 0);
-
-  const groups = breakGroups(day, lookup);
-  const warnings = [
-    ...evaporationWarnings(day, lookup),
-    ...coldWarnings(day),
-    ...discharge,
-    ...waterWarnings(day, lookup),
-    ...testWarnings(day, lookup),
-    ...strengthWarnings(groups, units),
-  ];
 
   const size = (diameterMm: number, lengthMm: number) =>
     units === "SI" ? `${diameterMm} × ${Math.round(lengthMm)} mm` : `${Math.round(mmToIn(diameterMm))} × ${Math.round(mmToIn(lengthMm))} in`;
@@ -119,16 +113,29 @@ export function summarizeDay(day: DigestDay): DigestSummary {
       `Set ${s.setCode}: ${plural(s.count, "cylinder")} ${size(s.cylinderDiameterMm, s.cylinderLengthMm)}, cast ${time(s.castAt)}` +
       ` (${lookup.placement(s.placementId)?.element ?? "placement"}); tests at ${listText(s.testAgesDays.map(String))} days`,
   );
-  const breaks: BreakLine[] = groups.map((g) => {
-    const each = g.strengthsMPa.map((v) => toDisplay("strength", v, units).toFixed(units === "SI" ? 1 : 0)).join(", ");
-    const verdict = g.judged
-      ? g.low
-        ? `LOW: below the ${formatStrength(g.limitMPa!, units)} limit`
-        : "meets the individual-test limit"
-      : `information only; acceptance is judged at ${g.mix?.fcAgeDays ?? 28} days`;
+  // Breaks counted into strength tests as ACI 318 does (lib/checks/strength), from the same records the
+  // rulebook judged; a test is listed when one of its cylinders was broken on the day.
+  const brokenToday = new Set(day.breaks.map((b) => `${b.specimenSetId}:${b.ageDays}`));
+  const tests = strengthTests(
+    day.checks.specimenSets.map((s) => ({ ...s, count: 0, testAgesDays: [] })),
+    day.checks.breaks.map((b) => ({ ...b, loadKN: 0, diameterMm: 0, lengthMm: null, fractureType: null, version: 0 })),
+  ).filter((row) => brokenToday.has(`${row.setId}:${row.ageDays}`));
+  const breaks: BreakLine[] = tests.map((row) => {
+    const p = lookup.placement(row.placementId);
+    const each = row.cylindersMPa.map((v) => toDisplay("strength", v, units).toFixed(units === "SI" ? 1 : 0)).join(", ");
+    const low = about("strength-test", `${row.setId}:${row.ageDays}`).find((w) => w.rule === "strength-low");
+    const verdict =
+      row.averageMPa === null
+        ? `not yet a strength test (${row.cylindersMPa.length} of ${row.needed} cylinders)`
+        : low
+          ? `LOW: below the ${Number(low.applied.limit!.toFixed(units === "SI" ? 1 : 0))} ${low.applied.unit} limit`
+          : row.ageDays === p?.mix?.fcAgeDays
+            ? "meets the individual-test limit"
+            : `information only; acceptance is judged at ${p?.mix?.fcAgeDays ?? 28} days`;
+    const average = row.averageMPa === null ? `mean ${formatStrength(row.meanMPa, units)}` : `average ${formatStrength(row.averageMPa, units)}`;
     return {
-      text: `Set ${g.setCode} (${g.placement?.element ?? "placement"}), ${g.ageDays} days: ${each} ${unitLabel("strength", units)}; average ${formatStrength(g.averageMPa, units)}, ${verdict}`,
-      low: g.low,
+      text: `Set ${row.setCode} (${p?.element ?? "placement"}), ${row.ageDays} days: ${each} ${unitLabel("strength", units)}; ${average}, ${verdict}`,
+      low: low !== undefined,
     };
   });
 
@@ -152,11 +159,11 @@ export function summarizeDay(day: DigestDay): DigestSummary {
       lines: trucks,
       accepted: accepted.length,
       volume: vol(accepted.reduce((s, d) => s + d.volumeM3, 0)),
-      late: lateTickets.size,
+      late: late.size,
       rejected: day.deliveries.length - accepted.length,
       waterAdded: waterL > 0 ? formatWaterVolume(waterL, units) : null,
     },
-    tests: { total: day.fieldTests.length, outOfTolerance: warnings.filter((w) => w.kind === "test").length },
+    tests: { total: day.fieldTests.length, outOfTolerance: new Set(warnings.filter((w) => w.subject.type === "field-test").map((w) => w.subject.id)).size },
     weather: {
       readings: day.weather.length,
       airRange: !airs.length ? null : Math.min(...airs) === Math.max(...airs) ? temp(airs[0]) : `${temp(Math.min(...airs))} to ${temp(Math.max(...airs))}`,

@@ -1,5 +1,6 @@
 // The data one digest is built from: a project and one project-local date, as load.ts reads it.
 // Values are SI as stored; the builder formats them in the project's unit system.
+import type { CheckInput } from "@/lib/checks";
 import type { UnitSystem } from "@/lib/concrete/units";
 import type { PlacementState } from "@/lib/records/enums";
 
@@ -127,8 +128,8 @@ export type DigestDay = {
   deliveries: DigestDelivery[];
   fieldTests: DigestFieldTest[];
   weather: DigestWeather[];
-  /** ACI 306.1-90 projects only: mean of each day's high and low air temperature, up to the date, oldest first. */
-  dailyMeanAirTempsC: number[];
+  /** What the rulebook judges for the day (lib/findings/load): the same input as the stored findings. */
+  checks: CheckInput;
   specimenSets: DigestSpecimenSet[];
   breaks: DigestBreak[];
   diary: DigestDiary | null;

@@ -1,14 +1,7 @@
 // Server-computed fields: derived from the measured values with lib/concrete, never taken from the
 // client, and recomputed on every write.
-import {
-  cToF,
-  cylinderStrengthMPa,
-  evaporationRateIP,
-  evaporationRateSI,
-  kmhToMph,
-  lbFt2hToKgM2h,
-  type UnitSystem,
-} from "@/lib/concrete";
+import { evaporationOf } from "@/lib/checks/weather";
+import { cylinderStrengthMPa, type UnitSystem } from "@/lib/concrete";
 import { photoKey, type PhotoType } from "@/lib/photos/rules";
 
 export type ComputeContext = { unitSystem: UnitSystem; projectId?: string };
@@ -30,24 +23,15 @@ export function computeBreak(values: Record<string, unknown>): { strengthMPa: nu
   };
 }
 
-// ACI 305R nomograph (Uno 1998) in the project's unit system, as DOMAIN.md asks (the two published
-// forms differ by ~4 %), stored in kg/m²/h. Without a concrete temperature there is no estimate.
+// The rulebook's evaporation rate (lib/checks): Uno's form of the project's unit system, stored in
+// kg/m²/h. Without a concrete temperature it is an estimate from the air temperature, as every
+// surface labels it (the stored concrete temperature stays null, which says so).
 export function computeWeather(values: Record<string, unknown>, { unitSystem }: ComputeContext) {
-  const concreteTempC = values.concreteTempC as number | null | undefined;
-  if (concreteTempC === null || concreteTempC === undefined) return { evaporationKgM2H: null };
-  const airTempC = values.airTempC as number;
-  const relativeHumidityPct = values.relativeHumidityPct as number;
-  const windKmh = values.windKmh as number;
-  const evaporationKgM2H =
-    unitSystem === "SI"
-      ? evaporationRateSI({ concreteTempC, airTempC, relativeHumidityPct, windKmh })
-      : lbFt2hToKgM2h(
-          evaporationRateIP({
-            concreteTempF: cToF(concreteTempC),
-            airTempF: cToF(airTempC),
-            relativeHumidityPct,
-            windMph: kmhToMph(windKmh),
-          }),
-        );
-  return { evaporationKgM2H };
+  const reading = {
+    airTempC: values.airTempC as number,
+    relativeHumidityPct: values.relativeHumidityPct as number,
+    windKmh: values.windKmh as number,
+    concreteTempC: (values.concreteTempC as number | null | undefined) ?? null,
+  };
+  return { evaporationKgM2H: evaporationOf(reading, unitSystem).rateKgM2H };
 }

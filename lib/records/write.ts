@@ -10,6 +10,7 @@ import { parseOrThrow } from "@/lib/api/handler";
 import { writeAudit } from "@/lib/audit";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { conflict, invalidInput } from "@/lib/errors";
+import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
 import { authorizeAny, writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
@@ -141,6 +142,7 @@ export async function createRecord(
       .values({ ...values, ...derived, projectId, version: 1, changeSeq, updatedBy: ctx.user.id } as never)
       .returning()) as RecordRow[];
     await audit(tx, ctx, def, "create", null, row);
+    await refreshAfterWrite(tx, projectId, def.type, [row]);
     return { record: row, created: true };
   });
 }
@@ -183,6 +185,7 @@ export async function updateRecord(
       .where(and(eq(def.table.id, id), eq(def.table.projectId, projectId)))
       .returning()) as RecordRow[];
     await audit(tx, ctx, def, "update", existing, row);
+    await refreshAfterWrite(tx, projectId, def.type, [existing, row]);
     return row;
   });
 }
@@ -239,6 +242,8 @@ export async function deleteRecord(
     const blocked = def.deleteBlocked?.(existing);
     if (blocked) throw conflict(blocked, { reason: "state" });
     if (existing.version !== base) throw staleConflict(def, existing);
+    // Read before the tombstones: a placement's days are those of its (still live) children.
+    const dates = await datesAffected(tx, projectId, def.type, [existing]);
     const changeSeq = await nextChangeSeq(tx, projectId);
     const [row] = (await tx
       .update(def.table)
@@ -247,6 +252,7 @@ export async function deleteRecord(
       .returning()) as RecordRow[];
     await audit(tx, ctx, def, "delete", existing, row);
     await tombstoneChildren(tx, ctx, def, row);
+    await refreshFindings(tx, projectId, dates);
     return row;
   });
 }

@@ -11,6 +11,7 @@ import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
+import { GOVERNS, citation } from "@/lib/checks";
 import { loadDigestDay } from "@/lib/digest/load";
 import { isLocalDate } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
@@ -114,7 +115,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
           `${Math.round(w.relativeHumidityPct)} %`,
           formatSpeed(w.windKmh, units),
           w.concreteTempC === null ? "-" : formatTemperature(w.concreteTempC, units),
-          w.evaporationKgM2H === null ? "-" : formatEvaporation(w.evaporationKgM2H, units),
+          w.evaporationKgM2H === null ? "-" : `${formatEvaporation(w.evaporationKgM2H, units)}${w.concreteTempC === null ? " (est.)" : ""}`,
           placement ?? "",
         ],
         [0.1, 0.12, 0.11, 0.12, 0.12, 0.2, 0.23],
@@ -127,12 +128,12 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
   l.heading(`Warnings (${summary.warnings.length})`);
   if (!summary.warnings.length) l.text("No warnings for the day.", { color: MUTED });
   for (const w of summary.warnings) {
-    l.text(`${w.tone === "danger" ? "!!" : "!"} ${w.title}`, { bold: true, color: w.tone === "danger" ? DANGER : CAUTION, gap: 1 });
-    l.text(w.detail, { indent: 12, gap: 1 });
-    l.text(w.rule, { indent: 12, size: 7, color: MUTED, gap: 4 });
+    l.text(`${w.severity === "warning" ? "Warning" : "Caution"}: ${w.title}${w.context ? ` (${w.context})` : ""}`, { bold: true, color: w.severity === "warning" ? DANGER : CAUTION, gap: 1 });
+    l.text(w.message, { indent: 12, gap: 1 });
+    l.text(`Rule: ${citation(w.source)}`, { indent: 12, size: 7, color: MUTED, gap: 4 });
   }
   if (summary.warnings.length) {
-    l.text("These checks follow the project's stated rules; the project specifications, local codes and the engineer of record decide.", { size: 7, color: MUTED, gap: 2 });
+    l.text(GOVERNS, { size: 7, color: MUTED, gap: 2 });
   }
 
   // Placements with their trucks and tests

@@ -2,37 +2,17 @@
 // records), the mix, the digest's warnings for this placement, sign-offs, amendments and conflicts.
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { amendments, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
+import { amendments, breaks, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
 import { can } from "@/lib/auth/can";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
-import { loadDigestDay } from "@/lib/digest/load";
+import { attention, evaluate, toCheckInput } from "@/lib/checks";
 import { localDate } from "@/lib/time/zone";
-import { summarizeDay } from "@/lib/digest/summary";
-import type { DigestDay } from "@/lib/digest/types";
 import { notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
 import { placementSnapshot } from "@/lib/signoff/snapshot";
 
 type Row = Record<string, unknown>;
-
-/** The digest's day, narrowed to one placement's records, so its warnings are that placement's. */
-export function dayForPlacement(day: DigestDay, placementId: string): DigestDay {
-  const mine = <T extends { placementId: string | null }>(rows: T[]) => rows.filter((r) => r.placementId === placementId);
-  const placement = [...day.placements, ...day.otherPlacements].filter((p) => p.id === placementId);
-  return {
-    ...day,
-    placements: placement,
-    otherPlacements: [],
-    deliveries: mine(day.deliveries),
-    fieldTests: mine(day.fieldTests),
-    weather: mine(day.weather),
-    specimenSets: mine(day.specimenSets),
-    breaks: mine(day.breaks),
-    diary: null,
-    photos: [],
-  };
-}
 
 export async function loadPlacementReview(user: SessionUser, projectId: string, placementId: string) {
   assertUuid(projectId, "Project");
@@ -65,7 +45,24 @@ export async function loadPlacementReview(user: SessionUser, projectId: string, 
       .orderBy(desc(conflicts.createdAt)),
   ]);
   const date = localDate(placement.plannedStart as Date, project.timeZone);
-  const warnings = summarizeDay(dayForPlacement(await loadDigestDay(projectId, date), placementId)).warnings.filter((w) => w.kind !== "cold");
+  // The rulebook on every record of this placement, whatever day it was made (lib/checks).
+  const setIds = snapshot.children["specimen-sets"].map((s) => s.id as string);
+  const breaksOfSets = setIds.length ? await db.select().from(breaks).where(and(eq(breaks.projectId, projectId), inArray(breaks.specimenSetId, setIds))) : [];
+  const warnings = attention(
+    evaluate(
+      toCheckInput({
+        project,
+        mixes: mix ? [mix] : [],
+        placements: [placement],
+        deliveries: snapshot.children.deliveries,
+        fieldTests: snapshot.children["field-tests"],
+        weather: snapshot.children["weather-observations"],
+        curing: snapshot.children["curing-readings"],
+        specimenSets: snapshot.children["specimen-sets"],
+        breaks: breaksOfSets,
+      }),
+    ),
+  );
   const signed = placement.state === "signed";
   return {
     role,

@@ -1,23 +1,14 @@
 // The office's placement list across projects: one SQL statement per page (filter, aggregate,
 // count and page together), after one read of the user's memberships.
 //
-// The per-placement figures apply the same rules as the digest's warnings (lib/digest), in SQL:
-// - late trucks: not rejected, discharge finished, finish not before batching, and more minutes
-//   than the project's discharge limit (ASTM C94 §10.7, lib/concrete checkDischarge);
-// - revolutions over: the same trucks, over the project's revolution limit where one is set;
-// - water added: every ticket with water added at the site (the digest warns on each);
-// - tests out of tolerance: tests with a slump or air outside the mix's range (ASTM C94 §7 bands of
-//   lib/concrete slumpRangeMm / airRangePct, or the mix's own tolerance) or a concrete temperature
-//   above the mix's (else the project's) maximum (ACI 305.1), as lib/digest testProblems;
-// - evaporation risk: the highest risk of the readings taken for the placement (ACI 305R thresholds,
-//   halved for a low-bleed mix, or the project's own), as lib/concrete evaporationRisk.
-// Simplifications: site-wide readings (no placement) and cold weather are day-level warnings and are
-// not attributed to a placement; low strength is the lab's (breaks) and not part of "has warnings".
-// tests/integration/review.test.ts checks these columns against the lib functions on varied records.
+// The per-placement figures are the rulebook's (lib/checks), as the server stored them after the last
+// write (lib/findings, table check_findings): late trucks, revolutions over an ordered limit, loads
+// with water added at the site, out-of-tolerance tests, the highest evaporation finding, and "has
+// warnings" (any caution or warning of the placement, or of its day: cold or hot weather). No rule
+// is written here; tests/integration/review.test.ts compares the columns with lib/checks.
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
-import { KG_M2_H_PER_LB_FT2_H, MM_PER_IN } from "@/lib/concrete/units";
 import { readableProjects, uuidArray } from "./access";
 import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query";
 
@@ -40,47 +31,6 @@ const SORT_SQL: Record<PlacementSort, string> = {
 
 const RISK: Record<number, EvaporationRiskLevel> = { 1: "low", 2: "caution", 3: "high" };
 
-// Inclusive bounds with lib/concrete's edge tolerance (atLeast/atMost: 1e-9 relative).
-const outside = (v: string, min: string, max: string) =>
-  `(${v} < (${min}) - 1e-9 * greatest(1, abs(${min})) or ${v} > (${max}) + 1e-9 * greatest(1, abs(${max})))`;
-
-// ASTM C94 §7 default slump ranges, in the project's unit system (as lib/concrete slumpRangeMm: the
-// IP bands apply to the target in inches rounded to 1e-6; the result is back in mm).
-const SLUMP_IN = `(floor(m.slump_target_mm / ${MM_PER_IN} * 1e6 + 0.5) / 1e6)`;
-const SLUMP_MIN = `case
-  when m.slump_tolerance_mm is not null then greatest(0, m.slump_target_mm - m.slump_tolerance_mm)
-  when pr.unit_system = 'SI' and m.slump_type = 'target' then greatest(0, m.slump_target_mm - case when m.slump_target_mm <= 50 then 15 when m.slump_target_mm <= 100 then 25 else 40 end)
-  when pr.unit_system = 'SI' then greatest(0, m.slump_target_mm - case when m.slump_target_mm <= 75 then 40 else 65 end)
-  when m.slump_type = 'target' then greatest(0, ${SLUMP_IN} - case when ${SLUMP_IN} <= 2 then 0.5 when ${SLUMP_IN} <= 4 then 1 else 1.5 end) * ${MM_PER_IN}
-  else greatest(0, ${SLUMP_IN} - case when ${SLUMP_IN} <= 3 then 1.5 else 2.5 end) * ${MM_PER_IN}
-end`;
-const SLUMP_MAX = `case
-  when m.slump_tolerance_mm is not null then case when m.slump_type = 'maximum' then m.slump_target_mm else m.slump_target_mm + m.slump_tolerance_mm end
-  when pr.unit_system = 'SI' and m.slump_type = 'target' then m.slump_target_mm + case when m.slump_target_mm <= 50 then 15 when m.slump_target_mm <= 100 then 25 else 40 end
-  when pr.unit_system = 'SI' then m.slump_target_mm
-  when m.slump_type = 'target' then (${SLUMP_IN} + case when ${SLUMP_IN} <= 2 then 0.5 when ${SLUMP_IN} <= 4 then 1 else 1.5 end) * ${MM_PER_IN}
-  else ${SLUMP_IN} * ${MM_PER_IN}
-end`;
-const AIR_TOL = "coalesce(m.air_tolerance_pct, 1.5)";
-const TEST_OUT = `(
-  (m.id is not null and t.slump_mm is not null and m.slump_target_mm is not null and ${outside("t.slump_mm", SLUMP_MIN, SLUMP_MAX)})
-  or (m.id is not null and t.air_pct is not null and m.air_target_pct is not null
-      and ${outside("t.air_pct", `greatest(0, m.air_target_pct - ${AIR_TOL})`, `m.air_target_pct + ${AIR_TOL}`)})
-  or (t.concrete_temp_c is not null and t.concrete_temp_c > coalesce(m.max_concrete_temp_c, pr.max_concrete_temp_c))
-)`;
-
-// ACI 305R thresholds in the project's unit system: 0.5 / 1.0 kg/m²/h, 0.1 / 0.2 lb/ft²/h, halved for
-// a low-bleed mix; a project override sets "high" and caution at half of it.
-const RATE = `case when pr.unit_system = 'SI' then w.evaporation_kg_m2_h else w.evaporation_kg_m2_h / ${KG_M2_H_PER_LB_FT2_H} end`;
-const HIGH = `case when pr.evaporation_high_kg_m2_h is not null
-  then case when pr.unit_system = 'SI' then pr.evaporation_high_kg_m2_h else pr.evaporation_high_kg_m2_h / ${KG_M2_H_PER_LB_FT2_H} end
-  else case when pr.unit_system = 'SI' then 1.0 else 0.2 end * case when coalesce(m.low_bleed, false) then 0.5 else 1 end end`;
-const CAUTION = `case when pr.evaporation_high_kg_m2_h is not null then (${HIGH}) / 2
-  else case when pr.unit_system = 'SI' then 0.5 else 0.1 end * case when coalesce(m.low_bleed, false) then 0.5 else 1 end end`;
-
-const DISCHARGE_MIN = "extract(epoch from (d.discharge_finished_at - d.batched_at)) / 60";
-const CHECKED_TRUCK = `d.status <> 'rejected' and d.discharge_finished_at is not null and d.discharge_finished_at >= d.batched_at`;
-
 /** The filtered set, one row per placement with its aggregates (the base of pages and exports). */
 function filteredSet(projectIds: string[], q: PlacementListQuery): SQL {
   const where: SQL[] = [sql`p.deleted_at is null`, sql`p.project_id = any(${uuidArray(projectIds)}::uuid[])`];
@@ -94,11 +44,10 @@ function filteredSet(projectIds: string[], q: PlacementListQuery): SQL {
       to_char((p.planned_start at time zone pr.time_zone)::date, 'YYYY-MM-DD') as local_date,
       p.planned_start, p.element, p.level, p.grid, m.code as mix_code, p.planned_volume_m3 as ordered_m3,
       coalesce(dl.placed_m3, 0) as placed_m3, coalesce(dl.trucks, 0) as trucks, coalesce(dl.rejected, 0) as rejected,
-      coalesce(dl.late, 0) as late_trucks, coalesce(dl.revs_over, 0) as revolutions_over,
-      coalesce(dl.water_l, 0) as water_added_l, coalesce(dl.water_loads, 0) as water_loads,
-      coalesce(ft.tests_out, 0) as tests_out, wr.risk_rank, wr.max_evap,
-      (coalesce(dl.late, 0) + coalesce(dl.revs_over, 0) + coalesce(dl.water_loads, 0) + coalesce(ft.tests_out, 0) > 0
-        or coalesce(wr.risk_rank, 0) = 3) as has_warnings,
+      cf.late as late_trucks, cf.revs_over as revolutions_over,
+      coalesce(dl.water_l, 0) as water_added_l, cf.water_loads,
+      cf.tests_out, case when wr.readings > 0 then coalesce(cf.evap_rank, 1) end as risk_rank, wr.max_evap,
+      (cf.findings + df.day_findings > 0) as has_warnings,
       p.state, p.signed_at, su.name as signed_by_name
     from placements p
     join projects pr on pr.id = p.project_id
@@ -108,21 +57,27 @@ function filteredSet(projectIds: string[], q: PlacementListQuery): SQL {
       select count(*)::int as trucks,
         count(*) filter (where d.status = 'rejected')::int as rejected,
         sum(d.volume_m3) filter (where d.status <> 'rejected') as placed_m3,
-        count(*) filter (where ${sql.raw(CHECKED_TRUCK)} and ${sql.raw(DISCHARGE_MIN)} > pr.discharge_limit_minutes)::int as late,
-        count(*) filter (where ${sql.raw(CHECKED_TRUCK)} and pr.revolution_limit is not null and d.revolutions > pr.revolution_limit)::int as revs_over,
-        sum(d.water_added_l) filter (where d.water_added_l > 0) as water_l,
-        count(*) filter (where d.water_added_l > 0)::int as water_loads
+        sum(d.water_added_l) filter (where d.water_added_l > 0) as water_l
       from deliveries d where d.placement_id = p.id and d.project_id = p.project_id and d.deleted_at is null
     ) dl on true
     left join lateral (
-      select count(*) filter (where ${sql.raw(TEST_OUT)})::int as tests_out
-      from field_tests t where t.placement_id = p.id and t.project_id = p.project_id and t.deleted_at is null
-    ) ft on true
+      select count(distinct f.subject_id) filter (where f.rule = 'discharge-time')::int as late,
+        count(distinct f.subject_id) filter (where f.rule = 'revolutions')::int as revs_over,
+        count(distinct f.subject_id) filter (where f.rule = 'site-water')::int as water_loads,
+        count(distinct f.subject_id) filter (where f.subject_type = 'field-test')::int as tests_out,
+        max(case when f.rule = 'evaporation' and f.severity = 'warning' then 3 when f.rule = 'evaporation' then 2 end) as evap_rank,
+        count(*)::int as findings
+      from check_findings f where f.placement_id = p.id and f.project_id = p.project_id
+    ) cf on true
     left join lateral (
-      select max(case when ${sql.raw(RATE)} >= ${sql.raw(HIGH)} then 3 when ${sql.raw(RATE)} >= ${sql.raw(CAUTION)} then 2 else 1 end) as risk_rank,
-        max(w.evaporation_kg_m2_h) as max_evap
+      select count(*)::int as day_findings from check_findings f
+      where f.project_id = p.project_id and f.placement_id is null and f.subject_type = 'day'
+        and f.local_date = (p.planned_start at time zone pr.time_zone)::date
+    ) df on true
+    left join lateral (
+      select max(w.evaporation_kg_m2_h) as max_evap, count(*)::int as readings
       from weather_observations w
-      where w.placement_id = p.id and w.project_id = p.project_id and w.deleted_at is null and w.evaporation_kg_m2_h is not null
+      where w.placement_id = p.id and w.project_id = p.project_id and w.deleted_at is null
     ) wr on true
     where ${sql.join(where, sql` and `)}`;
 }

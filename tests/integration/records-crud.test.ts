@@ -163,8 +163,14 @@ describe("record rules", () => {
     const ip = evaporationRateIP({ concreteTempF: cToF(33.3), airTempF: cToF(35), relativeHumidityPct: 30, windMph: kmhToMph(29) });
     expect(record.evaporationKgM2H).toBeCloseTo(lbFt2hToKgM2h(ip), 9);
 
+    // No concrete temperature: one behaviour everywhere, an estimate with the air temperature standing
+    // in for it (lib/checks evaporationOf), labelled as estimated wherever it is shown.
     const noConcrete = await makeRecord("weather-observations", s.project.id, team, { placementId: null, concreteTempC: null });
-    expect(noConcrete.evaporationKgM2H).toBeNull();
+    expect(noConcrete.concreteTempC).toBeNull();
+    expect(noConcrete.evaporationKgM2H).toBeCloseTo(
+      evaporationRateSI({ concreteTempC: noConcrete.airTempC as number, airTempC: noConcrete.airTempC as number, relativeHumidityPct: noConcrete.relativeHumidityPct as number, windKmh: noConcrete.windKmh as number }),
+      9,
+    );
   });
 
   it("a duplicate mix code or diary date is a 409 naming the field; after deleting, the code is free again", async () => {

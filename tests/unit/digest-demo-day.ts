@@ -2,7 +2,8 @@
 // source), with the same day rules as lib/digest/load.ts, so the builder is tested without a database.
 import { DEMO_PROJECTS, DEMO_USERS } from "@/db/seed";
 import { demoRecords, type DemoRecord } from "@/db/seed-records-data";
-import { localDayRange } from "@/lib/time/zone";
+import { toCheckInput } from "@/lib/checks";
+import { addDays, localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestMix, DigestPlacement } from "@/lib/digest/types";
 import { computeBreak, computeWeather } from "@/lib/records/compute";
 
@@ -102,6 +103,26 @@ export function demoDay(projectId: string, date: string, overrides: Partial<Dige
   return {
     project, date, placements: today,
     otherPlacements: placements.filter((p) => referenced.has(p.id) && !today.includes(p)),
-    deliveries, fieldTests, weather, dailyMeanAirTempsC: [], specimenSets, breaks, diary, photos: [],
+    deliveries, fieldTests, weather, checks: checkDay(), specimenSets, breaks, diary, photos: [],
   };
+
+  // What lib/findings/load.ts reads for the rulebook: the day's records, three days of weather before
+  // it under ACI 306.1-90, and every break of a set broken that day.
+  function checkDay() {
+    const from = project.coldWeatherDefinition === "aci306-1990" ? localDayRange(addDays(date, -3), project.timeZone).start : start;
+    const within = (type: Parameters<typeof all.get>[0], field: string, since = start) =>
+      mine(type).map(v).filter((x) => x[field] instanceof Date && (x[field] as Date) >= since && (x[field] as Date) < end);
+    const brokenSets = new Set(breaks.map((b) => b.specimenSetId));
+    return toCheckInput({
+      project: project as unknown as Values,
+      mixes: mine("mix-designs").map(v),
+      placements: mine("placements").map(v),
+      deliveries: within("deliveries", "arrivedAt"),
+      fieldTests: within("field-tests", "sampledAt"),
+      weather: within("weather-observations", "observedAt", from),
+      curing: within("curing-readings", "readAt"),
+      specimenSets: allSets.filter((s) => brokenSets.has(s.id)),
+      breaks: mine("breaks").map(v).filter((b) => brokenSets.has(b.specimenSetId as string)).map((b) => ({ ...b, strengthMPa: computeBreak(b).strengthMPa })),
+    });
+  }
 }

@@ -3,7 +3,7 @@
 // Journal 95(4), 1998); thresholds from ACI 305R Fig. 2.1.5; the caution band is this product's choice.
 import { describe, expect, it } from "vitest";
 import { evaluate } from "@/lib/checks";
-import { evaporationFinding, evaporationOf, hotWeatherFinding } from "@/lib/checks/weather";
+import { evaporationFinding, evaporationOf, hotWeatherFindings } from "@/lib/checks/weather";
 import { fToC, input, mix, mphToKmh, project, weather } from "./fixtures";
 
 const ip = project({ unitSystem: "IP" });
@@ -93,14 +93,16 @@ describe("evaporation thresholds and their wording (issue item 10)", () => {
 });
 
 describe("hot weather (ACI 305.1-14: 27 °C / 80 °F with evaporation above the precaution level)", () => {
-  it("30 °C concrete with 1.19 kg/m²/h is hot weather, with the heat-stress caution [common practice]", () => {
-    const f = hotWeatherFinding(weather({ concreteTempC: 30 }), project(), mix());
-    expect(f?.severity).toBe("caution");
-    expect(f?.message).toMatch(/heat stress/);
-    expect(f?.source.document).toBe("ACI 305.1");
+  const hot = (readings: ReturnType<typeof weather>[]) => hotWeatherFindings(input({ weather: readings }));
+  it("30 °C concrete with 1.19 kg/m²/h is hot weather, once per day, with the heat-stress caution [common practice]", () => {
+    const [f, ...more] = hot([weather({ concreteTempC: 30 }), weather({ id: "w2", concreteTempC: 31, observedAt: new Date("2026-07-14T21:00:00Z") })]);
+    expect(more).toEqual([]);
+    expect(f).toMatchObject({ severity: "caution", subject: { type: "day", id: "2026-07-14" }, applied: { value: 31, limit: 27, unit: "°C" } });
+    expect(f.message).toMatch(/heat stress/);
+    expect(f.source.document).toBe("ACI 305.1");
   });
   it("26 °C is not, even with high evaporation; 27 °C with low evaporation is not", () => {
-    expect(hotWeatherFinding(weather({ airTempC: 20, concreteTempC: 26, relativeHumidityPct: 10, windKmh: 40 }), project(), mix())).toBeNull();
-    expect(hotWeatherFinding(weather({ airTempC: 27, concreteTempC: 27, relativeHumidityPct: 90 }), project(), mix())).toBeNull();
+    expect(hot([weather({ airTempC: 20, concreteTempC: 26, relativeHumidityPct: 10, windKmh: 40 })])).toEqual([]);
+    expect(hot([weather({ airTempC: 27, concreteTempC: 27, relativeHumidityPct: 90 })])).toEqual([]);
   });
 });

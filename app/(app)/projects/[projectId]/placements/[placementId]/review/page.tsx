@@ -9,6 +9,7 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
+import { GOVERNS, citation } from "@/lib/checks";
 import { AppError } from "@/lib/errors";
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
@@ -99,15 +100,15 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         ) : (
           <ul className="space-y-1.5">
             {data.warnings.map((w, i) => (
-              <li key={i} className={w.tone === "danger" ? "border-l-4 border-danger-600 pl-2" : "border-l-4 border-caution-600 pl-2"} data-testid="warning">
-                <p className="text-sm font-semibold">{w.title}</p>
-                <p className="text-sm">{w.detail}</p>
-                <p className="text-xs text-muted">{w.rule}</p>
+              <li key={i} className={w.severity === "warning" ? "border-l-4 border-danger-600 pl-2" : "border-l-4 border-caution-600 pl-2"} data-testid="warning" data-rule={w.rule}>
+                <p className="text-sm font-semibold">{w.severity === "warning" ? "Warning" : "Caution"}: {w.title}</p>
+                <p className="text-sm">{w.message}</p>
+                <p className="text-xs text-muted">Rule: {citation(w.source)}</p>
               </li>
             ))}
           </ul>
         )}
-        <p className="mt-2 text-xs text-muted">Defaults from the standards; the project specification, local codes and the engineer of record govern.</p>
+        <p className="mt-2 text-xs text-muted">{GOVERNS}</p>
       </Section>
 
       {openConflicts.length ? (

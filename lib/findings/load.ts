@@ -1,0 +1,70 @@
+// What the rulebook reads for one project-local day, from PostgreSQL: the day's trucks, tests,
+// weather, curing readings and breaks, with the placements and mixes they belong to. The digest, the
+// PDF and the stored findings all read a day through this one loader, so they judge the same records.
+import { and, eq, gte, inArray, isNull, lt, or } from "drizzle-orm";
+import type { PgColumn } from "drizzle-orm/pg-core";
+import type { Executor } from "@/db";
+import { breaks, curingReadings, deliveries, fieldTests, mixDesigns, placements, projects, specimenSets, weatherObservations } from "@/db/schema";
+import { evaluate, onDate, toCheckInput, type CheckInput, type Finding } from "@/lib/checks";
+import { notFound } from "@/lib/errors";
+import { addDays, localDayRange } from "@/lib/time/zone";
+
+type Project = typeof projects.$inferSelect;
+
+const inRange = (col: PgColumn, range: { start: Date; end: Date }) => and(gte(col, range.start), lt(col, range.end))!;
+
+export async function loadProject(tx: Executor, projectId: string): Promise<Project> {
+  const [project] = await tx.select().from(projects).where(eq(projects.id, projectId));
+  if (!project) throw notFound("Project");
+  return project;
+}
+
+/**
+ * The records the rulebook needs to judge `date`: the day's own records, the three days of weather
+ * before it where the project uses the ACI 306.1-90 definition (a run of days decides it), and every
+ * break of a specimen set broken that day (cylinders are counted into tests per set and age).
+ */
+export async function loadCheckDay(tx: Executor, project: Project, date: string): Promise<CheckInput> {
+  const projectId = project.id;
+  const day = localDayRange(date, project.timeZone);
+  const weatherFrom = project.coldWeatherDefinition === "aci306-1990" ? localDayRange(addDays(date, -3), project.timeZone).start : day.start;
+  const live = <T extends { projectId: PgColumn; deletedAt: PgColumn }>(t: T) => and(eq(t.projectId, projectId), isNull(t.deletedAt))!;
+
+  // One after another: inside a transaction the statements share one connection.
+  const dayDeliveries = await tx.select().from(deliveries).where(and(live(deliveries), inRange(deliveries.arrivedAt, day)));
+  const dayTests = await tx.select().from(fieldTests).where(and(live(fieldTests), inRange(fieldTests.sampledAt, day)));
+  const dayWeather = await tx
+    .select()
+    .from(weatherObservations)
+    .where(and(live(weatherObservations), inRange(weatherObservations.observedAt, { start: weatherFrom, end: day.end })));
+  const dayCuring = await tx.select().from(curingReadings).where(and(live(curingReadings), inRange(curingReadings.readAt, day)));
+  const brokenSets = await tx.selectDistinct({ id: breaks.specimenSetId }).from(breaks).where(and(live(breaks), inRange(breaks.testedAt, day)));
+  const setIds = brokenSets.map((s) => s.id);
+  const sets = setIds.length ? await tx.select().from(specimenSets).where(and(live(specimenSets), inArray(specimenSets.id, setIds))) : [];
+  const setBreaks = setIds.length ? await tx.select().from(breaks).where(and(live(breaks), inArray(breaks.specimenSetId, setIds))) : [];
+  const referenced = [...dayDeliveries, ...dayTests, ...dayWeather, ...dayCuring, ...sets]
+    .map((r) => r.placementId)
+    .filter((id): id is string => id !== null);
+  const dayPlacements = await tx
+    .select()
+    .from(placements)
+    .where(and(live(placements), or(inRange(placements.plannedStart, day), referenced.length ? inArray(placements.id, [...new Set(referenced)]) : undefined)));
+  const mixIds = [...new Set(dayPlacements.map((p) => p.mixId).filter((id): id is string => id !== null))];
+  const mixes = mixIds.length ? await tx.select().from(mixDesigns).where(and(eq(mixDesigns.projectId, projectId), inArray(mixDesigns.id, mixIds))) : [];
+  return toCheckInput({
+    project,
+    mixes,
+    placements: dayPlacements,
+    deliveries: dayDeliveries,
+    fieldTests: dayTests,
+    weather: dayWeather,
+    curing: dayCuring,
+    specimenSets: sets,
+    breaks: setBreaks,
+  });
+}
+
+/** Every finding of one project-local day, information included. */
+export function dayFindings(input: CheckInput, date: string): Finding[] {
+  return onDate(evaluate(input), date, input.project.timeZone);
+}
