@@ -115,20 +115,21 @@ describe("the digest job for Larkspur Commons on 2026-11-17", () => {
       first.push(mails[0]);
     }
     const mail = await raw(first.find((m) => m.to.includes(added))!);
-    expect(mail.subject).toBe("Larkspur Commons, Tue, Nov 17: 1 placement, 2 warnings");
+    expect(mail.subject).toBe("Larkspur Commons, Tue, Nov 17: 1 placement, 5 warnings");
     expect(mail.to && "text" in mail.to ? mail.to.text : "").toContain(added);
     // Placements of the day with volume in the project's units, state and signature.
     expect(mail.text).toContain("Level 2 deck [Placed]");
     expect(mail.text).toContain("118.0 yd³ planned · 30.0 yd³ delivered in 3 trucks");
     expect(mail.text).toContain("Not signed yet");
-    // Warnings: each names its rule, and the evaporation warning says the specification governs.
-    expect(mail.text).toContain("High evaporation: 0.45 lb/ft²/h at 2:00 PM (Level 2 deck)");
-    expect(mail.text).toMatch(/ACI 305R: precautions .* The project's specification governs/);
-    expect(mail.text).toContain("Slump 6.5 in outside 3.0–5.0 in");
+    // Warnings: the rulebook's findings (lib/checks), each naming its rule and who governs.
+    expect(mail.text).toContain("! Warning: High evaporation: 0.449 lb/ft²/h (2:00 PM · Level 2 deck)");
+    expect(mail.text).toContain("0.1 lb/ft²/h, half the ACI 305R level for a low-bleed mix");
+    expect(mail.text).toContain("The project specification, local codes and the engineer of record govern");
+    expect(mail.text).toContain("! Caution: Slump out of tolerance: 6.5 in (range 3.0–5.0 in)");
     expect(mail.text).toContain("Rejected: Concrete at 97 °F on arrival");
     expect(mail.text).toContain("Crew on site: 17");
-    expect(mail.html).toContain('data-kind="evaporation"');
-    expect(mail.html).toContain('data-kind="test"');
+    expect(mail.html).toContain('data-rule="evaporation" data-severity="warning"');
+    expect(mail.html).toContain('data-rule="slump" data-severity="caution"');
     expect(mail.html).toContain(`/projects/${LARKSPUR}?date=${DAY}`);
     const listUnsubscribe = mail.headerLines.find((h) => h.key === "list-unsubscribe")?.line ?? "";
     expect(listUnsubscribe).toContain("/api/digest/unsubscribe?token=");
