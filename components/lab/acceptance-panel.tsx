@@ -4,6 +4,7 @@ import clsx from "clsx";
 import { CircleCheck, OctagonAlert } from "lucide-react";
 import { Notice } from "@/components/ui/notice";
 import type { MixAcceptance } from "@/lib/checks/strength";
+import { citation } from "@/lib/checks/types";
 import { RULE_AVERAGE, RULE_INDIVIDUAL } from "@/lib/checks/strength";
 import { RunningAverageChart } from "./charts";
 import { strengthText } from "./format";
@@ -27,7 +28,8 @@ export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }
           {a.flags.map((f) => (
             <Notice key={`${f.kind}-${f.setCode}`} tone="danger" title={f.title}>
               <p>{f.detail}</p>
-              <p className="mt-1 text-xs">Rule: {f.rule}</p>
+              <p className="mt-1 text-xs">Rule: {f.rule} Source: {citation(f.source)}.</p>
+              <p className="mt-1 text-xs">{f.governs}</p>
             </Notice>
           ))}
           <Notice tone="caution" title="What usually follows a low result" testId="low-result-follow-up">

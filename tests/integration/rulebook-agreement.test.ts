@@ -78,7 +78,7 @@ const dayArb = fc.record({
   cylinderDiameterMm: fc.constantFrom(100, 150),
   breakLoadsKN: fc.array(fc.constantFrom(150, 250, 400, 530), { maxLength: 3 }),
 });
-type Day = fc.Infer<typeof dayArb>;
+type Day = typeof dayArb extends fc.Arbitrary<infer T> ? T : never;
 
 async function writeDay(day: Day) {
   const project = await createProject({ unitSystem: day.project.unitSystem });
