@@ -78,7 +78,7 @@ describe("evaporation on an inch-pound project, from device rows", () => {
 
   it("a reading being typed gets the same finding as the saved reading", () => {
     const saved = findingsFor(fieldFindings(records({ weather: [weatherRow("w1", 80, 80, 50, 15)] }), NOW), "weather", "w1", "evaporation")[0];
-    const { id: _id, ...draft } = weatherRow("x", 80, 80, 50, 15);
+    const draft = weatherRow("x", 80, 80, 50, 15);
     const [typed] = draftFindings(records(), "weather", draft, NOW).filter((f) => f.rule === "evaporation");
     expect(typed.title).toBe(saved.title);
     expect(typed.severity).toBe(saved.severity);
