@@ -8,8 +8,6 @@ import { Controller, useForm, useWatch } from "react-hook-form";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { FindingNotice } from "@/components/findings/finding-notice";
-import { GOVERNS, toCheckProject, type Finding } from "@/lib/checks";
 import { formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete";
 import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
@@ -33,6 +31,7 @@ import {
   unitSystemOf,
   writeErrorOf,
 } from "./common";
+import { DeliveryChecks } from "./delivery-checks";
 import { draftFindings, findingsFor, DRAFT_ID } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 
@@ -78,44 +77,6 @@ function valuesOf(d: LocalRecord | null, units: UnitSystem): Values {
     status: d?.status === "rejected" ? "rejected" : "accepted",
     rejectReason: str(d?.rejectReason),
   };
-}
-
-type Times = { batchedAt: string | null; dischargeFinishedAt: string | null; status: string };
-
-/**
- * What the rulebook says about a truck: late discharge, the minutes elapsed while it still discharges
- * (no verdict until the discharge ends), revolutions and water added at site. A finished discharge with
- * no finding is in time; that is shown with the minutes and the project's limit.
- */
-function DeliveryChecks({ found, times, project, testId }: { found: Finding[]; times: Times; project: ProjectRow; testId?: string }) {
-  const discharge = found.filter((f) => f.rule === "discharge-time" || f.rule === "discharge-elapsed");
-  const others = found.filter((f) => !discharge.includes(f));
-  const minutes = times.batchedAt && times.dischargeFinishedAt ? Math.round((Date.parse(times.dischargeFinishedAt) - Date.parse(times.batchedAt)) / 60_000) : null;
-  const inTime = discharge.length === 0 && times.status !== "rejected" && minutes !== null && minutes >= 0;
-  if (!inTime && found.length === 0) return null;
-  return (
-    <div className="flex flex-col gap-2" data-testid={testId}>
-      {discharge.length > 0 || inTime ? (
-        <div className="flex flex-col gap-2 text-sm" data-testid="discharge-check">
-          {discharge.map((f) => (
-            <FindingNotice key={f.rule} finding={f} compact={f.severity === "info"} testId={f.rule === "discharge-elapsed" ? "discharge-elapsed" : "discharge-late"} />
-          ))}
-          {inTime ? (
-            <p className="flex flex-wrap items-center gap-2" data-testid="discharge-in-time">
-              <Verdict ok okText="Discharge in time" />
-              <span>
-                {minutes} min from batching, within the {toCheckProject(project).dischargeLimitMinutes} min limit (ASTM C94 §10.7 unless the project specification sets
-                another). {GOVERNS}
-              </span>
-            </p>
-          ) : null}
-        </div>
-      ) : null}
-      {others.map((f) => (
-        <FindingNotice key={f.rule} finding={f} compact={f.severity !== "warning"} testId={f.rule === "site-water" ? "water-check" : "delivery-finding"} />
-      ))}
-    </div>
-  );
 }
 
 function DeliveryForm({
