@@ -93,9 +93,8 @@ function RuleNote({ unitSystem, lowBleed, rule }: { unitSystem: UnitSystem; lowB
       <p>
         <span className="font-semibold text-ink-900">Rule: </span>
         {rule}. Levels used here: high from {formatRate(highAt)} {unit}
-        {lowBleed ? ` (half the ACI 305R ${formatRate(published)}, for a low-bleed mix: Silica Fume Association guidance)` : " (ACI 305R Fig. 2.1.5)"}; caution from{" "}
-        {formatRate(cautionAt)} {unit}, a band that is this product&apos;s own choice, not a published limit. The project specification, local codes and the
-        engineer of record govern over these defaults.
+        {lowBleed ? ` (half the ACI 305R ${formatRate(published)}, for a low-bleed mix: Silica Fume Association guidance)` : " (ACI 305R Fig. 2.1.5)"}, caution from{" "}
+        {formatRate(cautionAt)} {unit} (our band). The project specification, local codes and the engineer of record govern over these defaults.
       </p>
       <p className="mt-1">
         <span className="font-semibold text-ink-900">Formula: </span>

@@ -21,7 +21,7 @@ import { SUN_EXPOSURES } from "@/lib/records/enums";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, Section, mayWrite, byTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";
@@ -119,7 +119,7 @@ function DayChart({ points, units, highAt }: { points: { time: string; rate: num
   const top = Math.max(highAt * 1.3, ...points.map((p) => p.rate));
   return (
     <figure className="m-0 mt-3" data-testid="weather-chart" aria-label={`Evaporation rate through the day, ${unitLabel("evaporationRate", units)}`}>
-      <figcaption className="text-sm font-semibold">Evaporation rate today ({unitLabel("evaporationRate", units)})</figcaption>
+      <figcaption className="text-sm font-semibold">Evaporation rate by reading ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
         <LineChart responsive data={points} margin={{ top: 8, right: 12, bottom: 4, left: 0 }} style={{ width: "100%", height: "100%" }}>
           <CartesianGrid stroke="#cdd5de" strokeDasharray="3 3" />
@@ -194,14 +194,13 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
           <li key={o.id} className="rounded-lg border border-ink-200 p-3" data-testid="weather-row">
             <p className="flex flex-wrap items-center gap-2">
               <CloudSun className="h-5 w-5 text-ink-600" aria-hidden="true" />
-              <span className="font-bold">{formatTime(o.observedAt, project.timeZone)}</span>
+              <span className="font-bold">{formatDateTime(o.observedAt, project.timeZone)}</span>
               <span>
                 air {num(o.airTempC) !== undefined ? formatTemperature(num(o.airTempC)!, units) : "—"} · {num(o.relativeHumidityPct) ?? "—"} % RH · wind{" "}
                 {num(o.windKmh) !== undefined ? formatSpeed(num(o.windKmh)!, units) : "—"}
                 {num(o.concreteTempC) !== undefined ? ` · concrete ${formatTemperature(num(o.concreteTempC)!, units)}` : " · concrete not measured"}
                 {o.sun ? ` · ${str(o.sun)}` : ""}
               </span>
-              {found[0] ? <SeverityChip severity={found[0].severity} testId="weather-risk" /> : null}
             </p>
             <div className="mt-2 flex flex-col gap-2">
               {found.map((f) => (

@@ -137,3 +137,32 @@ test("an inch-pound project's field screens judge by the rulebook, offline, and 
   await context.close();
   expect(placementId).toBeTruthy();
 });
+
+test("the calculator's hot and cold notices are the rulebook's, with rule and who governs", async ({ page }) => {
+  mkdirSync(".data/screenshots", { recursive: true });
+  await page.setViewportSize(PHONE);
+  await page.goto("/tools/evaporation");
+  await expect(page.getByTestId("evap-calculator")).toHaveAttribute("data-hydrated", "true");
+  await page.getByRole("radio", { name: /^Inch-pound/ }).check();
+  const enter = async (v: { concrete: string; air: string; humidity: string; wind: string }) => {
+    await page.getByLabel("Concrete temperature", { exact: true }).fill(v.concrete);
+    await page.getByLabel("Air temperature", { exact: true }).fill(v.air);
+    await page.getByLabel("Relative humidity", { exact: true }).fill(v.humidity);
+    await page.getByLabel("Wind speed", { exact: true }).fill(v.wind);
+  };
+  // 80 °F with 0.2004 lb/ft²/h, over ACI 305R's 0.2: ACI 305.1 hot weather.
+  await enter({ concrete: "80", air: "80", humidity: "50", wind: "15" });
+  const hot = page.getByTestId("evap-hot-weather");
+  await expect(hot.getByTestId("finding-source")).toHaveText("Rule: ACI 305.1-14");
+  await expect(hot.getByTestId("finding-governs")).toContainText("engineer of record");
+  await expect(page.getByTestId("evap-cold-weather")).toHaveCount(0);
+  await shot(page, "calculator-hot-phone");
+  // 38 °F air: ACI 306R cold weather (40 °F on the inch-pound side).
+  await enter({ concrete: "60", air: "38", humidity: "70", wind: "5" });
+  const cold = page.getByTestId("evap-cold-weather");
+  await expect(cold.getByTestId("finding-source")).toHaveText("Rule: ACI 306R");
+  await expect(cold).toContainText("carbon monoxide");
+  await expect(page.getByTestId("evap-hot-weather")).toHaveCount(0);
+  await page.setViewportSize(DESKTOP);
+  await shot(page, "calculator-cold-desktop");
+});
