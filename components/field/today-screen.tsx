@@ -50,13 +50,20 @@ export function TodayScreen() {
       const tomorrow = addDays(today, 1);
       const records = await readFieldRecords(db, project);
       // Cold weather as the rulebook finds it under the project's definition (lib/checks).
-      const findings = fieldFindings(records, new Date());
+      let findings: Finding[] = [];
+      let unchecked = false;
+      try {
+        findings = fieldFindings(records, new Date());
+      } catch {
+        unchecked = true; // said on each card below, never hidden
+      }
       for (const placement of records.placements as LocalRecord[]) {
         const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
         if (day !== today && day !== tomorrow) continue;
         const warnings: string[] = [];
         if (placement.state === "held") warnings.push("Held");
         if (placement.pending) warnings.push("Not yet sent");
+        if (unchecked) warnings.push("Readings not checked: open the placement");
         const cold = placementFindings(records, findings, placement.id).filter((f) => f.rule === "cold-weather");
         out.push({ placement, project, day: day === today ? "today" : "tomorrow", warnings, cold });
       }
