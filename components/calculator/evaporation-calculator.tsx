@@ -141,7 +141,7 @@ export function EvaporationCalculator() {
             lowBleed={lowBleed}
           />
         </div>
-        <EvaporationGuidance description={shown.description} cautions={weatherCautions(shown.readings, unitSystem)} />
+        <EvaporationGuidance description={shown.description} cautions={weatherCautions(shown.readings, unitSystem, lowBleed)} />
       </div>
     </div>
   );

@@ -1,17 +1,8 @@
 import { Info, ListChecks, Wind } from "lucide-react";
+import { FindingNotice } from "@/components/findings/finding-notice";
 import { Notice } from "@/components/ui/notice";
 import type { EvaporationDescription } from "@/lib/concrete";
 import type { WeatherCautions } from "./evaporation-model";
-
-function List({ items }: { items: string[] }) {
-  return (
-    <ul className="list-disc space-y-1 pl-5">
-      {items.map((item) => (
-        <li key={item}>{item}</li>
-      ))}
-    </ul>
-  );
-}
 
 /** What to do about the rate, crew and weather cautions, and how far to trust the number. */
 export function EvaporationGuidance({
@@ -44,21 +35,9 @@ export function EvaporationGuidance({
         </ul>
       </section>
 
-      {cautions.tooHotConcrete ? (
-        <Notice tone="danger" title="Concrete too hot at discharge">
-          {cautions.tooHotConcrete} (ACI 305.1 / ACI 301 default; the project may set its own limit).
-        </Notice>
-      ) : null}
-      {cautions.hot ? (
-        <Notice tone="caution" title="Hot weather: look after the crew">
-          <List items={cautions.hot} />
-        </Notice>
-      ) : null}
-      {cautions.cold ? (
-        <Notice tone="caution" title="Cold weather: heaters and protection">
-          <List items={cautions.cold} />
-        </Notice>
-      ) : null}
+      {[cautions.tooHotConcrete, cautions.hot, cautions.cold].map((finding) =>
+        finding ? <FindingNotice key={finding.rule} finding={finding} testId={`evap-${finding.rule}`} /> : null,
+      )}
 
       <section aria-labelledby="evap-notes-title" className="card p-4 text-sm text-ink-800">
         <h2 id="evap-notes-title" className="text-base font-bold text-ink-950">

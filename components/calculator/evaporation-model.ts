@@ -1,15 +1,13 @@
 // Pure helpers behind the evaporation calculator: parsing what was typed, unit switching, the
 // lib/concrete call with field errors, and the chart series. No React here, so it is unit-tested.
+import { evaluate as evaluateRules, toCheckInput, type Finding, type Source } from "@/lib/checks";
+import { evaporationLimit } from "@/lib/checks/weather";
 import {
   ConcreteInputError,
-  checkConcreteTempAtDischarge,
-  coldWeatherCautions,
   describeEvaporation,
   evaporationRateIP,
   evaporationRateSI,
   fromDisplay,
-  hotWeatherCautions,
-  isColdWeather,
   toDisplay,
   unitLabel,
   type EvaporationDescription,
@@ -136,13 +134,11 @@ export function evaluate(draft: Draft, unitSystem: UnitSystem, lowBleed: boolean
   return { ok: false, errors };
 }
 
-// ACI 305R Fig. 2.1.5: 0.2 lb/ft²/h or 1.0 kg/m²/h, caution from half of it; half again for
-// low-bleed mixes (Silica Fume Association). The same numbers evaporationRisk applies (unit-tested).
-export function riskThresholds(unitSystem: UnitSystem, lowBleed: boolean) {
-  const factor = lowBleed ? 0.5 : 1;
-  return unitSystem === "SI"
-    ? { cautionAt: 0.5 * factor, highAt: 1.0 * factor }
-    : { cautionAt: 0.1 * factor, highAt: 0.2 * factor };
+// The levels the calculator draws and names come from the rulebook (ACI 305R, halved for a low-bleed
+// mix; the caution band is this product's own choice), with no project specification of its own.
+export function riskThresholds(unitSystem: UnitSystem, lowBleed: boolean): { cautionAt: number; highAt: number; source: Source } {
+  const limit = evaporationLimit({ unitSystem, evaporationHighKgM2H: null }, { lowBleed });
+  return { cautionAt: limit.cautionAt, highAt: limit.highAt, source: limit.source };
 }
 
 /** Rates are read to two decimals; the estimate is ±40 % anyway. */
@@ -210,28 +206,43 @@ export function chartSummary(points: ChartPoint[], unitSystem: UnitSystem, lowBl
   ].join(" ");
 }
 
-// The governance line closes both lists in lib/concrete; the calculator shows it once, on its own.
-const withoutGovernance = (lines: string[]) => lines.filter((line) => !/engineer of record/i.test(line));
-
-// ACI 305.1 treats 27 °C (80 °F) and above as hot-weather temperatures; each system keeps its own number.
-const HOT_AIR: Record<UnitSystem, number> = { SI: 27, IP: 80 };
-
 export interface WeatherCautions {
-  hot: string[] | null;
-  cold: string[] | null;
-  /** Concrete above the maximum temperature at discharge (ACI 305.1 / ACI 301), in words. */
-  tooHotConcrete: string | null;
+  /** ACI 305.1 hot weather (hot air or concrete with high evaporation), with the crew's heat-stress caution. */
+  hot: Finding | null;
+  /** ACI 306R cold weather (current definition), with the heater and freezing cautions. */
+  cold: Finding | null;
+  /** Concrete above the maximum temperature at discharge (ACI 305.1 / ACI 301 default). */
+  tooHotConcrete: Finding | null;
 }
 
-export function weatherCautions(readings: Readings, unitSystem: UnitSystem): WeatherCautions {
-  const airTempC = fromDisplay("temperature", readings.airTemp, unitSystem);
+const CALCULATOR = "calculator";
+
+/**
+ * The rulebook's hot, cold and too-hot notices for the conditions typed, as for one reading on a
+ * project with the published defaults (no project specification): the same code the field screens run.
+ */
+export function weatherCautions(readings: Readings, unitSystem: UnitSystem, lowBleed = false, at = new Date()): WeatherCautions {
   const concreteTempC = fromDisplay("temperature", readings.concreteTemp, unitSystem);
-  // ACI 306R, current definition: the air has fallen to 4 °C (40 °F).
-  const cold = isColdWeather({ definition: "aci306r-current", observedAirTempsC: [airTempC], unitSystem }).cold;
-  const discharge = checkConcreteTempAtDischarge({ concreteTempC, unitSystem });
-  return {
-    hot: readings.airTemp >= HOT_AIR[unitSystem] ? withoutGovernance(hotWeatherCautions()) : null,
-    cold: cold ? withoutGovernance(coldWeatherCautions()) : null,
-    tooHotConcrete: discharge.tooHot ? discharge.message : null,
-  };
+  const observedAt = at.toISOString();
+  const findings = evaluateRules(
+    toCheckInput({
+      project: { unitSystem, timeZone: "UTC" },
+      mixes: [{ id: CALCULATOR, code: "", fcMPa: 0, lowBleed }],
+      placements: [{ id: CALCULATOR, element: "", plannedStart: observedAt, mixId: CALCULATOR, leastDimensionMm: null }],
+      weather: [
+        {
+          id: CALCULATOR,
+          placementId: CALCULATOR,
+          observedAt,
+          airTempC: fromDisplay("temperature", readings.airTemp, unitSystem),
+          relativeHumidityPct: readings.humidity,
+          windKmh: fromDisplay("speed", readings.wind, unitSystem),
+          concreteTempC,
+        },
+      ],
+      fieldTests: [{ id: CALCULATOR, placementId: CALCULATOR, deliveryId: null, sampledAt: observedAt, slumpMm: null, airPct: null, concreteTempC }],
+    }),
+  );
+  const of = (rule: Finding["rule"]) => findings.find((f) => f.rule === rule) ?? null;
+  return { hot: of("hot-weather"), cold: of("cold-weather"), tooHotConcrete: of("concrete-temperature") };
 }

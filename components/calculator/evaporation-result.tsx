@@ -87,12 +87,14 @@ export function EvaporationResult({
 function RuleNote({ unitSystem, lowBleed, rule }: { unitSystem: UnitSystem; lowBleed: boolean; rule: string }) {
   const { cautionAt, highAt } = riskThresholds(unitSystem, lowBleed);
   const unit = unitLabel("evaporationRate", unitSystem);
+  const published = riskThresholds(unitSystem, false).highAt;
   return (
     <div className="mt-4 border-t border-ink-300/70 pt-3 text-sm text-ink-800">
       <p>
         <span className="font-semibold text-ink-900">Rule: </span>
-        {rule}. Levels used here: caution from {formatRate(cautionAt)}, high from {formatRate(highAt)} {unit}
-        {lowBleed ? " (halved for a low-bleed mix, Silica Fume Association guidance)" : ""}.
+        {rule}. Levels used here: high from {formatRate(highAt)} {unit}
+        {lowBleed ? ` (half the ACI 305R ${formatRate(published)}, for a low-bleed mix: Silica Fume Association guidance)` : " (ACI 305R Fig. 2.1.5)"}, caution from{" "}
+        {formatRate(cautionAt)} {unit} (our band). The project specification, local codes and the engineer of record govern over these defaults.
       </p>
       <p className="mt-1">
         <span className="font-semibold text-ink-900">Formula: </span>

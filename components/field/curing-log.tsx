@@ -8,13 +8,15 @@ import { useForm, useWatch } from "react-hook-form";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import { coldWeatherCautions, formatLength, formatTemperature, minimumConcreteTempC } from "@/lib/concrete";
+import { FindingNotice } from "@/components/findings/finding-notice";
+import { curingMinimumC } from "@/lib/checks/cold-weather";
+import { formatLength, formatTemperature } from "@/lib/concrete";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { NowInput, Section, mayWrite, Verdict, byTime, formatDateTime, fromLocalInput, num, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
-import { COLD_AIR_C } from "./weather-watch";
+import { findingsFor } from "./findings-model";
+import type { FieldFindings } from "./use-findings";
 
 type Values = { method: string; readAt: string; temp: string; location: string; note: string };
 
@@ -58,20 +60,16 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
   );
 }
 
-export function CuringLog({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+export function CuringLog({ placement, project, checks }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const readings = useLiveQuery(async () => (await listByParent(db, "curing-readings", "placementId", placement.id)).sort(byTime("readAt")), [db, placement.id]);
-  const cold = useLiveQuery(
-    async () =>
-      (await listByParent(db, "weather-observations", "placementId", placement.id)).some((o) => (num(o.airTempC) ?? 99) <= COLD_AIR_C) ||
-      (await listByParent(db, "checklists", "placementId", placement.id)).some((c) => c.kind === "cold-weather"),
-    [db, placement.id],
-  );
+  // Cold weather as the rulebook finds it under the project's definition, on this placement's days.
+  const cold = (checks?.findings ?? []).filter((f) => f.rule === "cold-weather");
   const [adding, setAdding] = useState(false);
   const least = num(placement.leastDimensionMm);
   const canWrite = mayWrite(project, "curing.write");
-  const minimum = least !== undefined ? minimumConcreteTempC(least) : null;
+  const minimum = curingMinimumC({ leastDimensionMm: least ?? null }, units);
 
   return (
     <Section
@@ -88,36 +86,33 @@ export function CuringLog({ placement, project }: { placement: LocalRecord; proj
       <p className="text-base" data-testid="curing-minimum">
         {minimum !== null && least !== undefined ? (
           <>
-            Minimum concrete temperature for a {formatLength(least, units)} section: <strong>{formatTemperature(minimum, units)}</strong> (ACI 306R). The
-            project specification governs.
+            Minimum concrete temperature for a {formatLength(least, units)} section: <strong>{formatTemperature(minimum, units)}</strong> (ACI 306R,
+            minimum by least section dimension). The project specification, local codes and the engineer of record govern.
           </>
         ) : (
           "Enter the least dimension on the plan to see the minimum temperature for the section."
         )}
       </p>
-      {cold ? (
-        <Notice tone="caution" title="Cold weather: vent combustion heaters" className="mt-3" testId="curing-co-caution">
-          <ul className="list-disc pl-5">
-            {coldWeatherCautions().map((c) => (
-              <li key={c}>{c}</li>
-            ))}
-          </ul>
-        </Notice>
-      ) : null}
+      {cold.map((f) => (
+        <FindingNotice key={f.subject.id} finding={f} compact className="mt-3" testId="curing-co-caution" />
+      ))}
       {adding ? <ReadingForm placement={placement} project={project} onDone={() => setAdding(false)} /> : null}
       <ul className="mt-3 flex flex-col gap-2">
         {(readings ?? []).map((r) => {
           const t = num(r.tempC);
-          const low = minimum !== null && t !== undefined && t < minimum;
+          const low = findingsFor(checks?.findings ?? [], "curing", r.id);
           return (
             <li key={r.id} className="flex flex-wrap items-center gap-2 rounded-lg border border-ink-200 p-3" data-testid="curing-row">
               <Thermometer className="h-5 w-5 text-ink-600" aria-hidden="true" />
               <span className="text-lg font-bold">{t !== undefined ? formatTemperature(t, units) : "—"}</span>
-              {minimum !== null ? <Verdict ok={!low} okText="At or above the minimum" badText="Below the minimum" testId="curing-verdict" /> : null}
+              {minimum !== null && checks ? <Verdict ok={low.length === 0} okText="At or above the minimum" badText="Below the minimum" testId="curing-verdict" /> : null}
               <span className="text-sm text-muted">
                 {formatDateTime(r.readAt, project.timeZone)} · {str(r.method)}
                 {r.location ? ` · ${str(r.location)}` : ""}
               </span>
+              {low.map((f) => (
+                <FindingNotice key={f.rule} finding={f} compact className="basis-full" testId="curing-finding" />
+              ))}
               <div className="basis-full">
                 <RecordPhotos projectId={project.id} recordType="curing-readings" recordId={r.id} canAdd={canAddPhotos(project, placement)} />
               </div>
@@ -125,7 +120,7 @@ export function CuringLog({ placement, project }: { placement: LocalRecord; proj
           );
         })}
       </ul>
-      {!cold ? (
+      {cold.length === 0 ? (
         <p className="mt-3 text-sm text-muted">In cold weather, vent combustion heaters outside: their exhaust carries carbon monoxide.</p>
       ) : null}
     </Section>

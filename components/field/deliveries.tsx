@@ -8,7 +8,7 @@ import { Controller, useForm, useWatch } from "react-hook-form";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { checkDischarge, checkWaterAddition, formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete";
+import { formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete";
 import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
@@ -31,8 +31,9 @@ import {
   unitSystemOf,
   writeErrorOf,
 } from "./common";
-
-const SPEC = "The project specification governs.";
+import { DeliveryChecks } from "./delivery-checks";
+import { draftFindings, findingsFor, DRAFT_ID } from "./findings-model";
+import type { FieldFindings } from "./use-findings";
 
 /** Trucks in the order they came: batch time, then arrival, then ticket number. */
 export const deliveryOrder = (a: LocalRecord, b: LocalRecord) =>
@@ -78,82 +79,17 @@ function valuesOf(d: LocalRecord | null, units: UnitSystem): Values {
   };
 }
 
-type Checked = { discharge?: { minutes: number; limit: number; ok: boolean }; water?: { span: number; ok: boolean; allowanceOk: boolean | null; allowed: number | null } };
-
-/** The delivery limits for what has been typed (SI instants and litres). */
-function liveChecks(
-  v: { batchedAt: string | null; dischargeFinishedAt: string | null; dischargeStartedAt: string | null; waterL: number | null; waterFirstAt: string | null; waterLastAt: string | null; volumeM3: number | null },
-  project: ProjectRow,
-  mix: LocalRecord | null,
-): Checked {
-  const out: Checked = {};
-  const limit = typeof project.dischargeLimitMinutes === "number" ? project.dischargeLimitMinutes : 90;
-  const end = v.dischargeFinishedAt ?? v.dischargeStartedAt;
-  if (v.batchedAt && end) {
-    try {
-      const c = checkDischarge({ batchedAt: new Date(v.batchedAt), dischargeFinishedAt: new Date(end), limitMinutes: limit });
-      out.discharge = { minutes: c.minutes, limit: c.limitMinutes, ok: c.withinTime };
-    } catch {
-      /* times out of order: the form says so */
-    }
-  }
-  if (v.waterL && v.waterL > 0 && v.waterFirstAt) {
-    const perM3 = num(mix?.siteWaterAllowedLPerM3);
-    const allowed = perM3 !== undefined && v.volumeM3 ? perM3 * v.volumeM3 : null;
-    try {
-      const c = checkWaterAddition({
-        firstAt: new Date(v.waterFirstAt),
-        lastAt: new Date(v.waterLastAt ?? v.waterFirstAt),
-        addedLitres: v.waterL,
-        allowedLitres: allowed ?? Number.MAX_SAFE_INTEGER,
-      });
-      out.water = { span: c.minutesSpan, ok: c.withinWindow, allowanceOk: allowed === null ? null : c.withinAllowance, allowed };
-    } catch {
-      /* out of order */
-    }
-  }
-  return out;
-}
-
-function CheckLines({ checks, units, testId }: { checks: Checked; units: UnitSystem; testId?: string }) {
-  if (!checks.discharge && !checks.water) return null;
-  return (
-    <div className="flex flex-col gap-2" data-testid={testId}>
-      {checks.discharge ? (
-        <div className="flex flex-wrap items-center gap-2 text-sm" data-testid="discharge-check">
-          <Verdict ok={checks.discharge.ok} okText="Discharge in time" badText="Discharge too late" />
-          <span>
-            {Math.round(checks.discharge.minutes)} min from batching; limit {checks.discharge.limit} min (ASTM C94). {SPEC}
-          </span>
-        </div>
-      ) : null}
-      {checks.water ? (
-        <div className="flex flex-wrap items-center gap-2 text-sm" data-testid="water-check">
-          <Verdict ok={checks.water.ok} okText="Water within 15 min" badText="Water outside 15 min" />
-          {checks.water.allowanceOk !== null ? (
-            <Verdict ok={checks.water.allowanceOk} okText="Within the allowance" badText="Over the allowance" />
-          ) : null}
-          <span>
-            All site water within 15 min of the first portion
-            {checks.water.allowed !== null ? `, at most ${formatWaterVolume(checks.water.allowed, units)} for this load` : " (no allowance in the mix)"} (ASTM C94). {SPEC}
-          </span>
-        </div>
-      ) : null}
-    </div>
-  );
-}
-
 function DeliveryForm({
   placement,
   project,
-  mix,
   existing,
+  checks,
   onDone,
 }: {
   placement: LocalRecord;
   project: ProjectRow;
-  mix: LocalRecord | null;
   existing: LocalRecord | null;
+  checks: FieldFindings | undefined;
   onDone: () => void;
 }) {
   const db = useSyncDb();
@@ -166,19 +102,23 @@ function DeliveryForm({
   const errors = formState.errors;
   const v = useWatch({ control }) as Values;
   const at = (t: string) => fromTimeInput(t, baseDate);
-  const checks = liveChecks(
-    {
-      batchedAt: at(v.batchedAt),
-      dischargeStartedAt: at(v.dischargeStartedAt),
-      dischargeFinishedAt: at(v.dischargeFinishedAt),
-      waterL: toSI("waterVolume", v.water, units),
-      waterFirstAt: at(v.waterFirstAt),
-      waterLastAt: at(v.waterLastAt),
-      volumeM3: toSI("volume", v.volume, units),
-    },
-    project,
-    mix,
-  );
+  const batchedAt = at(v.batchedAt);
+  const draft = {
+    id: existing?.id ?? DRAFT_ID,
+    placementId: placement.id,
+    ticketNumber: v.ticketNumber.trim(),
+    truck: v.truck.trim(),
+    volumeM3: toSI("volume", v.volume, units) ?? 0,
+    batchedAt,
+    arrivedAt: at(v.arrivedAt) ?? batchedAt,
+    dischargeStartedAt: at(v.dischargeStartedAt),
+    dischargeFinishedAt: at(v.dischargeFinishedAt),
+    waterAddedL: toSI("waterVolume", v.water, units),
+    waterFirstAt: at(v.waterFirstAt),
+    waterLastAt: at(v.waterLastAt),
+    status: v.status,
+  };
+  const live = checks && batchedAt ? draftFindings(checks.records, "deliveries", draft, new Date()) : [];
 
   const onSubmit = handleSubmit(async (f) => {
     setFailure(null);
@@ -267,14 +207,14 @@ function DeliveryForm({
       </fieldset>
       {v.status === "rejected" ? <Field label="Why it was rejected" className="sm:col-span-2" error={errors.rejectReason?.message} {...register("rejectReason")} /> : null}
       <div className="sm:col-span-2">
-        <CheckLines checks={checks} units={units} testId="delivery-live-checks" />
+        <DeliveryChecks found={live} times={{ batchedAt, dischargeFinishedAt: draft.dischargeFinishedAt, status: v.status }} project={project} testId="delivery-live-checks" />
       </div>
       <FormFooter failure={failure} saveLabel={existing ? "Save changes" : "Save truck"} saveTestId="delivery-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }
 
-export function Deliveries({ placement, project, mix }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null }) {
+export function Deliveries({ placement, project, checks }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const deliveries = useLiveQuery(async () => (await listByParent(db, "deliveries", "placementId", placement.id)).sort(deliveryOrder), [db, placement.id]);
@@ -297,22 +237,10 @@ export function Deliveries({ placement, project, mix }: { placement: LocalRecord
       <p className="text-sm text-muted" data-testid="delivery-total">
         {(deliveries ?? []).length} {(deliveries ?? []).length === 1 ? "truck" : "trucks"} · {formatVolume(total, units)} accepted
       </p>
-      {editing === "new" ? <DeliveryForm placement={placement} project={project} mix={mix} existing={null} onDone={() => setEditing(null)} /> : null}
+      {editing === "new" ? <DeliveryForm placement={placement} project={project} checks={checks} existing={null} onDone={() => setEditing(null)} /> : null}
       <ul className="mt-3 flex flex-col gap-3">
         {(deliveries ?? []).map((d, i) => {
-          const checks = liveChecks(
-            {
-              batchedAt: str(d.batchedAt) || null,
-              dischargeStartedAt: str(d.dischargeStartedAt) || null,
-              dischargeFinishedAt: str(d.dischargeFinishedAt) || null,
-              waterL: num(d.waterAddedL) ?? null,
-              waterFirstAt: str(d.waterFirstAt) || null,
-              waterLastAt: str(d.waterLastAt) || null,
-              volumeM3: num(d.volumeM3) ?? null,
-            },
-            project,
-            mix,
-          );
+          const found = findingsFor(checks?.findings ?? [], "delivery", d.id);
           return (
             <li key={d.id} className="rounded-lg border border-ink-200 p-3" data-testid="delivery-row" data-ticket={str(d.ticketNumber)}>
               <div className="flex flex-wrap items-center gap-2">
@@ -341,10 +269,10 @@ export function Deliveries({ placement, project, mix }: { placement: LocalRecord
               ) : null}
               {d.admixtureNote ? <p className="text-sm">Admixture: {str(d.admixtureNote)}</p> : null}
               <div className="mt-2">
-                <CheckLines checks={checks} units={units} />
+                <DeliveryChecks found={found} times={{ batchedAt: str(d.batchedAt) || null, dischargeFinishedAt: str(d.dischargeFinishedAt) || null, status: str(d.status) }} project={project} />
               </div>
               <RecordPhotos projectId={project.id} recordType="deliveries" recordId={d.id} canAdd={canAddPhotos(project, placement)} title="Truck photos" />
-              {editing === d.id ? <DeliveryForm placement={placement} project={project} mix={mix} existing={d} onDone={() => setEditing(null)} /> : null}
+              {editing === d.id ? <DeliveryForm placement={placement} project={project} checks={checks} existing={d} onDone={() => setEditing(null)} /> : null}
             </li>
           );
         })}

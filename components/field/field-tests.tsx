@@ -8,51 +8,37 @@ import { useForm, useWatch } from "react-hook-form";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import {
-  airRangePct,
-  checkFieldTest,
-  concreteYield,
-  formatDensity,
-  formatLength,
-  formatTemperature,
-  formatVolume,
-  slumpRangeMm,
-  type UnitSystem,
-} from "@/lib/concrete";
+import { FindingList } from "@/components/findings/finding-notice";
+import { toCheckMix, toCheckProject, type Finding } from "@/lib/checks";
+import { airRangeFor, maxTemperatureFor, slumpRangeFor } from "@/lib/checks/field-tests";
+import { concreteYield, formatDensity, formatLength, formatTemperature, formatVolume, type UnitSystem } from "@/lib/concrete";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { deliveryOrder } from "./deliveries";
 import { Section, Verdict, mayWrite, byTime, formatTime, num, parseNumber, str, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { draftFindings, findingsFor } from "./findings-model";
+import type { FieldFindings } from "./use-findings";
 
 type Results = { slumpMm?: number; airPct?: number; concreteTempC?: number };
 type Verdicts = { slump?: { ok: boolean; range: string }; air?: { ok: boolean; range: string }; temperature?: { ok: boolean; range: string } };
 
-/** Each measured value against the mix (ASTM C94 tolerances, the maximum concrete temperature). */
-export function judge(results: Results, mix: LocalRecord | null, project: ProjectRow, units: UnitSystem): Verdicts {
+/**
+ * Each measured value beside the range it was judged against; the verdict is the rulebook's (a finding
+ * of that rule on this test means out of range). The ranges are the rulebook's too: the mix's own
+ * tolerance, else ASTM C94's, and the maximum temperature of the mix, else the project.
+ */
+export function verdictsOf(found: Finding[], results: Results, mix: LocalRecord | null, project: ProjectRow, units: UnitSystem): Verdicts {
   const out: Verdicts = {};
-  const slumpType = mix?.slumpType === "maximum" ? "maximum" : "target";
-  const slumpSpec = num(mix?.slumpTargetMm);
-  const airSpec = num(mix?.airTargetPct);
-  const maxTemp = num(mix?.maxConcreteTempC) ?? num(project.maxConcreteTempC) ?? 35;
-  try {
-    if (results.slumpMm !== undefined && slumpSpec !== undefined) {
-      const c = checkFieldTest({ slumpMm: results.slumpMm, slumpType, specifiedSlumpMm: slumpSpec, specifiedAirPct: 0, unitSystem: units });
-      const r = slumpRangeMm(slumpSpec, slumpType, units);
-      out.slump = { ok: c.slump?.ok ?? true, range: `${r.min > 0 ? formatLength(r.min, units) + " to " : "up to "}${formatLength(r.max, units)}` };
-    }
-    if (results.airPct !== undefined && airSpec !== undefined) {
-      const c = checkFieldTest({ airPct: results.airPct, slumpType, specifiedSlumpMm: 0, specifiedAirPct: airSpec, unitSystem: units });
-      const r = airRangePct(airSpec);
-      out.air = { ok: c.air?.ok ?? true, range: `${r.min.toFixed(1)} to ${r.max.toFixed(1)} %` };
-    }
-    if (results.concreteTempC !== undefined) {
-      const c = checkFieldTest({ concreteTempC: results.concreteTempC, maxConcreteTempC: maxTemp, slumpType, specifiedSlumpMm: 0, specifiedAirPct: 0, unitSystem: units });
-      out.temperature = { ok: c.temperature?.ok ?? true, range: `at most ${formatTemperature(maxTemp, units)}` };
-    }
-  } catch {
-    /* a value the check refuses (negative …): the schema names it on save */
+  const m = mix ? toCheckMix(mix) : null;
+  const has = (rule: Finding["rule"]) => found.some((f) => f.rule === rule);
+  const slump = m && slumpRangeFor(m, units);
+  if (results.slumpMm !== undefined && slump) out.slump = { ok: !has("slump"), range: `${slump.min > 0 ? `${formatLength(slump.min, units)} to ` : "up to "}${formatLength(slump.max, units)}` };
+  const air = m && airRangeFor(m);
+  if (results.airPct !== undefined && air) out.air = { ok: !has("air-content"), range: `${air.min.toFixed(1)} to ${air.max.toFixed(1)} %` };
+  if (results.concreteTempC !== undefined) {
+    const { max } = maxTemperatureFor(m, toCheckProject(project));
+    out.temperature = { ok: !has("concrete-temperature"), range: `at most ${max} ${unitLabel("temperature", units)}` };
   }
   return out;
 }
@@ -69,7 +55,21 @@ function VerdictLine({ label, verdict, testId }: { label: string; verdict?: { ok
 
 type Values = { deliveryId: string; slump: string; air: string; concreteTemp: string; airTemp: string; density: string; batchMass: string; notes: string };
 
-function FieldTestForm({ placement, project, mix, deliveries, onDone }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null; deliveries: LocalRecord[]; onDone: () => void }) {
+function FieldTestForm({
+  placement,
+  project,
+  mix,
+  deliveries,
+  checks,
+  onDone,
+}: {
+  placement: LocalRecord;
+  project: ProjectRow;
+  mix: LocalRecord | null;
+  deliveries: LocalRecord[];
+  checks: FieldFindings | undefined;
+  onDone: () => void;
+}) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
@@ -85,7 +85,10 @@ function FieldTestForm({ placement, project, mix, deliveries, onDone }: { placem
     concreteTempC: toSI("temperature", v.concreteTemp, units) ?? undefined,
   };
   const clean = (r: Results): Results => Object.fromEntries(Object.entries(r).filter(([, x]) => typeof x === "number" && Number.isFinite(x)));
-  const verdicts = judge(clean(results), mix, project, units);
+  const measured = clean(results);
+  const draft = { placementId: placement.id, deliveryId: v.deliveryId || null, sampledAt: new Date().toISOString(), slumpMm: measured.slumpMm ?? null, airPct: measured.airPct ?? null, concreteTempC: measured.concreteTempC ?? null };
+  const live = checks ? draftFindings(checks.records, "fieldTests", draft, new Date()) : [];
+  const verdicts = checks ? verdictsOf(live, measured, mix, project, units) : {};
   const densitySI = toSI("density", v.density, units);
   const massText = parseNumber(v.batchMass);
   const batchMassKg = massText !== null && Number.isFinite(massText) ? (units === "SI" ? massText : massText * 0.45359237) : null;
@@ -154,12 +157,13 @@ function FieldTestForm({ placement, project, mix, deliveries, onDone }: { placem
       {yieldText ? <p className="text-sm font-semibold sm:col-span-2" data-testid="field-test-yield">{yieldText}</p> : null}
       <Field label="Notes" className="sm:col-span-2" {...register("notes")} />
       {!mix ? <p className="text-sm text-muted sm:col-span-2">Choose the mix on the plan to check slump and air against it.</p> : null}
+      <FindingList findings={live} compact className="sm:col-span-2" testId="field-test-live-findings" />
       <FormFooter failure={failure} saveLabel="Save test" saveTestId="field-test-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );
 }
 
-export function FieldTests({ placement, project, mix }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null }) {
+export function FieldTests({ placement, project, mix, checks }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const deliveries = useLiveQuery(async () => (await listByParent(db, "deliveries", "placementId", placement.id)).sort(deliveryOrder), [db, placement.id]);
@@ -179,14 +183,14 @@ export function FieldTests({ placement, project, mix }: { placement: LocalRecord
         ) : null
       }
     >
-      {adding ? <FieldTestForm placement={placement} project={project} mix={mix} deliveries={deliveries ?? []} onDone={() => setAdding(false)} /> : null}
+      {adding ? <FieldTestForm placement={placement} project={project} mix={mix} deliveries={deliveries ?? []} checks={checks} onDone={() => setAdding(false)} /> : null}
       {(tests ?? []).length === 0 && !adding ? <p className="text-muted">No tests yet.{canWrite ? "" : " The inspector records them."}</p> : null}
       <ul className="mt-3 flex flex-col gap-3">
         {(tests ?? []).map((t) => {
           const results: Results = { slumpMm: num(t.slumpMm), airPct: num(t.airPct), concreteTempC: num(t.concreteTempC) };
-          const verdicts = judge(Object.fromEntries(Object.entries(results).filter(([, x]) => x !== undefined)), mix, project, units);
+          const found = findingsFor(checks?.findings ?? [], "field-test", t.id);
+          const verdicts = checks ? verdictsOf(found, results, mix, project, units) : {};
           const truckIndex = (deliveries ?? []).findIndex((d) => d.id === t.deliveryId);
-          const out = Object.values(verdicts).some((x) => x && !x.ok);
           return (
             <li key={t.id} className="rounded-lg border border-ink-200 p-3" data-testid="field-test-row">
               <p className="flex items-center gap-2 font-bold">
@@ -232,12 +236,7 @@ export function FieldTests({ placement, project, mix }: { placement: LocalRecord
                 ) : null}
               </dl>
               {t.notes ? <p className="mt-1 text-sm">{str(t.notes)}</p> : null}
-              {out ? (
-                <Notice tone="danger" title="Out of tolerance" className="mt-2" testId="field-test-warning">
-                  Run a check test at once on another portion of the same load; if that also fails, the load is rejected (ASTM C94). The project
-                  specification governs.
-                </Notice>
-              ) : null}
+              <FindingList findings={found} className="mt-2" testId="field-test-warning" />
               <RecordPhotos projectId={project.id} recordType="field-tests" recordId={t.id} canAdd={canAddPhotos(project, placement)} title="Test photos" />
             </li>
           );

@@ -25,6 +25,7 @@ import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
 import { FieldTests } from "./field-tests";
 import { StateBadge } from "./today-screen";
+import { useFindings } from "./use-findings";
 import { WeatherWatch } from "./weather-watch";
 
 const ACTION_WORDS: Partial<Record<PlacementState, string>> = {
@@ -120,6 +121,8 @@ export function PlacementScreen() {
   const placement = useLiveQuery(async () => (await getRecord(db, "placements", id)) ?? null, [db, id]);
   const memberProject = useProject(placement?.projectId);
   const readiness = useReadiness(id);
+  // One reading of the rulebook for every section of the placement (lib/checks via the field model).
+  const checks = useFindings(placement?.projectId, placement?.id);
   // A signed placement is read-only for everyone: its sections see a role that writes nothing.
   const project = memberProject && placement?.state === "signed" ? { ...memberProject, role: "owner" as const } : memberProject;
   const mix = useLiveQuery(
@@ -184,10 +187,10 @@ export function PlacementScreen() {
       <PlacementSignOff placement={placement} project={memberProject ?? project} mix={mix ?? null} />
       <ReadinessCheck placement={placement} project={project} readiness={readiness} />
 
-      <Deliveries placement={placement} project={project} mix={mix ?? null} />
-      <FieldTests placement={placement} project={project} mix={mix ?? null} />
-      <WeatherWatch placement={placement} project={project} mix={mix ?? null} />
-      <CuringLog placement={placement} project={project} />
+      <Deliveries placement={placement} project={project} checks={checks} />
+      <FieldTests placement={placement} project={project} mix={mix ?? null} checks={checks} />
+      <WeatherWatch placement={placement} project={project} mix={mix ?? null} checks={checks} />
+      <CuringLog placement={placement} project={project} checks={checks} />
       <AuditTrail projectId={placement.projectId} recordId={placement.id} timeZone={project.timeZone} />
     </div>
   );

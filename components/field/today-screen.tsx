@@ -8,16 +8,20 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { OpenFindings } from "@/components/findings/open-findings";
+import { FindingBadge } from "@/components/findings/finding-notice";
+import type { Finding } from "@/lib/checks";
 import { formatLength, formatVolume } from "@/lib/concrete";
 import { STATE_LABELS } from "@/lib/placements/workflow";
 import type { PlacementState } from "@/lib/records/enums";
-import { listByProject, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, num, str, unitSystemOf, useFieldContext, useProjects } from "./common";
+import { fieldFindings, placementFindings } from "./findings-model";
 import { PlanPlacementForm } from "./plan-placement-form";
+import { readFieldRecords } from "./use-findings";
 
 
-type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[] };
+type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
 
 export function StateBadge({ state }: { state: string }) {
   const held = state === "held";
@@ -44,18 +48,24 @@ export function TodayScreen() {
     for (const project of shown) {
       const today = dateInZone(new Date(), project.timeZone);
       const tomorrow = addDays(today, 1);
-      const [placements, observations] = await Promise.all([
-        listByProject(db, "placements", project.id),
-        listByProject(db, "weather-observations", project.id),
-      ]);
-      for (const placement of placements) {
+      const records = await readFieldRecords(db, project);
+      // Cold weather as the rulebook finds it under the project's definition (lib/checks).
+      let findings: Finding[] = [];
+      let unchecked = false;
+      try {
+        findings = fieldFindings(records, new Date());
+      } catch {
+        unchecked = true; // said on each card below, never hidden
+      }
+      for (const placement of records.placements as LocalRecord[]) {
         const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
         if (day !== today && day !== tomorrow) continue;
         const warnings: string[] = [];
         if (placement.state === "held") warnings.push("Held");
-        if (observations.some((o) => o.placementId === placement.id && (num(o.airTempC) ?? 99) <= 4)) warnings.push("Cold weather");
         if (placement.pending) warnings.push("Not yet sent");
-        out.push({ placement, project, day: day === today ? "today" : "tomorrow", warnings });
+        if (unchecked) warnings.push("Readings not checked: open the placement");
+        const cold = placementFindings(records, findings, placement.id).filter((f) => f.rule === "cold-weather");
+        out.push({ placement, project, day: day === today ? "today" : "tomorrow", warnings, cold });
       }
     }
     return out.sort((a, b) => byTime("plannedStart")(a.placement, b.placement));
@@ -120,7 +130,7 @@ export function TodayScreen() {
           {(["today", "tomorrow"] as const).map((day) =>
             rows
               .filter((r) => r.day === day)
-              .map(({ placement, project, warnings }, i) => {
+              .map(({ placement, project, warnings, cold }, i) => {
                 const units = unitSystemOf(project);
                 const volume = num(placement.plannedVolumeM3);
                 const least = num(placement.leastDimensionMm);
@@ -157,6 +167,11 @@ export function TodayScreen() {
                             ))}
                           </div>
                         ) : null}
+                        {cold.map((f) => (
+                          <div key={f.subject.id} className="mt-2">
+                            <FindingBadge finding={f} testId="today-cold-weather" />
+                          </div>
+                        ))}
                       </div>
                       <ChevronRight className="h-6 w-6 shrink-0 text-ink-500" aria-hidden="true" />
                     </Link>

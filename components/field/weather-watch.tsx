@@ -1,86 +1,39 @@
 "use client";
 
+// Weather watch on a placement: readings of air, humidity, wind and concrete temperature, each judged
+// by the rulebook (lib/checks) in the project's unit system, the day's cold weather under the
+// project's definition, and the hot- and cold-weather checklists.
 import { FormFooter } from "./form-footer";
-import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
-import { CircleCheck, ClipboardCheck, CloudSun, OctagonAlert, Plus, TriangleAlert } from "lucide-react";
+import { ClipboardCheck, CloudSun, Plus } from "lucide-react";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { CartesianGrid, Line, LineChart, ReferenceLine, XAxis, YAxis } from "recharts";
+import { FindingNotice, SeverityChip } from "@/components/findings/finding-notice";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { describeEvaporation, formatEvaporation, formatSpeed, formatTemperature, toDisplay, type EvaporationRisk, type UnitSystem } from "@/lib/concrete";
+import { toCheckMix, toCheckProject, type Finding } from "@/lib/checks";
+import { evaporationLimit } from "@/lib/checks/weather";
+import { formatSpeed, formatTemperature, type UnitSystem } from "@/lib/concrete";
 import { SUN_EXPOSURES } from "@/lib/records/enums";
-import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, Section, mayWrite, byTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
-
-export const COLD_AIR_C = 4;
-
-const HOT_ITEMS: [string, string][] = [
-  ["materials-cooled", "Materials cooled or shaded; retarder as the mix allows"],
-  ["placing-time", "Placing planned for the cooler hours"],
-  ["subgrade-dampened", "Subgrade and forms dampened, no standing water"],
-  ["windbreaks-shade", "Windbreaks and sunshades up"],
-  ["fogging-ready", "Fogging or evaporation reducer on site"],
-  ["curing-ready", "Curing materials ready to start at once after finishing"],
-  ["cylinders-shaded", "Test cylinders shaded and kept in their curing range"],
-  ["crew-heat", "Crew water, shade and rest breaks arranged"],
-];
-const COLD_ITEMS: [string, string][] = [
-  ["no-frozen-ground", "No frost or ice on the subgrade, forms or reinforcement"],
-  ["heaters-vented", "Combustion heaters vented outside (carbon monoxide)"],
-  ["enclosure-ready", "Enclosure or insulated blankets ready"],
-  ["concrete-temp", "Concrete temperature at delivery at or above the minimum for the section"],
-  ["thermometers", "Thermometers placed to log the protection period"],
-  ["protection-removal", "Plan to remove protection gradually"],
-  ["cylinders-protected", "Test cylinders protected from freezing"],
-];
-
-type Evap = { rateSI: number; risk: EvaporationRisk; rule: string; actions: string[] };
-
-export function evaporationOf(o: { airTempC?: number; relativeHumidityPct?: number; windKmh?: number; concreteTempC?: number }, project: ProjectRow, lowBleed: boolean): Evap | null {
-  if (o.airTempC === undefined || o.relativeHumidityPct === undefined || o.windKmh === undefined) return null;
-  const highAt = num(project.evaporationHighKgM2H);
-  try {
-    const d = describeEvaporation({
-      unitSystem: "SI",
-      airTempC: o.airTempC,
-      concreteTempC: o.concreteTempC ?? o.airTempC,
-      relativeHumidityPct: o.relativeHumidityPct,
-      windKmh: o.windKmh,
-      lowBleed,
-      ...(highAt !== undefined ? { highAt, cautionAt: highAt / 2 } : {}),
-    });
-    return { rateSI: d.rate, risk: d.risk, rule: d.rule, actions: d.actions };
-  } catch {
-    return null;
-  }
-}
-
-const RISK_LOOK: Record<EvaporationRisk, { words: string; icon: typeof CircleCheck; box: string }> = {
-  low: { words: "Low risk", icon: CircleCheck, box: "bg-lichen-50 text-lichen-800 border-lichen-600" },
-  caution: { words: "Caution", icon: TriangleAlert, box: "bg-caution-50 text-caution-800 border-caution-600" },
-  high: { words: "High risk", icon: OctagonAlert, box: "bg-danger-50 text-danger-800 border-danger-600" },
-};
-
-export function RiskBadge({ risk, testId }: { risk: EvaporationRisk; testId?: string }) {
-  const look = RISK_LOOK[risk];
-  const Icon = look.icon;
-  return (
-    <span data-testid={testId} data-risk={risk} className={clsx("inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-sm font-semibold", look.box)}>
-      <Icon className="h-4 w-4" aria-hidden="true" />
-      {look.words}
-    </span>
-  );
-}
+import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { draftFindings, findingsFor } from "./findings-model";
+import type { FieldFindings } from "./use-findings";
+import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";
 
 type Values = { observedAt: string; airTemp: string; rh: string; wind: string; concreteTemp: string; sun: string };
 
-function ObservationForm({ placement, project, lowBleed, onDone }: { placement: LocalRecord; project: ProjectRow; lowBleed: boolean; onDone: () => void }) {
+const finite = (x: number | null): x is number => x !== null && Number.isFinite(x);
+
+/** The rulebook's verdict on one reading: the evaporation finding first, then hot weather. */
+const readingFindings = (findings: Finding[], id: string) => [...findingsFor(findings, "weather", id, "evaporation"), ...findingsFor(findings, "weather", id, "hot-weather")];
+
+function ObservationForm({ placement, project, checks, onDone }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined; onDone: () => void }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
@@ -90,16 +43,16 @@ function ObservationForm({ placement, project, lowBleed, onDone }: { placement: 
   useDirtyGuard("weather-new", formState.isDirty);
   const errors = formState.errors;
   const v = useWatch({ control }) as Values;
-  const evap = evaporationOf(
-    {
-      airTempC: toSI("temperature", v.airTemp, units) ?? undefined,
-      relativeHumidityPct: parseNumber(v.rh) ?? undefined,
-      windKmh: toSI("speed", v.wind, units) ?? undefined,
-      concreteTempC: toSI("temperature", v.concreteTemp, units) ?? undefined,
-    },
-    project,
-    lowBleed,
-  );
+  const draft = {
+    placementId: placement.id,
+    observedAt: fromLocalInput(v.observedAt) ?? new Date().toISOString(),
+    airTempC: toSI("temperature", v.airTemp, units),
+    relativeHumidityPct: parseNumber(v.rh),
+    windKmh: toSI("speed", v.wind, units),
+    concreteTempC: toSI("temperature", v.concreteTemp, units),
+  };
+  const readable = checks && finite(draft.airTempC) && finite(draft.relativeHumidityPct) && finite(draft.windKmh) && (draft.concreteTempC === null || finite(draft.concreteTempC));
+  const live = readable ? readingFindings(draftFindings(checks.records, "weather", draft, new Date()), "draft") : [];
 
   const onSubmit = handleSubmit(async (f) => {
     setFailure(null);
@@ -128,7 +81,15 @@ function ObservationForm({ placement, project, lowBleed, onDone }: { placement: 
       <Field label="Air temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.airTemp?.message} data-testid="weather-air-temp" {...register("airTemp")} />
       <Field label="Relative humidity" inputMode="decimal" unit="%" error={errors.rh?.message} data-testid="weather-rh" {...register("rh")} />
       <Field label="Wind (average, not gusts)" inputMode="decimal" unit={unitLabel("speed", units)} error={errors.wind?.message} data-testid="weather-wind" {...register("wind")} />
-      <Field label="Concrete temperature" inputMode="decimal" unit={unitLabel("temperature", units)} hint="Blank: the air temperature is used" error={errors.concreteTemp?.message} data-testid="weather-concrete-temp" {...register("concreteTemp")} />
+      <Field
+        label="Concrete temperature"
+        inputMode="decimal"
+        unit={unitLabel("temperature", units)}
+        hint="Blank: the air temperature stands in, and the rate is marked as an estimate"
+        error={errors.concreteTemp?.message}
+        data-testid="weather-concrete-temp"
+        {...register("concreteTemp")}
+      />
       <fieldset>
         <legend className="text-sm font-semibold text-ink-800">Sun</legend>
         <div className="mt-1 grid grid-cols-3 gap-2">
@@ -140,11 +101,12 @@ function ObservationForm({ placement, project, lowBleed, onDone }: { placement: 
           ))}
         </div>
       </fieldset>
-      {evap ? (
-        <div className="flex flex-wrap items-center gap-2 sm:col-span-2" data-testid="weather-live-rate">
-          <span className="text-2xl font-bold">{formatEvaporation(evap.rateSI, units)}</span>
-          <RiskBadge risk={evap.risk} testId="weather-live-risk" />
-          <span className="text-sm text-muted">{evap.rule}. The project specification governs.</span>
+      {live.length > 0 ? (
+        <div className="flex flex-col gap-2 sm:col-span-2" data-testid="weather-live-rate">
+          <SeverityChip severity={live[0].severity} testId="weather-live-risk" />
+          {live.map((f) => (
+            <FindingNotice key={f.rule} finding={f} compact testId="weather-live-finding" />
+          ))}
         </div>
       ) : null}
       <FormFooter failure={failure} saveLabel="Save observation" saveTestId="weather-save" submitting={formState.isSubmitting} onCancel={onDone} />
@@ -152,19 +114,18 @@ function ObservationForm({ placement, project, lowBleed, onDone }: { placement: 
   );
 }
 
-function DayChart({ points, units, highSI }: { points: { time: string; rate: number }[]; units: UnitSystem; highSI: number }) {
+function DayChart({ points, units, highAt }: { points: { time: string; rate: number }[]; units: UnitSystem; highAt: number }) {
   if (points.length < 1) return null;
-  const high = toDisplay("evaporationRate", highSI, units);
-  const top = Math.max(high * 1.3, ...points.map((p) => p.rate));
+  const top = Math.max(highAt * 1.3, ...points.map((p) => p.rate));
   return (
     <figure className="m-0 mt-3" data-testid="weather-chart" aria-label={`Evaporation rate through the day, ${unitLabel("evaporationRate", units)}`}>
-      <figcaption className="text-sm font-semibold">Evaporation rate today ({unitLabel("evaporationRate", units)})</figcaption>
+      <figcaption className="text-sm font-semibold">Evaporation rate by reading ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
         <LineChart responsive data={points} margin={{ top: 8, right: 12, bottom: 4, left: 0 }} style={{ width: "100%", height: "100%" }}>
           <CartesianGrid stroke="#cdd5de" strokeDasharray="3 3" />
           <XAxis dataKey="time" stroke="#445466" fontSize={12} />
-          <YAxis domain={[0, Number(top.toFixed(2))]} stroke="#445466" fontSize={12} width={40} />
-          <ReferenceLine y={high} stroke="#951c15" strokeDasharray="6 3" label={{ value: "high", fill: "#951c15", fontSize: 12, position: "insideTopRight" }} />
+          <YAxis domain={[0, Number(top.toFixed(units === "SI" ? 2 : 3))]} stroke="#445466" fontSize={12} width={48} />
+          <ReferenceLine y={highAt} stroke="#951c15" strokeDasharray="6 3" label={{ value: `precautions ${highAt}`, fill: "#951c15", fontSize: 12, position: "insideTopRight" }} />
           <Line type="monotone" dataKey="rate" stroke="#187467" strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
         </LineChart>
       </div>
@@ -172,72 +133,9 @@ function DayChart({ points, units, highSI }: { points: { time: string; rate: num
   );
 }
 
-function Checklist({ checklist, canWrite }: { checklist: LocalRecord; canWrite: boolean }) {
-  const db = useSyncDb();
-  const items = useLiveQuery(() => listByParent(db, "checklist-items", "checklistId", checklist.id), [db, checklist.id]);
-  const [error, setError] = useState<string | null>(null);
-  const order = (checklist.kind === "cold-weather" ? COLD_ITEMS : HOT_ITEMS).map(([key]) => key);
-  const sorted = [...(items ?? [])].sort((a, b) => order.indexOf(str(a.itemKey)) - order.indexOf(str(b.itemKey)));
-  const answer = async (item: LocalRecord, patch: Record<string, unknown>) => {
-    setError(null);
-    try {
-      await updateLocal(db, "checklist-items", item.id, patch);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
-  const done = sorted.filter((i) => i.answer).length;
-  return (
-    <div className="mt-3 rounded-lg border border-ink-200 p-3" data-testid={`checklist-${str(checklist.kind)}`}>
-      <p className="flex items-center gap-2 text-lg font-bold">
-        <ClipboardCheck className="h-5 w-5" aria-hidden="true" />
-        {checklist.kind === "hot-weather" ? "Hot-weather checklist" : checklist.kind === "cold-weather" ? "Cold-weather checklist" : "Readiness checklist"}
-        <span className="text-sm font-normal text-muted">
-          {done} of {sorted.length} answered
-        </span>
-      </p>
-      <ul className="mt-2 flex flex-col divide-y divide-ink-100">
-        {sorted.map((item) => (
-          <li key={item.id} className="py-2" data-testid="checklist-item">
-            <p className="font-semibold">{str(item.label)}</p>
-            <div className="mt-1 grid grid-cols-3 gap-2" role="group" aria-label={str(item.label)}>
-              {(["yes", "no", "na"] as const).map((a) => (
-                <button
-                  key={a}
-                  type="button"
-                  aria-pressed={item.answer === a}
-                  disabled={!canWrite}
-                  onClick={() => void answer(item, { answer: item.answer === a ? null : a })}
-                  className={clsx(
-                    "min-h-touch rounded-lg border font-semibold",
-                    item.answer === a ? (a === "no" ? "border-danger-600 bg-danger-50 text-danger-800" : "border-lichen-700 bg-lichen-50 text-lichen-900") : "border-ink-300 bg-white",
-                  )}
-                >
-                  {a === "yes" ? "Yes" : a === "no" ? "No" : "N/A"}
-                </button>
-              ))}
-            </div>
-            <input
-              aria-label={`Note: ${str(item.label)}`}
-              placeholder="Note"
-              defaultValue={str(item.note)}
-              disabled={!canWrite}
-              onBlur={(e) => e.target.value !== str(item.note) && void answer(item, { note: e.target.value || null })}
-              className="mt-2 min-h-touch w-full rounded-lg border border-ink-300 px-3"
-            />
-            <RecordPhotos projectId={checklist.projectId} recordType="checklist-items" recordId={item.id} canAdd={canWrite} />
-          </li>
-        ))}
-      </ul>
-      {error ? <Notice tone="danger" title="Not saved">{error}</Notice> : null}
-    </div>
-  );
-}
-
-export function WeatherWatch({ placement, project, mix }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null }) {
+export function WeatherWatch({ placement, project, mix, checks }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
-  const lowBleed = mix?.lowBleed === true;
   const observations = useLiveQuery(async () => (await listByParent(db, "weather-observations", "placementId", placement.id)).sort(byTime("observedAt")), [db, placement.id]);
   const checklists = useLiveQuery(() => listByParent(db, "checklists", "placementId", placement.id), [db, placement.id]);
   const [adding, setAdding] = useState(false);
@@ -245,16 +143,17 @@ export function WeatherWatch({ placement, project, mix }: { placement: LocalReco
   const [starting, setStarting] = useState(false);
   const canObserve = mayWrite(project, "weather.write");
   const canCheck = mayWrite(project, "checklist.write");
+  const findings = checks?.findings ?? [];
 
-  const rows = (observations ?? []).map((o) => ({
-    o,
-    evap: evaporationOf({ airTempC: num(o.airTempC), relativeHumidityPct: num(o.relativeHumidityPct), windKmh: num(o.windKmh), concreteTempC: num(o.concreteTempC) }, project, lowBleed),
-  }));
-  const hot = rows.some((r) => r.evap?.risk === "high");
-  const cold = rows.some((r) => (num(r.o.airTempC) ?? 99) <= COLD_AIR_C);
+  const rows = (observations ?? []).map((o) => ({ o, found: readingFindings(findings, o.id) }));
+  const hot = rows.some((r) => r.found.some((f) => f.severity === "warning" || f.rule === "hot-weather"));
+  const cold = findings.filter((f) => f.rule === "cold-weather");
   const has = (kind: string) => (checklists ?? []).some((c) => c.kind === kind);
-  const highSI = (num(project.evaporationHighKgM2H) ?? 1.0) * (lowBleed ? 0.5 : 1);
-  const points = rows.filter((r) => r.evap).map((r) => ({ time: formatTime(r.o.observedAt, project.timeZone), rate: Number(toDisplay("evaporationRate", r.evap!.rateSI, units).toFixed(2)) }));
+  const highAt = evaporationLimit(toCheckProject(project), mix ? toCheckMix(mix) : null).highAt;
+  const points = rows.flatMap(({ o, found }) => {
+    const rate = found.find((f) => f.rule === "evaporation")?.applied.value;
+    return typeof rate === "number" ? [{ time: formatTime(o.observedAt, project.timeZone), rate: Number(rate.toFixed(units === "SI" ? 2 : 3)) }] : [];
+  });
 
   const start = async (kind: "hot-weather" | "cold-weather") => {
     setError(null);
@@ -283,51 +182,44 @@ export function WeatherWatch({ placement, project, mix }: { placement: LocalReco
         ) : null
       }
     >
-      {adding ? <ObservationForm placement={placement} project={project} lowBleed={lowBleed} onDone={() => setAdding(false)} /> : null}
+      {adding ? <ObservationForm placement={placement} project={project} checks={checks} onDone={() => setAdding(false)} /> : null}
+      {checks?.error ? (
+        <Notice tone="danger" title="The readings could not be checked" className="mb-2">
+          {checks.error}
+        </Notice>
+      ) : null}
       {rows.length === 0 && !adding ? <p className="text-muted">No observations yet.</p> : null}
       <ul className="mt-3 flex flex-col gap-2">
-        {rows.map(({ o, evap }) => (
+        {rows.map(({ o, found }) => (
           <li key={o.id} className="rounded-lg border border-ink-200 p-3" data-testid="weather-row">
             <p className="flex flex-wrap items-center gap-2">
               <CloudSun className="h-5 w-5 text-ink-600" aria-hidden="true" />
-              <span className="font-bold">{formatTime(o.observedAt, project.timeZone)}</span>
+              <span className="font-bold">{formatDateTime(o.observedAt, project.timeZone)}</span>
               <span>
                 air {num(o.airTempC) !== undefined ? formatTemperature(num(o.airTempC)!, units) : "—"} · {num(o.relativeHumidityPct) ?? "—"} % RH · wind{" "}
                 {num(o.windKmh) !== undefined ? formatSpeed(num(o.windKmh)!, units) : "—"}
-                {num(o.concreteTempC) !== undefined ? ` · concrete ${formatTemperature(num(o.concreteTempC)!, units)}` : ""}
+                {num(o.concreteTempC) !== undefined ? ` · concrete ${formatTemperature(num(o.concreteTempC)!, units)}` : " · concrete not measured"}
                 {o.sun ? ` · ${str(o.sun)}` : ""}
               </span>
             </p>
-            {evap ? (
-              <p className="mt-1 flex flex-wrap items-center gap-2">
-                <span className="text-xl font-bold" data-testid="weather-rate">
-                  {formatEvaporation(evap.rateSI, units)}
-                </span>
-                <RiskBadge risk={evap.risk} testId="weather-risk" />
-              </p>
-            ) : null}
+            <div className="mt-2 flex flex-col gap-2">
+              {found.map((f) => (
+                <FindingNotice key={f.rule} finding={f} compact={f.severity !== "warning"} testId={f.rule === "evaporation" && f.severity === "warning" ? "weather-high-risk" : "weather-finding"} />
+              ))}
+            </div>
             <RecordPhotos projectId={project.id} recordType="weather-observations" recordId={o.id} canAdd={canAddPhotos(project, placement)} />
           </li>
         ))}
       </ul>
-      {hot ? (
-        <Notice tone="danger" title="High evaporation risk" className="mt-3" testId="weather-high-risk">
-          Plastic shrinkage cracking is likely: fog the air above the surface, put up windbreaks and sunshades, use an evaporation reducer and start
-          curing promptly. ACI 305R: precautions when evaporation exceeds 1.0 kg/m²/h (0.2 lb/ft²/h). The project specification governs.
-        </Notice>
-      ) : null}
-      {cold ? (
-        <Notice tone="caution" title="Cold weather" className="mt-3" testId="weather-cold">
-          Air at or below {formatTemperature(COLD_AIR_C, units)}: protect the concrete and keep it above the minimum for its section (ACI 306R). The
-          project specification governs.
-        </Notice>
-      ) : null}
+      {cold.map((f) => (
+        <FindingNotice key={f.subject.id} finding={f} className="mt-3" testId="weather-cold" />
+      ))}
       {hot && canCheck && !has("hot-weather") ? (
         <Button className="mt-3" data-testid="start-hot-checklist" disabled={starting} onClick={() => void start("hot-weather")}>
           <ClipboardCheck className="h-5 w-5" aria-hidden="true" /> Start the hot-weather checklist
         </Button>
       ) : null}
-      {cold && canCheck && !has("cold-weather") ? (
+      {cold.length > 0 && canCheck && !has("cold-weather") ? (
         <Button className="mt-3" data-testid="start-cold-checklist" disabled={starting} onClick={() => void start("cold-weather")}>
           <ClipboardCheck className="h-5 w-5" aria-hidden="true" /> Start the cold-weather checklist
         </Button>
@@ -337,7 +229,7 @@ export function WeatherWatch({ placement, project, mix }: { placement: LocalReco
           {error}
         </Notice>
       ) : null}
-      <DayChart points={points} units={units} highSI={highSI} />
+      <DayChart points={points} units={units} highAt={highAt} />
       {(checklists ?? []).map((c) => (
         <Checklist key={c.id} checklist={c} canWrite={canCheck} />
       ))}

@@ -4,9 +4,10 @@
 // warnings raised, checklists, photos and what is still open (conflicts, unsent changes, uploads).
 import { useLiveQuery } from "dexie-react-hooks";
 import { CircleAlert, CircleCheck } from "lucide-react";
-import { judge } from "@/components/field/field-tests";
 import { num, str, unitSystemOf } from "@/components/field/common";
-import { evaporationOf } from "@/components/field/weather-watch";
+import { fieldFindings, placementFindings } from "@/components/field/findings-model";
+import { readFieldRecords } from "@/components/field/use-findings";
+import { GOVERNS, attention } from "@/lib/checks";
 import { formatVolume } from "@/lib/concrete";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import type { SyncDb } from "@/lib/sync/client/db";
@@ -16,12 +17,13 @@ export type PlacementSummary = {
   trucks: number;
   rejectedTrucks: number;
   volumeM3: number;
+  /** Trucks with water added at site (the rulebook judges each one; this is the count for the record). */
   waterAddedTrucks: number;
   tests: number;
-  testsOutOfTolerance: number;
+  /** The rulebook's cautions and warnings on the placement, counted by what they say ("Late truck" × 2). */
+  raised: { label: string; count: number }[];
   specimenSets: number;
   observations: number;
-  highEvaporation: number;
   curingReadings: number;
   checklists: { kind: string; answered: number; total: number; no: number }[];
   photos: number;
@@ -32,8 +34,17 @@ export type PlacementSummary = {
 
 const CHECKLIST_NAMES: Record<string, string> = { readiness: "Readiness", "hot-weather": "Hot weather", "cold-weather": "Cold weather" };
 
-async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow, mix: LocalRecord | null): Promise<PlacementSummary> {
-  const units = unitSystemOf(project);
+// The label of a finding is its title up to the colon: "Slump out of tolerance", "High evaporation".
+function countRaised(titles: string[]): { label: string; count: number }[] {
+  const counts = new Map<string, number>();
+  for (const t of titles) {
+    const label = t.split(":")[0];
+    counts.set(label, (counts.get(label) ?? 0) + 1);
+  }
+  return [...counts].map(([label, count]) => ({ label, count }));
+}
+
+async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow): Promise<PlacementSummary> {
   const [deliveries, tests, sets, observations, curing, lists] = await Promise.all([
     listByParent(db, "deliveries", "placementId", placement.id),
     listByParent(db, "field-tests", "placementId", placement.id),
@@ -49,41 +60,37 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
     items.push(...rows);
     checklists.push({ kind: str(list.kind), answered: rows.filter((r) => r.answer).length, total: rows.length, no: rows.filter((r) => r.answer === "no").length });
   }
-  const records = [placement, ...deliveries, ...tests, ...sets, ...observations, ...curing, ...lists, ...items];
-  const ids = new Set(records.map((r) => r.id));
+  const own = [placement, ...deliveries, ...tests, ...sets, ...observations, ...curing, ...lists, ...items];
+  const ids = new Set(own.map((r) => r.id));
   // Photos are synced records: count every device's, not only the blobs this device holds.
   const [conflicts, photos] = await Promise.all([
     db.conflicts.filter((c) => ids.has(c.recordId)).toArray(),
     db.records("photos").where("recordId").anyOf([...ids]).filter((p) => !p.deletedAt).toArray(),
   ]);
-  const lowBleed = mix?.lowBleed === true;
+  const records = await readFieldRecords(db, project);
+  const raised = attention(placementFindings(records, fieldFindings(records, new Date()), placement.id));
   return {
     trucks: deliveries.length,
     rejectedTrucks: deliveries.filter((d) => d.status === "rejected").length,
     volumeM3: deliveries.filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (num(d.volumeM3) ?? 0), 0),
     waterAddedTrucks: deliveries.filter((d) => (num(d.waterAddedL) ?? 0) > 0).length,
     tests: tests.length,
-    testsOutOfTolerance: tests.filter((t) => {
-      const v = judge({ slumpMm: num(t.slumpMm), airPct: num(t.airPct), concreteTempC: num(t.concreteTempC) }, mix, project, units);
-      return [v.slump, v.air, v.temperature].some((x) => x && !x.ok);
-    }).length,
+    raised: countRaised(raised.map((f) => f.title)),
     specimenSets: sets.length,
     observations: observations.length,
-    highEvaporation: observations.filter(
-      (o) => evaporationOf({ airTempC: num(o.airTempC), relativeHumidityPct: num(o.relativeHumidityPct), windKmh: num(o.windKmh), concreteTempC: num(o.concreteTempC) }, project, lowBleed)?.risk === "high",
-    ).length,
     curingReadings: curing.length,
     checklists,
     photos: photos.length,
     photosUploading: photos.filter((p) => !p.storedAt).length,
     conflicts: conflicts.filter((c) => c.kind === "conflict").length,
-    unsent: records.filter((r) => r.pending).length,
+    unsent: own.filter((r) => r.pending).length,
   };
 }
 
 export function usePlacementSummary(placement: LocalRecord, project: ProjectRow, mix: LocalRecord | null): PlacementSummary | undefined {
   const db = useSyncDb();
-  return useLiveQuery(() => summarize(db, placement, project, mix), [db, placement, project, mix]);
+  // The mix is read with the project's records; the parameter stays so a changed mix re-counts.
+  return useLiveQuery(() => summarize(db, placement, project), [db, placement, project, mix]);
 }
 
 /** Open items that the device already knows will stop the sign-off (the server checks again). */
@@ -115,9 +122,7 @@ export function PlacementSignSummary({ summary, project }: { summary: PlacementS
   const s = summary;
   const units = unitSystemOf(project);
   const warnings = [
-    s.testsOutOfTolerance ? plural(s.testsOutOfTolerance, "test out of tolerance", "tests out of tolerance") : null,
-    s.highEvaporation ? plural(s.highEvaporation, "high-evaporation reading", "high-evaporation readings") : null,
-    s.waterAddedTrucks ? plural(s.waterAddedTrucks, "truck with water added at site", "trucks with water added at site") : null,
+    ...s.raised.map((r) => (r.count > 1 ? `${r.label} (${r.count})` : r.label)),
     s.rejectedTrucks ? plural(s.rejectedTrucks, "truck rejected", "trucks rejected") : null,
     ...s.checklists.filter((c) => c.no).map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} checklist: ${plural(c.no, "item", "items")} answered no`),
   ].filter((w): w is string => !!w);
@@ -131,7 +136,7 @@ export function PlacementSignSummary({ summary, project }: { summary: PlacementS
       <Line testId="sign-summary-trucks" label="Trucks" value={`${plural(s.trucks, "truck", "trucks")}, ${formatVolume(s.volumeM3, units)} accepted`} />
       <Line label="Field tests" value={`${plural(s.tests, "test", "tests")}, ${plural(s.specimenSets, "specimen set", "specimen sets")}`} />
       <Line label="Weather" value={`${plural(s.observations, "observation", "observations")}; curing ${plural(s.curingReadings, "reading", "readings")}`} />
-      <Line testId="sign-summary-warnings" label="Warnings raised" value={warnings.length ? warnings.join("; ") : "none"} warn={warnings.length > 0} />
+      <Line testId="sign-summary-warnings" label="Warnings raised" value={warnings.length ? `${warnings.join("; ")}. ${GOVERNS}` : "none"} warn={warnings.length > 0} />
       <Line
         label="Checklists"
         value={s.checklists.length ? s.checklists.map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} ${c.answered}/${c.total}`).join(", ") : "none"}

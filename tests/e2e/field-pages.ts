@@ -115,15 +115,35 @@ export class PlacementPage extends FieldShellPage {
     await expect(this.page.getByTestId("field-test-warning")).toBeVisible();
   }
 
-  async addHotWindyObservation(v: { air: string; rh: string; wind: string; concrete: string }) {
+  /** Types a weather reading (in the project's units) and leaves the form open with the live verdict. */
+  async typeObservation(v: { air: string; rh: string; wind: string; concrete: string; observedAt?: string }) {
     await this.page.getByTestId("add-weather").click();
+    const form = this.page.getByTestId("weather-form");
+    if (v.observedAt) await form.locator('input[type="datetime-local"]').fill(v.observedAt);
     await this.page.getByTestId("weather-air-temp").fill(v.air);
     await this.page.getByTestId("weather-rh").fill(v.rh);
     await this.page.getByTestId("weather-wind").fill(v.wind);
     await this.page.getByTestId("weather-concrete-temp").fill(v.concrete);
-    await expect(this.page.getByTestId("weather-live-risk")).toHaveAttribute("data-risk", "high");
+  }
+
+  async saveObservation() {
     await this.page.getByTestId("weather-save").click();
+    await expect(this.page.getByTestId("weather-form")).toHaveCount(0);
+  }
+
+  async addHotWindyObservation(v: { air: string; rh: string; wind: string; concrete: string }) {
+    await this.typeObservation(v);
+    await expect(this.page.getByTestId("weather-live-risk")).toHaveAttribute("data-severity", "warning");
+    await this.saveObservation();
     await expect(this.page.getByTestId("weather-high-risk")).toBeVisible();
+  }
+
+  /** A protection or curing reading, in the project's units. */
+  async addCuringReading(temp: string) {
+    await this.page.getByTestId("add-curing").click();
+    await this.page.getByTestId("curing-temp").fill(temp);
+    await this.page.getByTestId("curing-save").click();
+    await expect(this.page.getByTestId("curing-form")).toHaveCount(0);
   }
 
   async startHotChecklist() {

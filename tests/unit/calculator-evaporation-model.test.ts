@@ -121,25 +121,32 @@ describe("chart series", () => {
   });
 });
 
-describe("weather cautions", () => {
-  it("hot air brings the crew heat-stress caution, once, without the governance line", () => {
+describe("weather cautions (the rulebook's findings, lib/checks)", () => {
+  it("hot air with high evaporation is ACI 305.1 hot weather, with the crew heat-stress caution [src: ACI 305.1-14; common practice]", () => {
+    // 90 °F air, 88 °F concrete, 30 %, 12 mph: Uno's rate is above 0.2 lb/ft²/h, the air above 80 °F.
     const { hot, cold } = weatherCautions({ airTemp: 90, humidity: 30, wind: 12, concreteTemp: 88 }, "IP");
-    expect(hot?.[0]).toMatch(/heat stress/);
-    expect(hot?.some((line) => /engineer of record/.test(line))).toBe(false);
+    expect(hot?.message).toMatch(/heat stress/);
+    expect(hot?.source).toMatchObject({ document: "ACI 305.1" });
+    expect(hot?.governs).toMatch(/engineer of record/);
     expect(cold).toBeNull();
   });
 
-  it("air at 4 °C / 40 °F brings the heater venting caution [src: ACI 306R definition]", () => {
-    expect(weatherCautions({ airTemp: 4, humidity: 50, wind: 10, concreteTemp: 15 }, "SI").cold?.[0]).toMatch(
-      /carbon monoxide/,
-    );
+  it("hot air without high evaporation is not hot weather under ACI 305.1 [src: ACI 305.1-14]", () => {
+    expect(weatherCautions({ airTemp: 90, humidity: 90, wind: 2, concreteTemp: 85 }, "IP").hot).toBeNull();
+  });
+
+  it("air at 4 °C / 40 °F is cold weather, with the heater venting caution [src: ACI 306R definition]", () => {
+    const si = weatherCautions({ airTemp: 4, humidity: 50, wind: 10, concreteTemp: 15 }, "SI").cold;
+    expect(si?.message).toMatch(/carbon monoxide/);
+    expect(si?.source).toMatchObject({ document: "ACI 306R" });
     expect(weatherCautions({ airTemp: 40, humidity: 50, wind: 10, concreteTemp: 60 }, "IP").cold).not.toBeNull();
     expect(weatherCautions({ airTemp: 41, humidity: 50, wind: 10, concreteTemp: 60 }, "IP").cold).toBeNull();
   });
 
-  it("flags concrete above 35 °C (95 °F) at discharge", () => {
-    expect(weatherCautions({ airTemp: 95, humidity: 30, wind: 5, concreteTemp: 97 }, "IP").tooHotConcrete).toMatch(
-      /above the 95\.0 °F maximum/,
-    );
+  it("flags concrete above 35 °C (95 °F) at discharge [src: ACI 305.1-14 §3.3.1]", () => {
+    const tooHot = weatherCautions({ airTemp: 95, humidity: 30, wind: 5, concreteTemp: 97 }, "IP").tooHotConcrete;
+    expect(tooHot?.title).toMatch(/maximum 95 °F/);
+    expect(tooHot?.severity).toBe("warning");
+    expect(weatherCautions({ airTemp: 95, humidity: 30, wind: 5, concreteTemp: 95 }, "IP").tooHotConcrete).toBeNull();
   });
 });
