@@ -13,5 +13,7 @@ export default defineConfig({
     environment: "node",
     // lib/checks may not exist yet on a branch: an empty tests/unit/checks is not an error.
     passWithNoTests: true,
+    // Instrumented code on a shared 2-core machine: the property tests need more than the 5 s default.
+    testTimeout: 60_000,
   },
 });
