@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: [".next/**", ".data/**", "node_modules/**", "public/sw.js", "public/__offline/**", "drizzle/**", "next-env.d.ts"],
+    ignores: [".next/**", ".data/**", "node_modules/**", "public/sw.js", "public/__offline/**", "drizzle/**", "next-env.d.ts", ".stryker-tmp/**", "reports/**"],
   },
 ];
 

@@ -14,6 +14,7 @@ export class ConcreteInputError extends Error {
 // Sensor dropouts and empty form fields arrive as NaN or undefined; refuse them by name
 // rather than letting NaN flow into a pass/fail verdict.
 export function assertFinite(value: number, field: string, label: string): number {
+  // Stryker disable next-line ConditionalExpression: equivalent, Number.isFinite also refuses a non-number
   if (typeof value !== "number" || !Number.isFinite(value)) {
     throw new ConcreteInputError(field, `${label} must be a number`);
   }

@@ -35,6 +35,7 @@ export function slumpRangeMm(
   const specified = unitSystem === "SI" ? specifiedMm : toInches(specifiedMm);
   const bands = SLUMP_BANDS[unitSystem][slumpType];
   if (!bands) throw new ConcreteInputError("slumpType", "Slump must be specified as a target or a maximum");
+  // Stryker disable next-line ArithmeticOperator: unreachable, the last band is open-ended (Infinity)
   const [, minus, plus] = bands.find(([upTo]) => specified <= upTo) ?? bands[bands.length - 1];
   const toMm = (value: number) => (unitSystem === "SI" ? value : inToMm(value));
   return { min: toMm(Math.max(0, specified - minus)), max: toMm(specified + plus) };
@@ -112,6 +113,7 @@ export function checkFieldTest({
   minConcreteTempC?: number;
   unitSystem?: UnitSystem;
 }): FieldTestCheck {
+  // Stryker disable next-line ObjectLiteral,BooleanLiteral: equivalent, ok is recomputed below before returning
   const result: FieldTestCheck = { ok: true };
   if (slumpMm !== undefined) {
     assertNonNegative(slumpMm, "slumpMm", "Slump");

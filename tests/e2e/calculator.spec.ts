@@ -72,7 +72,8 @@ test.describe("evaporation calculator", () => {
     await expect(calc.result).toContainText("kg/m²/h");
     await expect(calc.risk).toHaveText(/high/i);
 
-    // 25 °C / 25 °C / 50 % / 20 km/h → 0.7275 kg/m²/h, between 0.5 and 1.0 [computed].
+    // 25 °C / 25 °C / 50 % / 20 km/h → 0.7275 kg/m²/h, between 0.5 and 1.0 [computed; the caution band
+    // from 0.5 is this product's choice, not a published limit; 1.0 is ACI 305R].
     await calc.field("Concrete temperature").fill("25");
     await expect(calc.rate).toHaveText("0.73");
     await expect(calc.risk).toHaveText(/caution/i);

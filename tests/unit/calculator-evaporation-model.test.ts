@@ -38,7 +38,7 @@ describe("evaluate", () => {
     expect(result.description.risk).toBe("high");
   });
 
-  it("30 °C / 25 °C / 50 % / 20 km/h → 1.19 kg/m²/h, high; 25 °C concrete → 0.73, caution [src: DOMAIN check values]", () => {
+  it("30 °C / 25 °C / 50 % / 20 km/h → 1.19 kg/m²/h, high; 25 °C concrete → 0.73, caution [src: DOMAIN check values; high: ACI 305R; caution band: product choice, not a published limit]", () => {
     const hot = evaluate({ concreteTemp: "30", airTemp: "25", humidity: "50", wind: "20" }, "SI", false);
     const mild = evaluate({ concreteTemp: "25", airTemp: "25", humidity: "50", wind: "20" }, "SI", false);
     expect(hot.ok && formatRate(hot.description.rate)).toBe("1.19");
@@ -84,7 +84,7 @@ describe("convertDraft", () => {
 });
 
 describe("risk levels", () => {
-  it("match the levels evaporationRisk applies, in both systems, with and without low bleed", () => {
+  it("match the levels evaporationRisk applies, in both systems, with and without low bleed [computed: same function; caution bands are this product's choice]", () => {
     for (const system of ["SI", "IP"] as const) {
       for (const lowBleed of [false, true]) {
         const { cautionAt, highAt } = riskThresholds(system, lowBleed);

@@ -33,6 +33,10 @@ describe("checkDischarge", () => {
     expect(checkDischarge({ ...base, revolutionLimit: 300 }).withinRevolutions).toBeNull();
   });
 
+  it("accepts a discharge that ends at the batch time (0 min), refusing only an earlier one [computed]", () => {
+    expect(checkDischarge({ batchedAt: at("10:00"), dischargeFinishedAt: at("10:00") })).toMatchObject({ minutes: 0, withinTime: true });
+  });
+
   it("refuses discharge before batching, by field", () => {
     try {
       checkDischarge({ batchedAt: at("10:00"), dischargeFinishedAt: at("09:59") });
@@ -55,7 +59,10 @@ describe("checkWaterAddition", () => {
     expect(result.withinWindow).toBe(true);
     expect(result.withinAllowance).toBe(true);
     expect(result.remainingLitres).toBe(10);
-    expect(result.note).toMatch(/30 drum revolutions/);
+    expect(result.note).toBe(
+      "One addition only, all portions within 15 min of the first, then at least 30 drum revolutions " +
+        "at mixing speed; never beyond the mix design's maximum water.",
+    );
   });
 
   it("first 10:40, last 10:56 → outside the window [src: ASTM C94, DOMAIN check]", () => {

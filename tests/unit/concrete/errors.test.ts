@@ -72,4 +72,19 @@ describe("assertion helpers", () => {
     expect(atMost(0.1 + 0.2, 0.3)).toBe(true);
     expect(atMost(0.31, 0.3)).toBe(false);
   });
+
+  it("allows one part in 10⁹ of the limit, inclusive, and at least 10⁻⁹ near zero [computed from the tolerance rule]", () => {
+    // The edge itself counts as within: the comparison is inclusive like the published "not less than".
+    expect(atLeast(1 - 1e-9, 1)).toBe(true);
+    expect(atMost(1 + 1e-9, 1)).toBe(true);
+    // Relative: 30 MPa allows 3 × 10⁻⁸ MPa, so 30 − 10⁻⁸ passes and 30 − 10⁻⁷ does not.
+    expect(atLeast(30 - 1e-8, 30)).toBe(true);
+    expect(atLeast(30 - 1e-7, 30)).toBe(false);
+    expect(atMost(30 + 1e-8, 30)).toBe(true);
+    expect(atMost(30 + 1e-7, 30)).toBe(false);
+    // Near zero the allowance does not shrink below 10⁻⁹.
+    expect(atLeast(-5e-10, 0.001)).toBe(false);
+    expect(atLeast(0.001 - 5e-10, 0.001)).toBe(true);
+    expect(atMost(0.001 + 5e-10, 0.001)).toBe(true);
+  });
 });

@@ -24,7 +24,7 @@ describe("temperatureTimeFactor (ASTM C1074 Nurse-Saul)", () => {
     expect(temperatureTimeFactor([reading(0, 20), reading(48, 20)], -10)).toBeCloseTo(1440, 9);
   });
 
-  it("12 h at 20 °C then 12 h at 25 °C → 540 °C·h [src: secondary worked example]", () => {
+  it("12 h at 20 °C then 12 h at 25 °C → 540 °C·h [computed from M = Σ (Ta − T0)·Δt: 12 × 20 + 12 × 25]", () => {
     // The repeated timestamp records the step change without a ramp between readings.
     const readings = [reading(0, 20), reading(12, 20), reading(12, 25), reading(24, 25)];
     expect(temperatureTimeFactor(readings)).toBeCloseTo(540, 9);

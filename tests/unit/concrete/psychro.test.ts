@@ -43,6 +43,10 @@ describe("dew point", () => {
     expect(dewPointC(18, 100)).toBeCloseTo(18, 3);
   });
 
+  it("is −∞ in perfectly dry air: no vapour, so no dew point [computed: log(0)]", () => {
+    expect(dewPointC(25, 0)).toBe(Number.NEGATIVE_INFINITY);
+  });
+
   it("refuses humidity outside 0–100 %", () => {
     expect(() => dewPointC(25, 101)).toThrow(ConcreteInputError);
     expect(() => dewPointC(25, -1)).toThrowError(/Relative humidity must be between 0 and 100 %/);

@@ -35,7 +35,7 @@ describe("cylinderStrengthMPa (ASTM C39)", () => {
     expect(mpaToPsi(strengthMPa)).toBeCloseTo(4000, 0);
   });
 
-  it("corrects a short core: L/D 1.5 → × 0.96 [src: ASTM C42/C39 table, trade press]", () => {
+  it("corrects a short core: L/D 1.5 → × 0.96 [memory: ASTM C39/C39M correction table for L/D ≤ 1.75]", () => {
     expect(cylinderStrengthMPa({ maxLoadKN: 530.1, diameterMm: 150, lengthMm: 225 })).toBeCloseTo(30.0 * 0.96, 2);
     // L/D 2.0 needs no correction.
     expect(cylinderStrengthMPa({ maxLoadKN: 530.1, diameterMm: 150, lengthMm: 300 })).toBeCloseTo(30.0, 2);
@@ -48,7 +48,7 @@ describe("cylinderStrengthMPa (ASTM C39)", () => {
 });
 
 describe("lengthDiameterFactor", () => {
-  it("0.98 / 0.96 / 0.93 / 0.87 at 1.75 / 1.50 / 1.25 / 1.00 [src: ASTM C42/C39 table, trade press]", () => {
+  it("0.98 / 0.96 / 0.93 / 0.87 at 1.75 / 1.50 / 1.25 / 1.00 [memory: ASTM C39/C39M correction table for L/D ≤ 1.75]", () => {
     expect(lengthDiameterFactor(1.75)).toBeCloseTo(0.98, 12);
     expect(lengthDiameterFactor(1.5)).toBeCloseTo(0.96, 12);
     expect(lengthDiameterFactor(1.25)).toBeCloseTo(0.93, 12);
@@ -113,6 +113,15 @@ describe("evaluateAcceptance (ACI 318-19 §26.12.3.1)", () => {
     expect(evaluateAcceptance({ fc: 40, tests: [36], unitSystem: "SI" }).individualLimit).toBe(36);
   });
 
+  it("judges the average from the third test on, not before [src: ACI 318-19 §26.12.3.1(a), three consecutive tests]", () => {
+    expect(evaluateAcceptance({ fc: 30, tests: [31, 32], unitSystem: "SI" }).averageJudged).toBe(false);
+    const three = evaluateAcceptance({ fc: 30, tests: [29, 30, 30.5], unitSystem: "SI" });
+    expect(three.averageJudged).toBe(true);
+    expect(three.tests[2].runningAverage).toBeCloseTo(29.8333, 4);
+    expect(three.tests[2].lowAverage).toBe(true);
+    expect(three.ok).toBe(false);
+  });
+
   it("passes three tests averaging exactly f'c despite binary rounding [computed]", () => {
     expect((18.2 + 20.9 + 20.9) / 3).toBeLessThan(20); // 19.999999999999996 in binary
     expect(evaluateAcceptance({ fc: 20, tests: [18.2, 20.9, 20.9], unitSystem: "SI" }).ok).toBe(true);
@@ -156,13 +165,16 @@ describe("requiredTests (ACI 318-19 §26.12.2.1)", () => {
     expect(requiredTests({ volumeM3: yd3ToM3(400), surfaceM2: ft2ToM2(30_000), days: 1 })).toBe(7);
   });
 
-  it("at least once a day; volume governs for mass pours [computed]", () => {
+  it("at least once a day; volume governs for mass pours [computed from 110 m³ per test; memory of ACI 318M §26.12.2]", () => {
     expect(requiredTests({ volumeM3: 20, surfaceM2: 0, days: 3 })).toBe(3);
     // 110 m³ per test [memory of ACI 318M §26.12.2.1]: 330 m³ is 3 tests, a little more is 4.
     expect(requiredTests({ volumeM3: 330, surfaceM2: 0, days: 1 })).toBe(3);
     expect(requiredTests({ volumeM3: 330.1, surfaceM2: 0, days: 1 })).toBe(4);
     // Not the converted 114.7 m³: 115 m³ already needs 2 tests.
     expect(requiredTests({ volumeM3: 115, surfaceM2: 0, days: 1 })).toBe(2);
+    // Surface governs a thin slab: 921 m² / 460 m² → 3 tests, 920 m² → 2.
+    expect(requiredTests({ volumeM3: 100, surfaceM2: 920, days: 1 })).toBe(2);
+    expect(requiredTests({ volumeM3: 100, surfaceM2: 921, days: 1 })).toBe(3);
   });
 
   it("refuses a fractional number of days", () => {
@@ -197,7 +209,10 @@ describe("coreAcceptance (UFGS 03300)", () => {
 
   it("needs three cores and says the engineer of record decides adequacy", () => {
     expect(fieldOf(() => coreAcceptance([26, 27], 30))).toBe("coreStrengths");
-    expect(STRUCTURAL_ADEQUACY_NOTE).toMatch(/engineer of record/);
+    expect(STRUCTURAL_ADEQUACY_NOTE).toBe(
+      "These checks compare test results with the specified limits; whether the structure is adequate " +
+        "is the engineer of record's decision.",
+    );
   });
 });
 

@@ -69,6 +69,13 @@ describe("airRangePct and slumpFlowRangeMm", () => {
     expect(slumpFlowRangeMm(500)).toEqual({ min: 450, max: 550 });
     expect(slumpFlowRangeMm(560)).toEqual({ min: 485, max: 635 });
     expect(slumpFlowRangeMm(650)).toEqual({ min: 575, max: 725 });
+    // Exactly 22 in takes the wider ±3 in, as exactly 560 mm takes ±75 mm.
+    const at22 = slumpFlowRangeMm(inToMm(22), "IP");
+    expect(at22.min).toBeCloseTo(inToMm(19), 9);
+    expect(at22.max).toBeCloseTo(inToMm(25), 9);
+    const below22 = slumpFlowRangeMm(inToMm(21), "IP");
+    expect(below22.min).toBeCloseTo(inToMm(19), 9);
+    expect(below22.max).toBeCloseTo(inToMm(23), 9);
     const ip = slumpFlowRangeMm(inToMm(24), "IP");
     expect(ip.min).toBeCloseTo(inToMm(21), 9);
     expect(ip.max).toBeCloseTo(inToMm(27), 9);
@@ -81,6 +88,8 @@ describe("withinRange", () => {
     expect(withinRange(65, { min: 35, max: 65 })).toBe(true);
     expect(withinRange(66, { min: 35, max: 65 })).toBe(false);
     expect(withinRange(-100, { max: 35 })).toBe(true);
+    expect(withinRange(1000, { min: 35 })).toBe(true);
+    expect(withinRange(34, { min: 35 })).toBe(false);
   });
 
   it("accepts a value typed in inches at an inch limit stored in mm", () => {
@@ -91,6 +100,8 @@ describe("withinRange", () => {
 });
 
 describe("checkFieldTest", () => {
+  const spec = { slumpType: "target" as const, specifiedSlumpMm: 100, specifiedAirPct: 6 };
+
   it("reports each measured property with its range", () => {
     const result = checkFieldTest({
       slumpMm: 110,
@@ -131,6 +142,29 @@ describe("checkFieldTest", () => {
     expect(result.ok).toBe(false);
     expect(result.temperature?.ok).toBe(false);
     expect(result.retestNote).toBeUndefined();
+  });
+
+  it("asks for a check test on air content alone, not on temperature alone [src: ASTM C94 covers slump and air; the temperature limit is the project specification's]", () => {
+    const air = checkFieldTest({ ...spec, airPct: 8, concreteTempC: 30 });
+    expect(air.ok).toBe(false);
+    expect(air.air?.ok).toBe(false);
+    expect(air.retestNote).toMatch(/check test at once on another portion of the same sample/);
+    const hot = checkFieldTest({ ...spec, slumpMm: 100, airPct: 6, concreteTempC: 36 });
+    expect(hot.ok).toBe(false);
+    expect(hot.temperature?.ok).toBe(false);
+    expect(hot.retestNote).toBeUndefined();
+  });
+
+  it("judges only what was measured, and a temperature range without a minimum has no min [computed]", () => {
+    const airOnly = checkFieldTest({ ...spec, airPct: 6 });
+    expect(airOnly).toStrictEqual({ ok: true, air: { value: 6, range: { min: 4.5, max: 7.5 }, ok: true } });
+    const slumpOnly = checkFieldTest({ ...spec, slumpMm: 100 });
+    expect(slumpOnly.ok).toBe(true);
+    expect(slumpOnly.air).toBeUndefined();
+    expect(slumpOnly.temperature).toBeUndefined();
+    const tempOnly = checkFieldTest({ ...spec, concreteTempC: 30 });
+    expect(tempOnly).toStrictEqual({ ok: true, temperature: { value: 30, range: { max: 35 }, ok: true } });
+    expect(checkFieldTest({ ...spec, concreteTempC: 12, minConcreteTempC: 13 }).temperature?.range).toStrictEqual({ max: 35, min: 13 });
   });
 
   it("names the field of a bad measurement", () => {

@@ -22,6 +22,8 @@ import {
   fromDisplay,
   galToL,
   inToMm,
+  kgToLb,
+  lbToKg,
   kNToLbf,
   lbfToKN,
   lbFt2hToKgM2h,
@@ -43,6 +45,9 @@ describe("exact conversion factors", () => {
     expect(galToL(1)).toBe(3.785411784);
     expect(inToMm(1)).toBe(25.4);
     expect(lbfToKN(1)).toBe(0.00444822162);
+    // The international pound: 1 lb = 0.45359237 kg exactly (NIST SP 811).
+    expect(lbToKg(1)).toBe(0.45359237);
+    expect(kgToLb(0.45359237)).toBe(1);
   });
 
   it("agree with the definitions of the pound, foot and standard gravity [computed]", () => {
