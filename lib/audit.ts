@@ -1,4 +1,5 @@
 import type { Executor } from "@/db";
+import { insertMany } from "@/db/insert-many";
 import { auditEntries } from "@/db/schema";
 
 export type AuditInput = {
@@ -20,8 +21,8 @@ export async function writeAudit(tx: Executor, entry: AuditInput): Promise<void>
 
 /** Appends several audit entries in one statement (the sync push's set-based writes). */
 export async function writeAudits(tx: Executor, entries: AuditInput[]): Promise<void> {
-  if (entries.length === 0) return;
-  await tx.insert(auditEntries).values(entries.map(auditRow));
+  if (entries.length === 1) await tx.insert(auditEntries).values(auditRow(entries[0]));
+  else if (entries.length > 1) await insertMany(tx, auditEntries, entries.map(auditRow));
 }
 
 const auditRow = (entry: AuditInput) => ({

@@ -7,6 +7,7 @@
 // is left to createRecord, the one write path, which gives the answer and its message.
 import { inArray } from "drizzle-orm";
 import type { Transaction } from "@/db";
+import { insertMany } from "@/db/insert-many";
 import { projects } from "@/db/schema";
 import { writeAudits } from "@/lib/audit";
 import { getRoles } from "@/lib/users/queries";
@@ -123,7 +124,7 @@ export async function writeCreates(tx: Transaction, ctx: RecordContext, planned:
   for (const type of new Set(planned.map((p) => p.def.type))) {
     const def = getRecordDef(type);
     const rows = values.filter((_, i) => planned[i].def.type === type);
-    for (const row of (await tx.insert(def.table).values(rows as never).returning()) as RecordRow[]) written.set(row.id, row);
+    for (const row of (await insertMany(tx, def.table, rows)) as RecordRow[]) written.set(row.id, row);
   }
   const result = planned.map((p) => written.get(p.values.id as string)!);
   await writeAudits(

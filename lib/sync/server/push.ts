@@ -2,6 +2,7 @@
 // transaction together with their stored results and the device's watermark.
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
+import { insertMany } from "@/db/insert-many";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
@@ -111,7 +112,9 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
 
     const applied = await applyInOrder(tx, user, clientId, fresh, hooks, batch);
     if (fresh.length > 0) {
-      await tx.insert(syncMutations).values(
+      await insertMany(
+        tx,
+        syncMutations,
         fresh.map((m) => {
           const a = applied.get(m.id)!;
           return {
