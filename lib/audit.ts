@@ -1,5 +1,5 @@
 import type { Executor } from "@/db";
-import { insertMany } from "@/db/insert-many";
+import { insertMany } from "@/db/json-rows";
 import { auditEntries } from "@/db/schema";
 
 export type AuditInput = {

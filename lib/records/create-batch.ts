@@ -7,7 +7,7 @@
 // is left to createRecord, the one write path, which gives the answer and its message.
 import { inArray } from "drizzle-orm";
 import type { Transaction } from "@/db";
-import { insertMany } from "@/db/insert-many";
+import { insertMany } from "@/db/json-rows";
 import { projects } from "@/db/schema";
 import { writeAudits } from "@/lib/audit";
 import { getRoles } from "@/lib/users/queries";

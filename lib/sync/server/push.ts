@@ -2,7 +2,7 @@
 // transaction together with their stored results and the device's watermark.
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { insertMany } from "@/db/insert-many";
+import { insertMany } from "@/db/json-rows";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";

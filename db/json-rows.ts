@@ -1,4 +1,5 @@
-// A multi-row INSERT … RETURNING * that sends its rows as ONE JSON parameter
+// Rows to and from the database as JSON, for the sync path's set-based statements.
+// insertMany: a multi-row INSERT … RETURNING * that sends its rows as ONE JSON parameter
 // (json_populate_recordset), for the sync push's set-based writes. The ORM's multi-row insert
 // renders one placeholder per value; for a push of 100 records, building that statement cost more
 // CPU than the database spent running it. Values are encoded and decoded by the ORM's own column
@@ -42,14 +43,20 @@ export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows
     const result = await tx.execute(
       sql`insert into ${table} (${names}) select ${names} from json_populate_recordset(null::${table}, ${JSON.stringify(json)}::json) returning *`,
     );
-    for (const raw of result.rows as Record<string, unknown>[]) {
-      const row: Record<string, unknown> = {};
-      for (const [key, column] of Object.entries(columns)) {
-        const value = raw[column.name];
-        row[key] = value === null || value === undefined ? null : column.mapFromDriverValue(value);
-      }
-      stored.push(row as T["$inferSelect"]);
-    }
+    for (const raw of result.rows as Record<string, unknown>[]) stored.push(decodeRow(table, raw));
   }
   return stored;
+}
+
+/**
+ * A row read as the database gives it (keys are column names: `RETURNING *`, or `row_to_json`),
+ * decoded by the ORM's column mappers into the shape `select()` gives.
+ */
+export function decodeRow<T extends PgTable>(table: T, raw: Record<string, unknown>): T["$inferSelect"] {
+  const row: Record<string, unknown> = {};
+  for (const [key, column] of Object.entries(getTableColumns(table) as Record<string, Column>)) {
+    const value = raw[column.name];
+    row[key] = value === null || value === undefined ? null : column.mapFromDriverValue(value);
+  }
+  return row as T["$inferSelect"];
 }
