@@ -4,9 +4,9 @@ import { FormFooter } from "./form-footer";
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { CircleCheck, ClipboardCheck, CloudSun, OctagonAlert, Plus, TriangleAlert } from "lucide-react";
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { CartesianGrid, Line, LineChart, ReferenceLine, XAxis, YAxis } from "recharts";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -17,6 +17,9 @@ import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectR
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { NowInput, Section, mayWrite, byTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+
+// recharts loads on demand (day-chart-plot.tsx): it is not needed for the first paint.
+const DayChartPlot = dynamic(() => import("./day-chart-plot"), { ssr: false });
 
 export const COLD_AIR_C = 4;
 
@@ -160,13 +163,7 @@ function DayChart({ points, units, highSI }: { points: { time: string; rate: num
     <figure className="m-0 mt-3" data-testid="weather-chart" aria-label={`Evaporation rate through the day, ${unitLabel("evaporationRate", units)}`}>
       <figcaption className="text-sm font-semibold">Evaporation rate today ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
-        <LineChart responsive data={points} margin={{ top: 8, right: 12, bottom: 4, left: 0 }} style={{ width: "100%", height: "100%" }}>
-          <CartesianGrid stroke="#cdd5de" strokeDasharray="3 3" />
-          <XAxis dataKey="time" stroke="#445466" fontSize={12} />
-          <YAxis domain={[0, Number(top.toFixed(2))]} stroke="#445466" fontSize={12} width={40} />
-          <ReferenceLine y={high} stroke="#951c15" strokeDasharray="6 3" label={{ value: "high", fill: "#951c15", fontSize: 12, position: "insideTopRight" }} />
-          <Line type="monotone" dataKey="rate" stroke="#187467" strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
-        </LineChart>
+        <DayChartPlot points={points} top={top} high={high} />
       </div>
     </figure>
   );
