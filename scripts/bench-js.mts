@@ -1,7 +1,7 @@
 // npm run bench:js [-- --app=http://localhost:3000] [--email=sam.super@example.test] [--bare-port=3199]
 // Script weight of the app's pages beside the floor, measured in one run:
 // 1. the floor: a bare App Router page (one layout, one page, no imports) built with the project's
-//    own `next` in a temporary folder, served with `next start`;
+//    own `next` in a temporary folder (under .data/, deleted afterwards), served with `next start`;
 // 2. the app: a running, built Placewright with the demo data (`bash scripts/start.sh`, or any
 //    server given by --app), signed in as a demo user for the field screens.
 // Each page is loaded in Debian's Chromium (Playwright, 390×844, service workers blocked so every
@@ -10,8 +10,7 @@
 // the bare page; the acceptance limits (issue 20) are 1.5× for a field screen, 1.3× for the
 // sign-in page and the calculator.
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { mkdtempSync, mkdirSync, rmSync, symlinkSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { chromium, type Browser, type Page } from "@playwright/test";
@@ -39,12 +38,15 @@ async function waitFor(url: string, seconds: number) {
 
 /** Builds and serves the bare page; returns its server process and folder. */
 async function bareApp(): Promise<{ server: ChildProcess; dir: string }> {
-  const dir = mkdtempSync(path.join(tmpdir(), "bench-js-bare-"));
+  // A temporary folder inside the project (Turbopack resolves `next` only under its root), with the
+  // project folder as that root so the same node_modules serve both builds.
+  mkdirSync(path.join(root, ".data"), { recursive: true });
+  const dir = mkdtempSync(path.join(root, ".data", "bench-js-bare-"));
   mkdirSync(path.join(dir, "app"));
+  writeFileSync(path.join(dir, "next.config.mjs"), `export default { turbopack: { root: ${JSON.stringify(root)} } };\n`);
   writeFileSync(path.join(dir, "package.json"), JSON.stringify({ private: true, name: "bare" }));
   writeFileSync(path.join(dir, "app/layout.tsx"), `export default function Layout({ children }: { children: React.ReactNode }) {\n  return (<html lang="en"><body>{children}</body></html>);\n}\n`);
   writeFileSync(path.join(dir, "app/page.tsx"), `export default function Page() {\n  return <main><h1>Bare page</h1></main>;\n}\n`);
-  symlinkSync(path.join(root, "node_modules"), path.join(dir, "node_modules"), "dir");
   console.log(`building the bare page in ${dir} (next ${JSON.parse((await import("node:fs")).readFileSync(path.join(root, "node_modules/next/package.json"), "utf8")).version})…`);
   const build = spawnSync(process.execPath, [nextBin, "build"], { cwd: dir, stdio: ["ignore", "ignore", "inherit"], env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" } });
   if (build.status !== 0) throw new Error("the bare page did not build");
