@@ -1,4 +1,5 @@
 import type { Executor } from "@/db";
+import { insertMany } from "@/db/json-rows";
 import { auditEntries } from "@/db/schema";
 
 export type AuditInput = {
@@ -15,15 +16,23 @@ export type AuditInput = {
 
 /** Appends an audit entry. Call it inside the transaction of the change it records. */
 export async function writeAudit(tx: Executor, entry: AuditInput): Promise<void> {
-  await tx.insert(auditEntries).values({
-    projectId: entry.projectId,
-    userId: entry.userId,
-    deviceId: entry.deviceId ?? null,
-    recordType: entry.recordType,
-    recordId: entry.recordId ?? null,
-    action: entry.action,
-    before: entry.before ?? null,
-    after: entry.after ?? null,
-    note: entry.note ?? null,
-  });
+  await writeAudits(tx, [entry]);
 }
+
+/** Appends several audit entries in one statement (the sync push's set-based writes). */
+export async function writeAudits(tx: Executor, entries: AuditInput[]): Promise<void> {
+  if (entries.length === 1) await tx.insert(auditEntries).values(auditRow(entries[0]));
+  else if (entries.length > 1) await insertMany(tx, auditEntries, entries.map(auditRow));
+}
+
+const auditRow = (entry: AuditInput) => ({
+  projectId: entry.projectId,
+  userId: entry.userId,
+  deviceId: entry.deviceId ?? null,
+  recordType: entry.recordType,
+  recordId: entry.recordId ?? null,
+  action: entry.action,
+  before: entry.before ?? null,
+  after: entry.after ?? null,
+  note: entry.note ?? null,
+});

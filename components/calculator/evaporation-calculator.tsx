@@ -1,6 +1,7 @@
 "use client";
 
 import clsx from "clsx";
+import dynamic from "next/dynamic";
 import { Scale } from "lucide-react";
 import { useState } from "react";
 import type { UnitSystem } from "@/lib/concrete";
@@ -19,7 +20,12 @@ import {
 } from "./evaporation-model";
 import { EvaporationResult, ResultStrip } from "./evaporation-result";
 import { MeasureField } from "./measure-field";
-import { RateChart } from "./rate-chart";
+// recharts loads after the first paint (the result and guidance above it do not need it); the
+// placeholder keeps the chart's height so nothing moves when it arrives.
+const RateChart = dynamic(() => import("./rate-chart").then((m) => m.RateChart), {
+  ssr: false,
+  loading: () => <div className="h-80 w-full sm:h-88" aria-hidden="true" />,
+});
 import { useHydrated, useUnitSystem } from "./use-unit-system";
 
 /** A draft and the unit system it was typed in; shown converted when the user switches systems. */

@@ -6,9 +6,9 @@
 import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { ClipboardCheck, CloudSun, Plus } from "lucide-react";
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { CartesianGrid, Line, LineChart, ReferenceLine, XAxis, YAxis } from "recharts";
 import { FindingNotice, SeverityChip } from "@/components/findings/finding-notice";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
@@ -25,6 +25,9 @@ import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLo
 import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";
+
+// recharts loads on demand (day-chart-plot.tsx): it is not needed for the first paint.
+const DayChartPlot = dynamic(() => import("./day-chart-plot"), { ssr: false });
 
 type Values = { observedAt: string; airTemp: string; rh: string; wind: string; concreteTemp: string; sun: string };
 
@@ -121,13 +124,7 @@ function DayChart({ points, units, highAt }: { points: { time: string; rate: num
     <figure className="m-0 mt-3" data-testid="weather-chart" aria-label={`Evaporation rate through the day, ${unitLabel("evaporationRate", units)}`}>
       <figcaption className="text-sm font-semibold">Evaporation rate by reading ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
-        <LineChart responsive data={points} margin={{ top: 8, right: 12, bottom: 4, left: 0 }} style={{ width: "100%", height: "100%" }}>
-          <CartesianGrid stroke="#cdd5de" strokeDasharray="3 3" />
-          <XAxis dataKey="time" stroke="#445466" fontSize={12} />
-          <YAxis domain={[0, Number(top.toFixed(units === "SI" ? 2 : 3))]} stroke="#445466" fontSize={12} width={48} />
-          <ReferenceLine y={highAt} stroke="#951c15" strokeDasharray="6 3" label={{ value: `precautions ${highAt}`, fill: "#951c15", fontSize: 12, position: "insideTopRight" }} />
-          <Line type="monotone" dataKey="rate" stroke="#187467" strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
-        </LineChart>
+        <DayChartPlot points={points} top={Number(top.toFixed(units === "SI" ? 2 : 3))} high={highAt} />
       </div>
     </figure>
   );

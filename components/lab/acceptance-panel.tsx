@@ -1,13 +1,16 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import clsx from "clsx";
 import { CircleCheck, OctagonAlert } from "lucide-react";
 import { Notice } from "@/components/ui/notice";
 import type { MixAcceptance } from "@/lib/checks/strength";
 import { citation } from "@/lib/checks/types";
 import { RULE_AVERAGE, RULE_INDIVIDUAL } from "@/lib/checks/strength";
-import { RunningAverageChart } from "./charts";
 import { strengthText } from "./format";
+
+// recharts loads on demand: the figures beside the chart are what the first paint needs.
+const RunningAverageChart = dynamic(() => import("./charts").then((m) => m.RunningAverageChart), { ssr: false });
 
 /** ACI 318 acceptance of one mix on the project: verdict, low-result flags, tests, chart. */
 export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }) {

@@ -1,13 +1,16 @@
 "use client";
 
+import dynamic from "next/dynamic";
 import { OctagonAlert } from "lucide-react";
 import type { UnitSystem } from "@/lib/concrete";
 import { dueAt } from "@/lib/lab/due";
 import type { LabSetView } from "@/lib/lab/queries";
 import type { MixAcceptance } from "@/lib/checks/strength";
 import { BreakForm } from "./break-form";
-import { StrengthAgeChart } from "./charts";
 import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";
+
+// recharts loads on demand: the figures beside the chart are what the first paint needs.
+const StrengthAgeChart = dynamic(() => import("./charts").then((m) => m.StrengthAgeChart), { ssr: false });
 
 type Props = { projectId: string; set: LabSetView; unitSystem: UnitSystem; timeZone: string; canEnterBreaks: boolean; acceptance: MixAcceptance | null };
 

@@ -10,7 +10,7 @@ import { Notice } from "@/components/ui/notice";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { useRequestSync } from "@/lib/sync/client/react";
 import { PlacementSignSummary, blockingReason, usePlacementSummary } from "./placement-summary";
-import { SignOffDialog } from "./sign-off-dialog";
+import { SignOffDialog } from "./lazy-sign-off-dialog";
 import { SignedRecord } from "./signed-record";
 import { signOffUrl } from "./use-sign-off";
 

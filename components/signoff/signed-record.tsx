@@ -14,7 +14,7 @@ import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
 import { callApi } from "@/lib/api/client";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useOnline, useSyncDb } from "@/lib/sync/client/react";
-import { SignOffDialog } from "./sign-off-dialog";
+import { SignOffDialog } from "./lazy-sign-off-dialog";
 import { amendmentsUrl, useVerification, type AmendmentRow, type SignOffRow } from "./use-sign-off";
 
 const roleLabel = (role: string) => ROLE_LABELS[role as ProjectRole] ?? role;

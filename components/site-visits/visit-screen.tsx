@@ -11,7 +11,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { Section, fromTimeInput, num, str, toTimeInput, useProject, writeErrorOf } from "@/components/field/common";
-import { SignOffDialog } from "@/components/signoff/sign-off-dialog";
+import { SignOffDialog } from "@/components/signoff/lazy-sign-off-dialog";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { FINDING_SEVERITIES, type SiteVisitState } from "@/lib/records/enums";
 import { allowedMoves, isOutstanding, VISIT_STATE_LABELS } from "@/lib/site-visits/lifecycle";

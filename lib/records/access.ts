@@ -18,10 +18,13 @@ export async function authorizeAny(
 ): Promise<ProjectRole> {
   const role = await getRole(user.id, projectId, tx);
   if (role === null) throw forbidden("You are not a member of this project.");
-  if (!actions.some((action) => can(user, action, role))) {
+  if (!mayDoAny(user, role, actions)) {
     throw forbidden("Your role on this project does not allow that.");
   }
   return role;
 }
+
+export const mayDoAny = (user: SessionUser, role: ProjectRole | null, actions: Action[]): role is ProjectRole =>
+  role !== null && actions.some((action) => can(user, action, role));
 
 export const writeActions = (action: Action): Action[] => [action, "record.correct"];

@@ -1,4 +1,4 @@
-import { eq, sql } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { Executor } from "@/db";
 import { projectChangeCounters } from "@/db/schema";
 
@@ -10,11 +10,16 @@ import { projectChangeCounters } from "@/db/schema";
  * appear behind a cursor that has already moved past it.)
  */
 export async function nextChangeSeq(tx: Executor, projectId: string): Promise<number> {
-  await tx.insert(projectChangeCounters).values({ projectId, lastSeq: 0 }).onConflictDoNothing();
+  return reserveChangeSeqs(tx, projectId, 1);
+}
+
+/** Reserves `count` consecutive change numbers of a project (same lock as above); returns the first. */
+export async function reserveChangeSeqs(tx: Executor, projectId: string, count: number): Promise<number> {
+  // One statement: the first writer of a project creates its counter; either way the row stays locked.
   const [row] = await tx
-    .update(projectChangeCounters)
-    .set({ lastSeq: sql`${projectChangeCounters.lastSeq} + 1` })
-    .where(eq(projectChangeCounters.projectId, projectId))
+    .insert(projectChangeCounters)
+    .values({ projectId, lastSeq: count })
+    .onConflictDoUpdate({ target: projectChangeCounters.projectId, set: { lastSeq: sql`${projectChangeCounters.lastSeq} + ${count}` } })
     .returning({ lastSeq: projectChangeCounters.lastSeq });
-  return Number(row.lastSeq);
+  return Number(row.lastSeq) - count + 1;
 }

@@ -2,7 +2,11 @@
 // client, and recomputed on every write.
 import { evaporationOf } from "@/lib/checks/weather";
 import { cylinderStrengthMPa, type UnitSystem } from "@/lib/concrete";
+import { ConcreteInputError } from "@/lib/concrete/errors";
+import { invalidInput } from "@/lib/errors";
 import { photoKey, type PhotoType } from "@/lib/photos/rules";
+import type { RecordDef } from "./registry";
+import type { RecordContext } from "./types";
 
 export type ComputeContext = { unitSystem: UnitSystem; projectId?: string };
 
@@ -35,3 +39,24 @@ export function computeWeather(values: Record<string, unknown>, { unitSystem }: 
   };
   return { evaporationKgM2H: evaporationOf(reading, unitSystem).rateKgM2H };
 }
+
+/** The server-computed fields of a record (registry `compute`), for a project's unit system. */
+export function derivedValues(def: RecordDef, projectId: string, values: Record<string, unknown>, unitSystem: "SI" | "IP") {
+  if (!def.compute) return {};
+  try {
+    return def.compute(values, { unitSystem, projectId });
+  } catch (error) {
+    // e.g. a cylinder shorter than its diameter cannot be corrected (ASTM C39): the input's fault.
+    if (error instanceof ConcreteInputError) throw invalidInput(error.message, { [error.field === "maxLoadKN" ? "loadKN" : error.field]: error.message });
+    throw error;
+  }
+}
+
+/** The stored values of a new record: the input, the computed fields and the sync columns. */
+export const newRowValues = (
+  ctx: RecordContext,
+  projectId: string,
+  values: Record<string, unknown>,
+  derived: Record<string, unknown>,
+  changeSeq: number,
+) => ({ ...values, ...derived, projectId, version: 1, changeSeq, updatedBy: ctx.user.id });

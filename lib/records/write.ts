@@ -8,9 +8,9 @@ import { db, type Executor, type Transaction } from "@/db";
 import { projects } from "@/db/schema";
 import { parseOrThrow } from "@/lib/api/handler";
 import { writeAudit } from "@/lib/audit";
-import { ConcreteInputError } from "@/lib/concrete/errors";
 import { conflict, invalidInput } from "@/lib/errors";
 import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
+import { derivedValues, newRowValues } from "./compute";
 import { authorizeAny, writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
@@ -55,14 +55,7 @@ async function projectUnitSystem(tx: Executor, projectId: string) {
 
 async function computed(tx: Executor, def: RecordDef, projectId: string, values: Record<string, unknown>) {
   if (!def.compute) return {};
-  const unitSystem = await projectUnitSystem(tx, projectId);
-  try {
-    return def.compute(values, { unitSystem, projectId });
-  } catch (error) {
-    // e.g. a cylinder shorter than its diameter cannot be corrected (ASTM C39): the input's fault.
-    if (error instanceof ConcreteInputError) throw invalidInput(error.message, { [error.field === "maxLoadKN" ? "loadKN" : error.field]: error.message });
-    throw error;
-  }
+  return derivedValues(def, projectId, values, await projectUnitSystem(tx, projectId));
 }
 
 function sameValue(a: unknown, b: unknown): boolean {
@@ -139,7 +132,7 @@ export async function createRecord(
     const changeSeq = await nextChangeSeq(tx, projectId);
     const [row] = (await tx
       .insert(def.table)
-      .values({ ...values, ...derived, projectId, version: 1, changeSeq, updatedBy: ctx.user.id } as never)
+      .values(newRowValues(ctx, projectId, values, derived, changeSeq) as never)
       .returning()) as RecordRow[];
     await audit(tx, ctx, def, "create", null, row);
     await refreshAfterWrite(tx, projectId, def.type, [row]);

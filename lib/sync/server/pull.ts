@@ -2,12 +2,13 @@
 // read in one snapshot. Change numbers are allocated per project under a row lock held to commit
 // (lib/records/change-seq.ts), so within a project they become visible in order and a cursor never
 // skips a row committed late.
-import { and, asc, eq, gt, inArray, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { conflicts, memberships, projects, syncClients } from "@/db/schema";
+import { decodeRow } from "@/db/json-rows";
+import { conflicts, memberships, projectChangeCounters, projects, syncClients } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { forbidden } from "@/lib/errors";
-import { getRecordDef, RECORD_TYPES } from "@/lib/records/registry";
+import { getRecordDef, RECORD_TYPES, type RecordType } from "@/lib/records/registry";
 import type { RecordRow } from "@/lib/records/types";
 import {
   MAX_CHANGES_PER_PULL,
@@ -21,32 +22,46 @@ import {
   type SyncedRecord,
 } from "../protocol";
 
-async function userProjects(tx: Transaction, userId: string): Promise<SyncProject[]> {
+/** The user's projects with each one's last change number (0 before its first write). */
+async function userProjects(tx: Transaction, userId: string) {
   const rows = await tx
-    .select({ project: projects, role: memberships.role })
+    .select({ project: projects, role: memberships.role, lastSeq: projectChangeCounters.lastSeq })
     .from(memberships)
     .innerJoin(projects, eq(projects.id, memberships.projectId))
+    .leftJoin(projectChangeCounters, eq(projectChangeCounters.projectId, memberships.projectId))
     .where(eq(memberships.userId, userId))
     .orderBy(asc(projects.name));
-  return rows.map(({ project, role }) => ({ ...project, role, createdAt: undefined, updatedAt: undefined }) as SyncProject);
+  return rows.map(({ project, role, lastSeq }) => ({
+    project: { ...project, role, createdAt: undefined, updatedAt: undefined } as SyncProject,
+    lastSeq: Number(lastSeq ?? 0),
+  }));
 }
 
-/** The next page of one project's changes across every record table, in change-number order. */
+/**
+ * The next page of one project's changes across every record table, in change-number order, in
+ * ONE statement: the page's keys first (each table's (projectId, changeSeq) index, `limit + 1`
+ * rows at most), then only those rows, as JSON, decoded by the ORM's own column mappers
+ * (db/json-rows.ts) into the shape select() gives.
+ */
 async function projectChanges(tx: Transaction, projectId: string, since: number, limit: number) {
-  // One connection per transaction: the tables are read one after another.
-  const pages: { recordType: (typeof RECORD_TYPES)[number]; record: RecordRow }[][] = [];
-  for (const recordType of RECORD_TYPES) {
-    const def = getRecordDef(recordType);
-    const rows = (await tx
-      .select()
-      .from(def.table)
-      .where(and(eq(def.table.projectId, projectId), gt(def.table.changeSeq, since)))
-      .orderBy(asc(def.table.changeSeq))
-      .limit(limit + 1)) as RecordRow[];
-    pages.push(rows.map((record) => ({ recordType, record })));
-  }
-  const merged = pages.flat().sort((a, b) => a.record.changeSeq - b.record.changeSeq);
-  return { changes: merged.slice(0, limit), hasMore: merged.length > limit };
+  const tables = RECORD_TYPES.map((recordType) => ({ recordType, table: getRecordDef(recordType).table }));
+  const keys = tables.map(
+    ({ recordType, table }) =>
+      sql`(select ${recordType}::text as record_type, change_seq, id from ${table} where project_id = ${projectId} and change_seq > ${since} order by change_seq limit ${limit + 1})`,
+  );
+  const rows = tables.map(
+    ({ recordType, table }) =>
+      sql`select page.record_type, page.change_seq, row_to_json(t) as row from page join ${table} t on t.id = page.id where page.record_type = ${recordType}`,
+  );
+  const result = await tx.execute(sql`with page as materialized (
+    select * from (${sql.join(keys, sql` union all `)}) k order by change_seq limit ${limit + 1}
+  ) ${sql.join(rows, sql` union all `)} order by change_seq`);
+  const found = result.rows as { record_type: RecordType; row: Record<string, unknown> }[];
+  const changes = found.slice(0, limit).map((r) => ({
+    recordType: r.record_type,
+    record: decodeRow(getRecordDef(r.record_type).table, r.row) as RecordRow,
+  }));
+  return { changes, hasMore: found.length > limit };
 }
 
 export async function pullChanges(user: SessionUser, request: PullRequest): Promise<PullResponse> {
@@ -57,7 +72,8 @@ export async function pullChanges(user: SessionUser, request: PullRequest): Prom
       if (client && client.userId !== user.id) {
         throw forbidden("This device id belongs to another user. Sign out and in again on this device.");
       }
-      const visible = await userProjects(tx, user.id);
+      const counted = await userProjects(tx, user.id);
+      const visible = counted.map((c) => c.project);
       const ids = new Set(visible.map((p) => p.id));
       // A first pull, another schema, or a project the user has lost: start again from a snapshot.
       const reset =
@@ -68,7 +84,12 @@ export async function pullChanges(user: SessionUser, request: PullRequest): Prom
 
       const changes: RecordChange[] = [];
       let hasMore = false;
-      for (const project of visible) {
+      for (const { project, lastSeq } of counted) {
+        // Nothing written past the cursor (the counter is read in the same snapshot): no statement.
+        if (lastSeq <= (cursor[project.id] ?? 0)) {
+          cursor[project.id] = cursor[project.id] ?? 0;
+          continue;
+        }
         const page = await projectChanges(tx, project.id, cursor[project.id] ?? 0, limit);
         hasMore ||= page.hasMore;
         for (const change of page.changes) changes.push(change as unknown as RecordChange);

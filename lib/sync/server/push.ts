@@ -1,11 +1,13 @@
-// POST /api/sync/push (SYNC.md): a device's mutations, applied in order, each in its own
-// transaction together with its stored result and the device's watermark, each exactly once.
-import { and, eq, sql } from "drizzle-orm";
+// POST /api/sync/push (SYNC.md): a device's mutations, applied in order and exactly once, in one
+// transaction together with their stored results and the device's watermark.
+import { and, eq, inArray, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
+import { insertMany } from "@/db/json-rows";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
 import { SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushRequest, type PushResponse } from "../protocol";
+import { planCreates, writeCreates, type CreateInput } from "@/lib/records/create-batch";
 import { applyMutation, type Applied } from "./apply";
 
 export class SyncGapError extends AppError {
@@ -17,13 +19,17 @@ export class SyncGapError extends AppError {
   }
 }
 
-/** Test seam: runs inside the mutation's transaction after the write, before the watermark moves. */
+/** Test seam: runs inside the push's transaction after each write, before the watermark moves. */
 export type PushHooks = { afterApply?: (tx: Transaction, m: Mutation, applied: Applied) => Promise<void> };
 
 /** Locks (creating on first use) the device row; a device id owned by another user is refused. */
 async function lockClient(tx: Transaction, clientId: string, user: SessionUser) {
-  await tx.insert(syncClients).values({ id: clientId, userId: user.id }).onConflictDoNothing();
-  const [client] = await tx.select().from(syncClients).where(eq(syncClients.id, clientId)).for("update");
+  // One statement: creates the row on first use, and the no-op update locks it until commit.
+  const [client] = await tx
+    .insert(syncClients)
+    .values({ id: clientId, userId: user.id })
+    .onConflictDoUpdate({ target: syncClients.id, set: { lastMutationId: sql`${syncClients.lastMutationId}` } })
+    .returning();
   if (client.userId !== user.id) throw forbidden("This device id belongs to another user. Sign out and in again on this device.");
   return client;
 }
@@ -49,56 +55,132 @@ export function isTransient(error: unknown): boolean {
   );
 }
 
+/**
+ * Applies the device's mutations in order, in ONE transaction for the whole push: the client row
+ * is locked once, replays are answered from one read of the stored results, runs of creates are
+ * written set-based (lib/records/create-batch.ts) and every other mutation goes one at a time
+ * through the one write path in its own savepoint; then the results are stored in one statement
+ * and the watermark moves once. A transient error rolls the whole push
+ * back (503: the device sends it again, and nothing is doubled). A gap stops the push: what came
+ * before it is committed, and the answer names the expected id.
+ */
 export async function pushMutations(user: SessionUser, request: PushRequest, hooks: PushHooks = {}): Promise<PushResponse> {
   if (request.schemaVersion !== SYNC_SCHEMA_VERSION) {
     throw new AppError("conflict", "This app version is out of date. Reload the app to sync.", undefined, { reason: "schema" });
   }
+  try {
+    return await pushOnce(user, request, hooks, true);
+  } catch (error) {
+    // The database refused a set-based write (a trigger, a row a racing device wrote); the whole
+    // push was rolled back, so it runs again one mutation at a time, each in its own savepoint,
+    // and each gets its own answer: one refusal does not hold back the others.
+    if (error instanceof BatchRefused) return pushOnce(user, request, hooks, false);
+    throw error;
+  }
+}
+
+class BatchRefused extends Error {}
+
+async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHooks, batch: boolean): Promise<PushResponse> {
   const mutations = [...request.mutations].sort((a, b) => a.id - b.id);
-  const results: MutationResult[] = [];
-  let lastMutationId = 0;
+  const { clientId } = request;
 
-  for (const m of mutations) {
-    const outcome = await db.transaction(async (tx) => {
-      const client = await lockClient(tx, request.clientId, user);
-      lastMutationId = client.lastMutationId;
-      if (m.id <= client.lastMutationId) {
-        const [stored] = await tx
-          .select()
-          .from(syncMutations)
-          .where(and(eq(syncMutations.clientId, request.clientId), eq(syncMutations.mutationId, m.id)));
-        return stored ? storedResult(stored) : ({ id: m.id, result: "applied" } as MutationResult);
+  const outcome = await db.transaction(async (tx) => {
+    const client = await lockClient(tx, clientId, user);
+    const replayIds = mutations.filter((m) => m.id <= client.lastMutationId).map((m) => m.id);
+    const stored = replayIds.length
+      ? await tx.select().from(syncMutations).where(and(eq(syncMutations.clientId, clientId), inArray(syncMutations.mutationId, replayIds)))
+      : [];
+    const answers = new Map(stored.map((row) => [row.mutationId, storedResult(row)]));
+
+    // The new mutations must follow the watermark without a hole (duplicates are answered twice).
+    const fresh: Mutation[] = [];
+    let expected = client.lastMutationId + 1;
+    let gap: number | null = null;
+    const answered: Mutation[] = [];
+    for (const m of mutations) {
+      if (m.id > expected) {
+        gap = expected;
+        break;
       }
-      if (m.id > client.lastMutationId + 1) throw new SyncGapError(client.lastMutationId + 1);
+      if (m.id === expected) {
+        fresh.push(m);
+        expected += 1;
+      }
+      answered.push(m);
+    }
 
-      const applied = await applyMutation(tx, user, request.clientId, m);
-      await hooks.afterApply?.(tx, m, applied);
-      await tx.insert(syncMutations).values({
-        clientId: request.clientId,
-        mutationId: m.id,
-        name: m.name,
-        recordType: m.recordType,
-        projectId: m.projectId,
-        recordId: m.recordId,
-        args: m.args,
-        baseVersion: m.baseVersion ?? null,
-        result: applied.result,
-        reason: applied.reason ?? null,
-        message: applied.message ?? null,
-        version: applied.version ?? null,
-        conflictId: applied.conflictId ?? null,
-      });
+    const applied = await applyInOrder(tx, user, clientId, fresh, hooks, batch);
+    if (fresh.length > 0) {
+      await insertMany(
+        tx,
+        syncMutations,
+        fresh.map((m) => {
+          const a = applied.get(m.id)!;
+          return {
+            clientId,
+            mutationId: m.id,
+            name: m.name,
+            recordType: m.recordType,
+            projectId: m.projectId,
+            recordId: m.recordId,
+            args: m.args,
+            baseVersion: m.baseVersion ?? null,
+            result: a.result,
+            reason: a.reason ?? null,
+            message: a.message ?? null,
+            version: a.version ?? null,
+            conflictId: a.conflictId ?? null,
+          };
+        }),
+      );
       await tx
         .update(syncClients)
-        .set({ lastMutationId: m.id, lastSeenAt: sql`now()` })
-        .where(eq(syncClients.id, request.clientId));
-      lastMutationId = m.id;
-      return { id: m.id, ...applied } satisfies MutationResult;
-    });
-    results.push(outcome);
-  }
+        .set({ lastMutationId: expected - 1, lastSeenAt: sql`now()` })
+        .where(eq(syncClients.id, clientId));
+    }
+    for (const [id, a] of applied) answers.set(id, { id, ...a } satisfies MutationResult);
+    const results = answered.map((m) => answers.get(m.id) ?? ({ id: m.id, result: "applied" } as MutationResult));
+    return { lastMutationId: expected - 1, results, gap };
+  });
 
-  if (mutations.length === 0) {
-    lastMutationId = await db.transaction(async (tx) => (await lockClient(tx, request.clientId, user)).lastMutationId);
+  if (outcome.gap !== null) throw new SyncGapError(outcome.gap);
+  return { lastMutationId: outcome.lastMutationId, results: outcome.results };
+}
+
+/** Runs of creates set-based (when `batch`), everything else one by one; results by mutation id. */
+async function applyInOrder(tx: Transaction, user: SessionUser, clientId: string, fresh: Mutation[], hooks: PushHooks, batch: boolean) {
+  const ctx = { user, deviceId: clientId, tx };
+  const applied = new Map<number, Applied>();
+  let i = 0;
+  while (i < fresh.length) {
+    const creates: CreateInput[] = [];
+    for (const m of batch ? fresh.slice(i) : []) {
+      if (m.name !== "create") break;
+      creates.push({ type: m.recordType, projectId: m.projectId, input: { ...m.args, id: m.recordId } });
+    }
+    const plan = creates.length ? await planCreates(tx, ctx, creates) : [];
+    if (plan.length === 0) {
+      const m = fresh[i];
+      const a = await applyMutation(tx, user, clientId, m);
+      await hooks.afterApply?.(tx, m, a);
+      applied.set(m.id, a);
+      i += 1;
+      continue;
+    }
+    const run = fresh.slice(i, i + plan.length);
+    i += plan.length;
+    let rows;
+    try {
+      rows = await writeCreates(tx, ctx, plan);
+    } catch (error) {
+      throw isTransient(error) ? error : new BatchRefused("set-based write refused", { cause: error });
+    }
+    for (const [k, m] of run.entries()) {
+      const a: Applied = { result: "applied", version: rows[k].version };
+      await hooks.afterApply?.(tx, m, a);
+      applied.set(m.id, a);
+    }
   }
-  return { lastMutationId, results };
+  return applied;
 }

@@ -1,0 +1,154 @@
+// Set-based creates for the sync push: a run of a device's creates is checked in memory against
+// rows read (and locked FOR SHARE) in one statement per table, then written with one multi-row
+// INSERT per table, one change-number reservation per project and one audit statement.
+// Only creates that pass every check of createRecord take this way, and the checks are the same
+// functions (guards.ts over a RowSource, can() through mayDoAny, derivedValues). Anything else (an
+// id that exists, a refused link, a signed placement, a role that may not write, invalid input)
+// is left to createRecord, the one write path, which gives the answer and its message.
+import { inArray } from "drizzle-orm";
+import type { Transaction } from "@/db";
+import { insertMany } from "@/db/json-rows";
+import { projects } from "@/db/schema";
+import { writeAudits } from "@/lib/audit";
+import { datesAffected, refreshFindings } from "@/lib/findings/store";
+import { getRoles } from "@/lib/users/queries";
+import { mayDoAny, writeActions } from "./access";
+import { reserveChangeSeqs } from "./change-seq";
+import { derivedValues, newRowValues } from "./compute";
+import { assertNotSigned, checkLinks, dbRows, type RowSource } from "./guards";
+import { getRecordDef, type RecordDef } from "./registry";
+import type { RecordContext, RecordRow } from "./types";
+
+export type CreateInput = { type: string; projectId: string; input: unknown };
+export type PlannedCreate = { def: RecordDef; projectId: string; values: Record<string, unknown>; derived: Record<string, unknown> };
+
+/** Types whose checks read only rows by id: no typed link (photos) and no visit-report freeze. */
+const batchable = (def: RecordDef) =>
+  !def.target && (def.frozenBy === null || def.frozenBy === "self" || def.frozenBy === "placementId" || def.frozenBy === "checklist");
+
+/** The ids a create's checks will read, by record type: its own id and every link. */
+function idsToRead(def: RecordDef, values: Record<string, unknown>, into: Map<string, Set<string>>) {
+  const add = (type: string, id: unknown) => {
+    if (typeof id !== "string") return;
+    if (!into.has(type)) into.set(type, new Set());
+    into.get(type)!.add(id);
+  };
+  add(def.type, values.id);
+  for (const link of [def.parent, ...(def.refs ?? [])]) {
+    if (!link) continue;
+    const value = values[link.field];
+    for (const id of Array.isArray(value) ? value : [value]) add(link.type, id);
+  }
+  if (def.frozenBy === "placementId") add("placements", values.placementId);
+  if (def.frozenBy === "checklist") add("checklists", values.checklistId);
+}
+
+/** Rows by type and id, read in one statement per type and locked FOR SHARE until commit. */
+async function readRows(tx: Transaction, wanted: Map<string, Set<string>>) {
+  const rows = new Map<string, Map<string, RecordRow | null>>();
+  for (const [type, ids] of wanted) {
+    const def = getRecordDef(type);
+    const found = (await tx.select().from(def.table).where(inArray(def.table.id, [...ids])).for("share")) as RecordRow[];
+    const byId = new Map<string, RecordRow | null>([...ids].map((id) => [id, null]));
+    for (const row of found) byId.set(row.id, row);
+    rows.set(type, byId);
+  }
+  return rows;
+}
+
+/**
+ * The longest prefix of `creates` that can be written set-based, each checked in order as
+ * createRecord would check it (a create may link to one earlier in the prefix). Reads a handful
+ * of statements whatever the length; returns [] when the first create needs the one-by-one path.
+ */
+export async function planCreates(tx: Transaction, ctx: RecordContext, creates: CreateInput[]): Promise<PlannedCreate[]> {
+  const parsed: PlannedCreate[] = [];
+  for (const c of creates) {
+    const def = getRecordDef(c.type);
+    if (!batchable(def)) break;
+    const values = def.create.safeParse(c.input);
+    if (!values.success) break;
+    parsed.push({ def, projectId: c.projectId, values: values.data, derived: {} });
+  }
+  if (parsed.length === 0) return [];
+
+  const wanted = new Map<string, Set<string>>();
+  for (const p of parsed) idsToRead(p.def, p.values, wanted);
+  const projectIds = [...new Set(parsed.map((p) => p.projectId))];
+  const [rows, roles, units] = [
+    await readRows(tx, wanted),
+    await getRoles(ctx.user.id, projectIds, tx),
+    parsed.some((p) => p.def.compute)
+      ? new Map((await tx.select({ id: projects.id, unitSystem: projects.unitSystem }).from(projects).where(inArray(projects.id, projectIds))).map((p) => [p.id, p.unitSystem]))
+      : new Map<string, "SI" | "IP">(),
+  ];
+  const fallback = dbRows(tx);
+  const source: RowSource = async (type, id, opts) => {
+    const byId = rows.get(type);
+    if (!byId?.has(id)) return fallback(type, id, opts);
+    const row = byId.get(id) ?? undefined;
+    return opts.projectId && row?.projectId !== opts.projectId ? undefined : row;
+  };
+
+  const planned: PlannedCreate[] = [];
+  for (const p of parsed) {
+    const id = p.values.id as string;
+    if (!mayDoAny(ctx.user, roles.get(p.projectId) ?? null, writeActions(p.def.action))) break;
+    if (rows.get(p.def.type)?.get(id)) break; // a retry or a clash: createRecord compares the payloads
+    try {
+      await checkLinks(tx, p.def, p.projectId, p.values, p.values, source);
+      await assertNotSigned(tx, p.def, p.values, source);
+      p.derived = derivedValues(p.def, p.projectId, p.values, units.get(p.projectId) ?? "SI");
+    } catch {
+      break;
+    }
+    // Later creates of the run may point at this one.
+    rows.get(p.def.type)!.set(id, { ...p.values, ...p.derived, projectId: p.projectId, version: 1, deletedAt: null } as RecordRow);
+    planned.push(p);
+  }
+  return planned;
+}
+
+/** Writes planned creates: change numbers in plan order, one INSERT per table, one audit statement. */
+export async function writeCreates(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[]): Promise<RecordRow[]> {
+  const nextSeq = new Map<string, number>();
+  for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const count = planned.filter((p) => p.projectId === projectId).length;
+    nextSeq.set(projectId, await reserveChangeSeqs(tx, projectId, count));
+  }
+  const values = planned.map((p) => {
+    const changeSeq = nextSeq.get(p.projectId)!;
+    nextSeq.set(p.projectId, changeSeq + 1);
+    return newRowValues(ctx, p.projectId, p.values, p.derived, changeSeq);
+  });
+  const written = new Map<string, RecordRow>();
+  for (const type of new Set(planned.map((p) => p.def.type))) {
+    const def = getRecordDef(type);
+    const rows = values.filter((_, i) => planned[i].def.type === type);
+    for (const row of (await insertMany(tx, def.table, rows)) as RecordRow[]) written.set(row.id, row);
+  }
+  const result = planned.map((p) => written.get(p.values.id as string)!);
+  await writeAudits(
+    tx,
+    planned.map((p, i) => ({
+      projectId: p.projectId,
+      userId: ctx.user.id,
+      deviceId: ctx.deviceId ?? null,
+      recordType: p.def.type,
+      recordId: result[i].id,
+      action: "create",
+      before: null,
+      after: result[i],
+    })),
+  );
+  // The rulebook judges the days these records fall on again, once per project (lib/findings).
+  for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const dates: string[] = [];
+    for (const type of new Set(planned.filter((p) => p.projectId === projectId).map((p) => p.def.type))) {
+      const rows = result.filter((_, i) => planned[i].projectId === projectId && planned[i].def.type === type);
+      dates.push(...(await datesAffected(tx, projectId, type, rows)));
+    }
+    await refreshFindings(tx, projectId, dates);
+  }
+  return result;
+}

@@ -1,0 +1,61 @@
+// npm run bench:lighthouse [-- --app=http://localhost:3000] [--email=sam.super@example.test]
+// Lighthouse (npm, the version pinned in package.json) driving Debian's Chromium with its mobile
+// preset (the default config: emulated mid-range phone, simulated slow 4G), against a running,
+// built Placewright with the demo data (`bash scripts/start.sh`). Pages: the sign-in page, the
+// calculator, and the field screens signed in as a demo user (the session cookie is passed to
+// Lighthouse as a header). Prints performance, accessibility and best practices per page; the
+// acceptance (issue 20) is performance ≥ 95 and accessibility = 100 on every page.
+import lighthouse from "lighthouse";
+import { chromium } from "@playwright/test";
+
+const argv = process.argv.slice(2);
+const option = (name: string, fallback: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3) ?? fallback;
+const appUrl = option("app", "http://localhost:3000").replace(/\/$/, "");
+const email = option("email", "sam.super@example.test");
+const password = option("password", "placewright-demo");
+const port = Number(option("debug-port", "9333"));
+
+// One Chromium with a remote-debugging port: Playwright signs in, Lighthouse drives the same browser.
+const browser = await chromium.launch({
+  executablePath: "/usr/bin/chromium",
+  args: ["--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage", `--remote-debugging-port=${port}`],
+});
+try {
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await page.goto(`${appUrl}/signin`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(/\/today/, { timeout: 60_000 });
+  await page.goto(`${appUrl}/field/today`, { waitUntil: "networkidle" });
+  const placement = await page.locator('a[href*="/field/placement?id="]').first().getAttribute("href", { timeout: 30_000 }).catch(() => null);
+  const cookie = (await context.cookies()).map((c) => `${c.name}=${c.value}`).join("; ");
+  await context.close();
+
+  const pages: [string, string, boolean][] = [
+    ["sign-in", "/signin", false],
+    ["calculator", "/tools/evaporation", false],
+    ["field: today", "/field/today", true],
+    ...(placement ? [["field: placement", placement, true] as [string, string, boolean]] : []),
+    ["field: diary", "/field/diary", true],
+    ["field: visits", "/field/visits", true],
+  ];
+  console.log(`lighthouse, mobile preset, ${appUrl}`);
+  console.log(`${"page".padEnd(20)} ${"perf".padStart(5)} ${"a11y".padStart(5)} ${"best".padStart(5)}  (perf ≥ 95, a11y = 100)`);
+  for (const [name, path, signedIn] of pages) {
+    const result = await lighthouse(`${appUrl}${path}`, {
+      port,
+      output: "json",
+      logLevel: "error",
+      onlyCategories: ["performance", "accessibility", "best-practices"],
+      ...(signedIn ? { extraHeaders: { Cookie: cookie } } : {}),
+    });
+    const c = result?.lhr.categories;
+    const score = (key: string) => Math.round((c?.[key]?.score ?? 0) * 100);
+    const ok = score("performance") >= 95 && score("accessibility") === 100;
+    console.log(`${name.padEnd(20)} ${String(score("performance")).padStart(5)} ${String(score("accessibility")).padStart(5)} ${String(score("best-practices")).padStart(5)}  ${ok ? "ok" : "below"}`);
+  }
+} finally {
+  await browser.close();
+}
