@@ -4,6 +4,7 @@ import { eq } from "drizzle-orm";
 import type { Job } from "pg-boss";
 import { db } from "@/db";
 import { projects } from "@/db/schema";
+import { logger } from "@/lib/log";
 import { DIGEST_QUEUE, getBoss, scheduleAllProjects, scheduleNext, type DigestJob } from "./queue";
 import { sendDigest, type MailTransport, type SendReport } from "./send";
 
@@ -38,10 +39,13 @@ export async function startDigestWorker(options: WorkerOptions = {}): Promise<Di
     DIGEST_QUEUE,
     { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 10, batchSize: 1 },
     async (jobs: Job<DigestJob>[]) => {
-      for (const job of jobs) await runDigestJob(job.data, options);
+      for (const job of jobs) {
+        const report = await runDigestJob(job.data, options);
+        logger.info({ jobId: job.id, projectId: job.data.projectId, date: job.data.date, sent: report?.sent.length ?? 0, alreadySent: report?.alreadySent.length ?? 0 }, "digest job done");
+      }
     },
   );
-  const reschedule = () => scheduleAllProjects(options.now?.()).catch((error) => console.error("[digest worker] scheduling failed", error));
+  const reschedule = () => scheduleAllProjects(options.now?.()).catch((err) => logger.error({ err }, "digest scheduling failed"));
   // In the background: with many projects this takes a while, and the app must not wait for it.
   if (options.scheduleOnStart ?? true) void reschedule();
   const every = options.rescheduleEveryMs ?? 10 * 60_000;
