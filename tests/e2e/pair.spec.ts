@@ -85,6 +85,7 @@ test("sign-in throttling counts wrong passwords across both instances", async ()
   };
   const single = await lockedAfter(`throttle-one-${randomUUID().slice(0, 8)}@example.test`, [A]);
   const alternating = await lockedAfter(`throttle-two-${randomUUID().slice(0, 8)}@example.test`, [A, B]);
+  console.log(`sign-in locked after ${single} wrong passwords on one instance, ${alternating} alternating A/B`);
   expect(single).toBeLessThan(20);
   // A counter per process would need about twice as many attempts when they alternate.
   expect(alternating).toBe(single);
@@ -141,9 +142,15 @@ test("SIGTERM during a push: the device's retry on the other instance applies ea
     (error: Error) => ({ status: 0, json: null, error }),
   );
   // SIGTERM once the first mutations of the batch are in the database: the push is in flight.
-  await expect.poll(() => withDb(async (db) => Number((await db.query("select count(*) from sync_mutations where client_id = $1", [clientId])).rows[0].count)), { timeout: 60_000, intervals: [20] }).toBeGreaterThan(0);
+  const appliedSoFar = () => withDb(async (db) => Number((await db.query("select count(*) from sync_mutations where client_id = $1", [clientId])).rows[0].count));
+  await expect.poll(appliedSoFar, { timeout: 60_000, intervals: [20] }).toBeGreaterThan(0);
   doomed.child.kill("SIGTERM");
+  const atSigterm = await appliedSoFar();
   const answered = await first;
+  console.log(`SIGTERM with ${atSigterm} of 100 mutations applied; the in-flight push answered ${answered.status}`);
+  expect(atSigterm, "the push was still in flight at SIGTERM").toBeLessThan(100);
+  // Graceful: the request in flight was finished and answered, not cut.
+  expect(answered.status).toBe(200);
   expect(await exited, `graceful exit:\n${doomed.output()}`).toBe(0);
   const log = doomed.output();
   expect(log).toMatch(/"inFlight":[1-9]\d*,.*finishing requests in flight/);
@@ -157,7 +164,7 @@ test("SIGTERM during a push: the device's retry on the other instance applies ea
   const replay = (await retry.json()) as { lastMutationId: number; results: { id: number; result: string; version?: number }[] };
   expect(replay.lastMutationId).toBe(100);
   expect(replay.results.map((r) => [r.id, r.result, r.version])).toEqual(mutations.map((m) => [m.id, "applied", 1]));
-  if (answered.status === 200) expect(answered.json!.results).toEqual(replay.results);
+  expect(answered.json!.results).toEqual(replay.results);
 
   await withDb(async (db) => {
     const ids = mutations.map((m) => m.recordId);
