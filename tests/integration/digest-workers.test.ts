@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { digestRecipients, sentDigests } from "@/db/schema";
 import { DIGEST_QUEUE, enqueueDigest, getBoss, singletonKey, stopQueue } from "@/lib/digest/queue";
+import { RESCHEDULE_LOCK, rescheduleOnce } from "@/lib/digest/worker";
 import { createProject } from "./helpers";
 
 const MAILBOX = process.env.MAILBOX_URL ?? "http://127.0.0.1:2581";
@@ -84,4 +85,23 @@ describe("two digest workers", () => {
     console.log(`digest jobs done per worker: ${doneLines.join(" + ")} (of ${jobIds.length})`);
     expect(doneLines[0] + doneLines[1]).toBe(jobIds.length);
   }, 150_000);
+
+  it("the periodic schedule check is done by one worker at a time", async () => {
+    // Another worker's round in progress: its transaction holds the lock.
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    let locked!: () => void;
+    const lockTaken = new Promise<void>((r) => (locked = r));
+    const other = db.transaction(async (tx) => {
+      await tx.execute(sql`select pg_advisory_xact_lock(${RESCHEDULE_LOCK})`);
+      locked();
+      await held;
+    });
+    await lockTaken;
+    expect(await rescheduleOnce(), "skipped while another worker holds the round").toBeNull();
+    release();
+    await other;
+    expect(await rescheduleOnce()).toBeGreaterThan(0); // the number of projects checked
+    await stopQueue();
+  }, 120_000);
 });
