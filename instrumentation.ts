@@ -6,7 +6,8 @@ export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs" || process.env.NEXT_PHASE === "phase-production-build") return;
   const { configOrExit } = await import("./lib/config");
   const settings = configOrExit();
-  const { logger } = await import("./lib/log");
+  const { logger, routeConsoleToLogger } = await import("./lib/log");
+  routeConsoleToLogger();
   const { onShutdown, setShutdownTimeout } = await import("./lib/lifecycle");
   const { closeDb } = await import("./db");
   setShutdownTimeout(settings.shutdownTimeoutMs);

@@ -2,6 +2,7 @@
 // written for. The request context is set by the server entry (scripts/serve.mjs) around every
 // request; it lives on globalThis because that script and the bundled app are separate module graphs.
 import { AsyncLocalStorage } from "node:async_hooks";
+import { format } from "node:util";
 import pino from "pino";
 
 export type RequestContext = { requestId: string };
@@ -53,3 +54,21 @@ export function createLogger(destination?: pino.DestinationStream): pino.Logger 
 }
 
 export const logger: pino.Logger = (globalForLog.placewrightLogger ??= createLogger());
+
+/**
+ * Sends console.* (Next's own error reports, libraries) through the logger, so every line on
+ * stdout is JSON with its request id. Called once by the server (instrumentation.ts).
+ */
+export function routeConsoleToLogger(log: pino.Logger = logger): void {
+  const write = (level: "error" | "warn" | "info" | "debug") => (...args: unknown[]) => {
+    const err = args.find((a): a is Error => a instanceof Error);
+    const msg = format(...args.filter((a) => a !== err));
+    if (err) log[level]({ err }, msg || err.message);
+    else log[level](msg);
+  };
+  console.error = write("error");
+  console.warn = write("warn");
+  console.info = write("info");
+  console.log = write("info");
+  console.debug = write("debug");
+}

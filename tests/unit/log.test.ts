@@ -2,7 +2,7 @@
 // password, a token or a cookie (lib/log.ts).
 import { Writable } from "node:stream";
 import { describe, expect, it } from "vitest";
-import { createLogger, requestContext } from "@/lib/log";
+import { createLogger, requestContext, routeConsoleToLogger } from "@/lib/log";
 
 function capture() {
   const lines: Record<string, unknown>[] = [];
@@ -38,5 +38,19 @@ describe("structured logs", () => {
     const text = JSON.stringify(lines[0]);
     for (const secret of ["hunter2", "hunter3", "abc", "xyz", "pw@h"]) expect(text).not.toContain(secret);
     expect(text).toContain("[redacted]");
+  });
+
+  it("routes console output through the logger, errors with their stack", () => {
+    const { logger, lines } = capture();
+    const saved = { error: console.error, warn: console.warn, info: console.info, log: console.log, debug: console.debug };
+    try {
+      routeConsoleToLogger(logger);
+      requestContext().run({ requestId: "req-9" }, () => console.error("render failed:", new Error("boom")));
+      console.warn("plain", { a: 1 });
+    } finally {
+      Object.assign(console, saved);
+    }
+    expect(lines[0]).toMatchObject({ level: 50, msg: "render failed:", requestId: "req-9", err: { message: "boom" } });
+    expect(lines[1]).toMatchObject({ level: 40, msg: "plain { a: 1 }" });
   });
 });
