@@ -91,6 +91,32 @@ test("sign-in throttling counts wrong passwords across both instances", async ()
   expect(alternating).toBe(single);
 });
 
+/** A superintendent of a project of their own (so other suites' lists are untouched), signed in. */
+async function superintendentOfNewProject() {
+  const tag = randomUUID().slice(0, 8);
+  const email = `pair-${tag}@example.test`;
+  const password = `pair-password-${tag}`;
+  const projectId = randomUUID();
+  await withDb(async (db) => {
+    const user = await db.query("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, `Pair Tester ${tag}`, await hash(password)]);
+    await db.query("insert into projects (id, name, code, time_zone, unit_system) values ($1, $2, $3, 'America/Chicago', 'SI')", [projectId, `Pair ${tag}`, `PAIR-${tag}`]);
+    await db.query("insert into memberships (user_id, project_id, role) values ($1, $2, 'superintendent')", [user.rows[0].id, projectId]);
+  });
+  const { cookie } = await signIn(B, B, email, password);
+  expect(cookie).toBeTruthy();
+  return { tag, projectId, cookie: cookie! };
+}
+
+/** Device mutations `from`..`to`: each creates a placement. */
+function placementCreates(tag: string, projectId: string, from: number, to: number) {
+  return Array.from({ length: to - from + 1 }, (_, i) => {
+    const id = randomUUID();
+    const n = from + i;
+    const args = { id, element: `Pair slab ${tag} ${n}`, level: "L2", grid: "A-D/1-4", elementType: "elevated-slab", leastDimensionMm: 250, plannedVolumeM3: 60, plannedStart: "2026-11-16T14:00:00Z" };
+    return { id: n, name: "create", recordType: "placements", projectId, recordId: id, args };
+  });
+}
+
 function startDoomed(): Promise<{ child: ChildProcess; output: () => string }> {
   const child = spawn(process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(DOOMED_PORT)], {
     env: { ...process.env, DIGEST_WORKER: "off", INSTANCE_NAME: "doomed", LOG_LEVEL: "info" },
@@ -112,28 +138,43 @@ function startDoomed(): Promise<{ child: ChildProcess; output: () => string }> {
   });
 }
 
+test("one device's pushes landing on alternating instances apply once and in order", async () => {
+  const { tag, projectId, cookie } = await superintendentOfNewProject();
+  const clientId = randomUUID();
+  const push = async (base: string, mutations: ReturnType<typeof placementCreates>) => {
+    const res = await fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify({ clientId, schemaVersion: 2, mutations }) });
+    return { status: res.status, json: (await res.json()) as { lastMutationId?: number; results?: { id: number; result: string }[]; error?: { reason?: string; expectedId?: number } } };
+  };
+  const all = placementCreates(tag, projectId, 1, 30);
+  expect((await push(A, all.slice(0, 10))).json.lastMutationId).toBe(10);
+  expect((await push(B, all.slice(0, 20))).json.lastMutationId).toBe(20); // 1–10 replayed by B, 11–20 applied
+  // A later batch arriving first, on the other instance, is refused at the gap (SYNC.md): nothing applied.
+  const early = await push(A, all.slice(25, 30));
+  expect(early.status).toBe(409);
+  expect(early.json.error).toMatchObject({ reason: "gap", expectedId: 21 });
+  const rest = await push(B, all.slice(20, 30));
+  expect(rest.json.lastMutationId).toBe(30);
+  expect(rest.json.results!.every((r) => r.result === "applied")).toBe(true);
+  await withDb(async (db) => {
+    const ids = all.map((m) => m.recordId);
+    const audits = await db.query("select record_id, count(*)::int as n from audit_entries where record_id = any($1::uuid[]) group by record_id", [ids]);
+    expect(audits.rows.length).toBe(30);
+    expect(audits.rows.every((r: { n: number }) => r.n === 1)).toBe(true);
+    // In order: each placement's change number follows the device's mutation order.
+    const seq = await db.query("select id, change_seq from placements where id = any($1::uuid[])", [ids]);
+    const byId = new Map(seq.rows.map((r: { id: string; change_seq: string }) => [r.id, Number(r.change_seq)]));
+    const seqs = ids.map((id) => byId.get(id)!);
+    expect(seqs).toEqual([...seqs].sort((a, b) => a - b));
+  });
+});
+
 test("SIGTERM during a push: the device's retry on the other instance applies each mutation once", async () => {
   test.setTimeout(240_000);
-  const tag = randomUUID().slice(0, 8);
-  const email = `pair-${tag}@example.test`;
-  const password = `pair-password-${tag}`;
-  const projectId = randomUUID();
-  await withDb(async (db) => {
-    const user = await db.query("insert into users (email, name, password_hash) values ($1, $2, $3) returning id", [email, `Pair Tester ${tag}`, await hash(password)]);
-    await db.query("insert into projects (id, name, code, time_zone, unit_system) values ($1, $2, $3, 'America/Chicago', 'SI')", [projectId, `Pair ${tag}`, `PAIR-${tag}`]);
-    await db.query("insert into memberships (user_id, project_id, role) values ($1, $2, 'superintendent')", [user.rows[0].id, projectId]);
-  });
-  const { cookie } = await signIn(B, B, email, password);
-  expect(cookie).toBeTruthy();
-
+  const { tag, projectId, cookie } = await superintendentOfNewProject();
   const clientId = randomUUID();
-  const mutations = Array.from({ length: 100 }, (_, i) => {
-    const id = randomUUID();
-    const args = { id, element: `Pair slab ${tag} ${i + 1}`, level: "L2", grid: "A-D/1-4", elementType: "elevated-slab", leastDimensionMm: 250, plannedVolumeM3: 60, plannedStart: "2026-11-16T14:00:00Z" };
-    return { id: i + 1, name: "create", recordType: "placements", projectId, recordId: id, args };
-  });
+  const mutations = placementCreates(tag, projectId, 1, 100);
   const body = JSON.stringify({ clientId, schemaVersion: 2, mutations });
-  const push = (base: string) => fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie: cookie! }, body });
+  const push = (base: string) => fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie }, body });
 
   const doomed = await startDoomed();
   const exited = new Promise<number | null>((resolve) => doomed.child.on("exit", (code) => resolve(code)));
