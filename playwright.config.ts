@@ -3,9 +3,17 @@ import { defineConfig } from "@playwright/test";
 const port = Number(process.env.APP_PORT ?? 3100);
 const baseURL = process.env.PLAYWRIGHT_BASE_URL ?? `http://localhost:${port}`;
 process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ??= ".data/test-run/playwright.json";
+// PLAYWRIGHT_PAIR=1: the same build as two instances behind the round-robin proxy on the app port
+// (scripts/serve-pair.mjs); the offline and sign-in suites and tests/e2e/pair.spec.ts run against it.
+const pair = process.env.PLAYWRIGHT_PAIR === "1";
+process.env.PAIR_PORTS ??= `${port + 200},${port + 201}`;
+const serve = pair
+  ? `node scripts/serve-pair.mjs -H 127.0.0.1 -p ${port} --ports ${process.env.PAIR_PORTS}`
+  : `node scripts/serve.mjs -H 127.0.0.1 -p ${port}`;
 
 export default defineConfig({
   testDir: "tests/e2e",
+  ...(pair ? { testMatch: ["field-offline.spec.ts", "sign-in.spec.ts", "pair.spec.ts"] } : { testIgnore: ["pair.spec.ts"] }),
   outputDir: ".data/test-run/playwright-artifacts",
   workers: 1,
   fullyParallel: false,
@@ -33,10 +41,10 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: `node node_modules/next/dist/bin/next start -H 127.0.0.1 -p ${port}`,
+    command: serve,
     url: `http://127.0.0.1:${port}/api/health`,
     reuseExistingServer: false,
-    timeout: 120_000,
+    timeout: 180_000,
     // The digest worker stays off while tests drive the app (integration tests cover it).
     env: { ...(process.env as Record<string, string>), DIGEST_WORKER: "off" },
     stdout: "ignore",

@@ -1,8 +1,7 @@
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { Pool } from "pg";
+import { config } from "@/lib/config";
 import * as schema from "./schema";
-
-export const DEFAULT_DATABASE_URL = "postgres://placewright@127.0.0.1:54329/placewright";
 
 export type Database = NodePgDatabase<typeof schema>;
 export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
@@ -12,12 +11,22 @@ export type Executor = Database | Transaction;
 // One pool per process; kept on globalThis so Next's dev reloads do not open new pools.
 const globalForDb = globalThis as unknown as { placewrightPool?: Pool; placewrightDb?: Database };
 
+function poolOptions() {
+  // `next build` loads route modules to read their settings; it opens no connection and so needs
+  // no database settings (images are built without them).
+  if (process.env.NEXT_PHASE === "phase-production-build") return { max: 1 };
+  const { url, poolMax, statementTimeoutMs } = config().database;
+  return {
+    connectionString: url,
+    max: poolMax,
+    application_name: "placewright",
+    ...(statementTimeoutMs > 0 ? { statement_timeout: statementTimeoutMs } : {}),
+  };
+}
+
 export function getPool(): Pool {
   if (!globalForDb.placewrightPool) {
-    globalForDb.placewrightPool = new Pool({
-      connectionString: process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
-      max: Number(process.env.DATABASE_POOL_MAX ?? 10),
-    });
+    globalForDb.placewrightPool = new Pool(poolOptions());
   }
   return globalForDb.placewrightPool;
 }

@@ -20,6 +20,11 @@ cleanup() {
   exit "$rc"
 }
 
+if [ "${PAIR:-0}" = "1" ]; then
+  for p in $((APP_PORT + 1)) $((APP_PORT + 2)); do
+    port_busy "$p" && die "Port $p is busy (needed by an app instance of the pair). Stop what listens there or run with PORT=<another port>."
+  done
+fi
 port_busy "$APP_PORT" && die "Port $APP_PORT is busy. Stop the program that uses it (ss -ltnp 'sport = :$APP_PORT') or run with PORT=<another port>."
 
 ensure_debian_packages postgresql
@@ -68,6 +73,12 @@ cat <<MSG
 MSG
 
 cd "$ROOT"
-node node_modules/next/dist/bin/next start -H 0.0.0.0 -p "$APP_PORT" &
+# PAIR=1 (`npm run start:pair`): two instances on the next two ports behind a round-robin proxy on
+# APP_PORT, both on this database, bucket and mailbox (scripts/serve-pair.mjs).
+if [ "${PAIR:-0}" = "1" ]; then
+  node scripts/serve-pair.mjs -H 0.0.0.0 -p "$APP_PORT" --ports "$((APP_PORT + 1)),$((APP_PORT + 2))" &
+else
+  node scripts/serve.mjs -H 0.0.0.0 -p "$APP_PORT" &
+fi
 echo $! >"$RUN_DIR/app.pid"
 wait "$(cat "$RUN_DIR/app.pid")"

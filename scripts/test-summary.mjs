@@ -21,17 +21,20 @@ if (existsSync(vitestFile)) {
   lines.push("vitest: no result file (the runner did not finish)");
 }
 
-const pwFile = path.join(runDir, "playwright.json");
-if (existsSync(pwFile)) {
-  const s = JSON.parse(readFileSync(pwFile, "utf8")).stats ?? {};
-  const ok = (s.expected ?? 0) + (s.flaky ?? 0);
-  const bad = (s.unexpected ?? 0) + ((s.expected ?? 0) + (s.unexpected ?? 0) + (s.flaky ?? 0) === 0 ? 1 : 0);
-  passed += ok;
-  failed += bad;
-  lines.push(`playwright: ${ok} passed (${s.flaky ?? 0} flaky), ${s.unexpected ?? 0} failed, ${s.skipped ?? 0} skipped`);
-} else {
-  failed += 1;
-  lines.push("playwright: no result file (the runner did not run or crashed)");
+// The single-instance run, then the run against two instances behind the proxy (PLAYWRIGHT_PAIR=1).
+for (const [name, file] of [["playwright", "playwright.json"], ["playwright (pair)", "playwright-pair.json"]]) {
+  const pwFile = path.join(runDir, file);
+  if (existsSync(pwFile)) {
+    const s = JSON.parse(readFileSync(pwFile, "utf8")).stats ?? {};
+    const ok = (s.expected ?? 0) + (s.flaky ?? 0);
+    const bad = (s.unexpected ?? 0) + ((s.expected ?? 0) + (s.unexpected ?? 0) + (s.flaky ?? 0) === 0 ? 1 : 0);
+    passed += ok;
+    failed += bad;
+    lines.push(`${name}: ${ok} passed (${s.flaky ?? 0} flaky), ${s.unexpected ?? 0} failed, ${s.skipped ?? 0} skipped`);
+  } else {
+    failed += 1;
+    lines.push(`${name}: no result file (the runner did not run or crashed)`);
+  }
 }
 
 if (failedChecks.length) lines.push(`failed checks: ${failedChecks.join(", ")}`);

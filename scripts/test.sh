@@ -56,6 +56,9 @@ npx vitest run --reporter=default --reporter=json --outputFile.json="$RUN_DIR/vi
 if step "build" npm run --silent build; then
   log "end-to-end tests (Playwright, Debian Chromium)"
   npx playwright test --reporter=list,json 2>&1 | tee "$RUN_DIR/playwright.log"
+  log "end-to-end tests against two instances behind a round-robin proxy (same build)"
+  PLAYWRIGHT_PAIR=1 PLAYWRIGHT_JSON_OUTPUT_NAME="$RUN_DIR/playwright-pair.json" \
+    npx playwright test --reporter=list,json 2>&1 | tee "$RUN_DIR/playwright-pair.log"
 else
   log "build failed: end-to-end tests not run"
 fi

@@ -1,19 +1,27 @@
 // Runs the digest worker on its own (`npm run worker`), e.g. when the app runs with DIGEST_WORKER=off.
-import { closeDb } from "../db/index.ts";
-import { stopQueue } from "../lib/digest/queue.ts";
-import { startDigestWorker } from "../lib/digest/worker.ts";
+// Any number may run at once: pg-boss hands each job to one of them, and the sent_digests claim
+// keeps each digest to one send. The configuration is checked before anything else is loaded.
+import { configOrExit } from "../lib/config.ts";
 
-const worker = await startDigestWorker();
-console.log("digest worker running (queue project-digest); Ctrl-C to stop");
+const settings = configOrExit();
+const { closeDb } = await import("../db/index.ts");
+const { stopQueue } = await import("../lib/digest/queue.ts");
+const { startDigestWorker } = await import("../lib/digest/worker.ts");
+const { logger } = await import("../lib/log.ts");
+
+const worker = await startDigestWorker({ pollingIntervalSeconds: settings.digest.pollSeconds });
+logger.info({ queue: "project-digest" }, "digest worker running; Ctrl-C to stop");
 
 let stopping = false;
-async function shutdown() {
+async function shutdown(signal: string) {
   if (stopping) return;
   stopping = true;
+  logger.info({ signal }, "digest worker stopping");
   await worker.stop();
   await stopQueue();
   await closeDb();
+  logger.info({}, "digest worker stopped");
   process.exit(0);
 }
-process.on("SIGINT", shutdown);
-process.on("SIGTERM", shutdown);
+process.on("SIGINT", () => void shutdown("SIGINT"));
+process.on("SIGTERM", () => void shutdown("SIGTERM"));

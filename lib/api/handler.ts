@@ -4,6 +4,7 @@ import { requireUser } from "@/lib/auth/session";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, invalidInput } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
+import { logger } from "@/lib/log";
 
 export type ErrorBody = { error: { code: string; message: string; fields?: Record<string, string> } };
 
@@ -41,7 +42,7 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
     );
   }
   // Never leak a stack trace or SQL text; log it on the server instead.
-  console.error(error);
+  logger.error({ err: error }, "unhandled error in a route handler");
   return NextResponse.json(
     { error: { code: "internal", message: "Something went wrong on the server. Your data was not changed." } },
     { status: 500 },

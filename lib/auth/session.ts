@@ -1,6 +1,7 @@
 import type { NextRequest } from "next/server";
 import { getServerSession } from "next-auth";
 import { getToken } from "next-auth/jwt";
+import { config } from "@/lib/config";
 import { unauthenticated } from "@/lib/errors";
 import { findUserById } from "@/lib/users/queries";
 import { authOptions, type SessionUser } from "./options";
@@ -12,7 +13,7 @@ import { authOptions, type SessionUser } from "./options";
  */
 export async function getSessionUser(req?: NextRequest): Promise<SessionUser | null> {
   const id = req
-    ? (await getToken({ req, secret: process.env.NEXTAUTH_SECRET }))?.sub
+    ? (await getToken({ req, secret: config().auth.secret }))?.sub
     : (await getServerSession(authOptions))?.user?.id;
   if (!id) return null;
   const user = await findUserById(id);

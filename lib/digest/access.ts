@@ -10,6 +10,7 @@ import { authorize } from "@/lib/auth/authorize";
 import { can } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { AppError, forbidden, notFound } from "@/lib/errors";
+import { logger } from "@/lib/log";
 import { getRole } from "@/lib/users/queries";
 import { buildDigest, digestLinks, type DigestMessage } from "./content";
 import { loadDigestDay } from "./load";
@@ -80,5 +81,5 @@ export async function getDigestHistory(user: SessionUser, projectId: string): Pr
 /** After a change of hours or recipients: requeue at once when this process runs the queue. */
 export function rescheduleSoon(projectId: string): void {
   if (!queueStarted()) return; // the worker's periodic check picks the change up
-  scheduleNext(projectId).catch((error) => console.error("[digest] rescheduling failed", error));
+  scheduleNext(projectId).catch((err) => logger.error({ err, projectId }, "digest rescheduling failed"));
 }

@@ -2,8 +2,10 @@
 // waiting job per project and day, started at the project's local digest hour.
 import { eq, sql } from "drizzle-orm";
 import PgBoss from "pg-boss";
-import { db, DEFAULT_DATABASE_URL } from "@/db";
+import { db } from "@/db";
 import { projects } from "@/db/schema";
+import { config } from "@/lib/config";
+import { logger } from "@/lib/log";
 import { activeRecipients } from "./recipients";
 import { digestDateFor, nextSendTime } from "./schedule";
 
@@ -21,13 +23,13 @@ const globalForBoss = globalThis as unknown as { placewrightBoss?: Promise<PgBos
 
 async function createBoss(): Promise<PgBoss> {
   const boss = new PgBoss({
-    connectionString: process.env.DATABASE_URL ?? DEFAULT_DATABASE_URL,
+    connectionString: config().database.url,
     schema: PGBOSS_SCHEMA,
     max: 4,
     application_name: "placewright-digest",
     schedule: false, // no cron: each job schedules the next day itself
   });
-  boss.on("error", (error) => console.error("[digest queue]", error));
+  boss.on("error", (err) => logger.error({ err }, "digest queue error"));
   await boss.start();
   // "short": at most one waiting job per singleton key, so a project+day is queued once.
   await boss.createQueue(DIGEST_QUEUE, { name: DIGEST_QUEUE, policy: "short", ...DIGEST_RETRY, expireInSeconds: 900 });

@@ -6,7 +6,7 @@ import type { SendMailOptions } from "nodemailer";
 import { db } from "@/db";
 import { projects, sentDigests, users } from "@/db/schema";
 import { invalidInput, notFound } from "@/lib/errors";
-import { MAIL_FROM, appOrigin, getTransport } from "@/lib/mail/transport";
+import { appOrigin, getTransport, mailFrom } from "@/lib/mail/transport";
 import { buildDigest, digestLinks } from "./content";
 import { loadDigestDay } from "./load";
 import { activeRecipients } from "./recipients";
@@ -83,7 +83,7 @@ export async function sendDigest(projectId: string, date: string, options: SendO
     }
     try {
       const info = await transport.sendMail({
-        from: MAIL_FROM,
+        from: mailFrom(),
         to: r.email,
         subject: message.subject,
         text: message.text,

@@ -2,6 +2,7 @@
 // the recipient's id, project and address with an HMAC-SHA256 keyed from NEXTAUTH_SECRET.
 import { createHmac, timingSafeEqual } from "node:crypto";
 import { z } from "zod";
+import { config } from "@/lib/config";
 import { appOrigin } from "@/lib/mail/transport";
 
 export type UnsubscribeClaim = { recipientId: string; projectId: string; email: string };
@@ -9,8 +10,7 @@ export type UnsubscribeClaim = { recipientId: string; projectId: string; email: 
 const payloadSchema = z.object({ r: z.guid(), p: z.guid(), e: z.string().min(3).max(320) });
 
 function key(): Buffer {
-  const secret = process.env.NEXTAUTH_SECRET;
-  if (!secret) throw new Error("NEXTAUTH_SECRET is not set: unsubscribe links cannot be signed.");
+  const { secret } = config().auth;
   // A key of its own, so an unsubscribe signature can never be replayed as any other signed value.
   return createHmac("sha256", secret).update("placewright:digest-unsubscribe:v1").digest();
 }

@@ -1,9 +1,10 @@
 // The digest worker: runs each project's job when its hour comes, then the next day's is queued.
 // Started with the app (instrumentation.ts) or alone (`npm run worker`).
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import type { Job } from "pg-boss";
 import { db } from "@/db";
 import { projects } from "@/db/schema";
+import { logger } from "@/lib/log";
 import { DIGEST_QUEUE, getBoss, scheduleAllProjects, scheduleNext, type DigestJob } from "./queue";
 import { sendDigest, type MailTransport, type SendReport } from "./send";
 
@@ -32,16 +33,35 @@ export async function runDigestJob(job: DigestJob, options: WorkerOptions = {}):
 
 export type DigestWorker = { stop: () => Promise<void> };
 
+/** The advisory lock key of the periodic schedule check (any 64-bit number of our own). */
+export const RESCHEDULE_LOCK = sql`hashtext('placewright:digest-reschedule')`;
+
+/**
+ * The periodic check of every project's next run, done by one worker at a time: every instance's
+ * worker runs the timer, the one that takes the advisory lock does the round and the others skip
+ * it (null). The lock is held by a transaction, so a worker that dies mid-round releases it.
+ */
+export async function rescheduleOnce(now?: Date): Promise<number | null> {
+  return db.transaction(async (tx) => {
+    const result = await tx.execute(sql`select pg_try_advisory_xact_lock(${RESCHEDULE_LOCK}) as got`);
+    if (!(result.rows[0] as { got: boolean }).got) return null;
+    return scheduleAllProjects(now);
+  });
+}
+
 export async function startDigestWorker(options: WorkerOptions = {}): Promise<DigestWorker> {
   const boss = await getBoss();
   const workId = await boss.work<DigestJob>(
     DIGEST_QUEUE,
     { pollingIntervalSeconds: options.pollingIntervalSeconds ?? 10, batchSize: 1 },
     async (jobs: Job<DigestJob>[]) => {
-      for (const job of jobs) await runDigestJob(job.data, options);
+      for (const job of jobs) {
+        const report = await runDigestJob(job.data, options);
+        logger.info({ jobId: job.id, projectId: job.data.projectId, date: job.data.date, sent: report?.sent.length ?? 0, alreadySent: report?.alreadySent.length ?? 0 }, "digest job done");
+      }
     },
   );
-  const reschedule = () => scheduleAllProjects(options.now?.()).catch((error) => console.error("[digest worker] scheduling failed", error));
+  const reschedule = () => rescheduleOnce(options.now?.()).catch((err) => logger.error({ err }, "digest scheduling failed"));
   // In the background: with many projects this takes a while, and the app must not wait for it.
   if (options.scheduleOnStart ?? true) void reschedule();
   const every = options.rescheduleEveryMs ?? 10 * 60_000;

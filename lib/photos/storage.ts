@@ -2,23 +2,17 @@
 // (s3rver, started by our scripts) and a real service are used the same way.
 import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { config } from "@/lib/config";
 
 let client: S3Client | undefined;
 
 export function s3(): S3Client {
-  client ??= new S3Client({
-    endpoint: process.env.S3_ENDPOINT || undefined,
-    region: process.env.S3_REGION ?? "us-east-1",
-    forcePathStyle: process.env.S3_FORCE_PATH_STYLE === "true",
-    credentials: {
-      accessKeyId: process.env.S3_ACCESS_KEY_ID ?? "S3RVER",
-      secretAccessKey: process.env.S3_SECRET_ACCESS_KEY ?? "S3RVER",
-    },
-  });
+  const { endpoint, region, forcePathStyle, accessKeyId, secretAccessKey } = config().s3;
+  client ??= new S3Client({ endpoint, region, forcePathStyle, credentials: { accessKeyId, secretAccessKey } });
   return client;
 }
 
-export const bucket = () => process.env.S3_BUCKET ?? "placewright-photos";
+export const bucket = () => config().s3.bucket;
 
 /** A short-lived URL the device PUTs the bytes to; the Content-Type must match what was signed. */
 export const presignPut = (key: string, contentType: string, sizeBytes: number) =>
