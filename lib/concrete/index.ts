@@ -11,3 +11,4 @@ export * from "./strength";
 export * from "./maturity";
 export * from "./maturity-calibration";
 export * from "./maturity-record";
+export * from "./maturity-assessment";
