@@ -29,7 +29,12 @@ export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; pr
   const [opts, setOpts] = useState({ timeColumn: 0, tempColumn: 1, firstDataLine: 2, unit: unitSystemOf(project) === "IP" ? "F" : "C", timeZone: project.timeZone });
 
   useEffect(() => {
-    const w = new Worker(new URL("./csv-import.worker.ts", import.meta.url), { type: "module" });
+    // A classic worker: the bundler's worker bootstrap loads its chunks with importScripts.
+    const w = new Worker(new URL("./csv-import.worker.ts", import.meta.url));
+    w.onerror = () => {
+      setBusy(null);
+      setFailure("The file reader could not start on this device. Reload the page and try again; nothing was imported.");
+    };
     w.onmessage = (event: MessageEvent<WorkerAnswer>) => {
       const a = event.data;
       setBusy(null);

@@ -47,7 +47,8 @@ test("maturity: readings and a CSV offline on the phone, the same estimate in th
   await page.goto(`/field/placement?id=${DECK}`);
   await expect(page.getByTestId("placement-title")).toHaveText("Level 2 deck");
   const panel = page.getByTestId("maturity-panel");
-  await expect(panel.getByTestId("maturity-estimate")).toContainText("psi");
+  // The first read of the device database is slow on a busy test machine; later updates are quick.
+  await expect(panel.getByTestId("maturity-estimate")).toContainText("psi", { timeout: 60_000 });
   await expect(panel.getByTestId("maturity-target")).toContainText("Expected");
   await expect(panel.getByTestId("maturity-cautions")).toContainText("ASTM C1074 asks that the estimate be confirmed");
   await expect(panel.getByTestId("maturity-chart")).toBeVisible();
