@@ -7,7 +7,7 @@ import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { createLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import type { WorkerAnswer, WorkerAsk } from "./csv-import-protocol";
+import { answer, type WorkerAnswer, type WorkerAsk } from "./csv-import-protocol";
 
 type Opened = Extract<WorkerAnswer, { type: "opened" }>;
 type Checked = Extract<WorkerAnswer, { type: "checked" }>;
@@ -21,6 +21,7 @@ const zones = (projectZone: string): string[] => {
 export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; project: ProjectRow; onDone: () => void }) {
   const db = useSyncDb();
   const worker = useRef<Worker | null>(null);
+  const onPage = useRef<{ table: null | Parameters<typeof answer>[1]["table"] } | null>(null);
   const [opened, setOpened] = useState<Opened | null>(null);
   const [checked, setChecked] = useState<Checked | null>(null);
   const [busy, setBusy] = useState<string | null>(null);
@@ -28,22 +29,28 @@ export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; pr
   const [progress, setProgress] = useState<number | null>(null);
   const [opts, setOpts] = useState({ timeColumn: 0, tempColumn: 1, firstDataLine: 2, unit: unitSystemOf(project) === "IP" ? "F" : "C", timeZone: project.timeZone });
 
+  const pending = useRef<WorkerAsk | null>(null);
+  const receive = (a: WorkerAnswer) => {
+    pending.current = null;
+    setBusy(null);
+    if (a.type === "failed") setFailure(a.message);
+    if (a.type === "opened") {
+      setOpened(a);
+      setOpts((o) => ({ ...o, ...a.guess }));
+    }
+    if (a.type === "checked") setChecked(a);
+  };
   useEffect(() => {
     // A classic worker: the bundler's worker bootstrap loads its chunks with importScripts.
     const w = new Worker(new URL("./csv-import.worker.ts", import.meta.url));
-    w.onerror = () => {
-      setBusy(null);
-      setFailure("The file reader could not start on this device. Reload the page and try again; nothing was imported.");
-    };
-    w.onmessage = (event: MessageEvent<WorkerAnswer>) => {
-      const a = event.data;
-      setBusy(null);
-      if (a.type === "failed") setFailure(a.message);
-      if (a.type === "opened") {
-        setOpened(a);
-        setOpts((o) => ({ ...o, ...a.guess }));
-      }
-      if (a.type === "checked") setChecked(a);
+    w.onmessage = (event: MessageEvent<WorkerAnswer>) => receive(event.data);
+    // Offline, the service worker's cached copy of the bundler's worker bootstrap loses its start-up
+    // parameters, so the worker cannot start: the file is then read on the page itself.
+    w.onerror = (event) => {
+      event.preventDefault();
+      onPage.current ??= { table: null };
+      const waiting = pending.current;
+      if (waiting) void answer(waiting, onPage.current).then(receive);
     };
     worker.current = w;
     return () => w.terminate();
@@ -52,7 +59,12 @@ export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; pr
   const ask = (message: WorkerAsk, doing: string) => {
     setFailure(null);
     setBusy(doing);
-    worker.current?.postMessage(message);
+    pending.current = message;
+    if (onPage.current) {
+      const state = onPage.current;
+      // Let the "reading" message paint before the page thread is busy.
+      setTimeout(() => void answer(message, state).then(receive), 50);
+    } else worker.current?.postMessage(message);
   };
   const change = (patch: Partial<typeof opts>) => {
     setOpts((o) => ({ ...o, ...patch }));
