@@ -64,7 +64,16 @@ export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; pr
       const state = onPage.current;
       // Let the "reading" message paint before the page thread is busy.
       setTimeout(() => void answer(message, state).then(receive), 50);
-    } else worker.current?.postMessage(message);
+    } else {
+      worker.current?.postMessage(message);
+      // The bootstrap's failure is not always reported as an error event: a worker that has not
+      // answered after a few seconds is given up and the page reads the file itself.
+      setTimeout(() => {
+        if (pending.current !== message) return;
+        onPage.current ??= { table: null };
+        void answer(message, onPage.current).then(receive);
+      }, 4_000);
+    }
   };
   const change = (patch: Partial<typeof opts>) => {
     setOpts((o) => ({ ...o, ...patch }));
