@@ -13,6 +13,7 @@ import {
   type UnitSystem,
 } from "@/lib/concrete";
 import { localTimeText, maturityColdFindings, maturityGapFindings, maturityTargetFindings, type CheckSensor } from "@/lib/checks/maturity";
+import { toCheckProject } from "@/lib/checks/records";
 import type { CheckPlacement, CheckProject, Finding } from "@/lib/checks/types";
 
 type Row = Record<string, unknown>;
@@ -68,15 +69,7 @@ export function buildMaturityView(input: MaturityInput): MaturityView {
     calibration,
     targetMPa: input.targetMPa,
   });
-  const project: CheckProject = {
-    unitSystem: input.project.unitSystem === "IP" ? "IP" : "SI",
-    timeZone: input.project.timeZone,
-    dischargeLimitMinutes: numberOr(input.project.dischargeLimitMinutes, 90),
-    revolutionLimit: null,
-    evaporationHighKgM2H: null,
-    maxConcreteTempC: numberOr(input.project.maxConcreteTempC, 35),
-    coldWeatherDefinition: "aci306r-current",
-  };
+  const project: CheckProject = toCheckProject(input.project);
   const placement: CheckPlacement = {
     id: input.placement.id,
     element: String(input.placement.element ?? ""),

@@ -12,7 +12,7 @@ import {
   unitLabel,
   type MaturityAssessment,
 } from "@/lib/concrete";
-import { zonedParts } from "@/lib/digest/schedule";
+import { zonedParts } from "@/lib/time/zone";
 import { GOVERNS, type CheckPlacement, type CheckProject, type Finding } from "./types";
 
 /** A temperature sensor cast into a placement, as stored. */
