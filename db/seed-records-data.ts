@@ -6,6 +6,7 @@
 import { fToC, galToL, inToMm, lbFt3ToKgM3, mphToKmh, psiToMPa, yd3ToM3 } from "@/lib/concrete/units";
 import type { RecordType } from "@/lib/records/registry";
 import { DEMO_IDS } from "./seed";
+import { maturityDemoRecords } from "./seed-maturity-data";
 
 export type DemoRecord = {
   projectId: string;
@@ -407,5 +408,6 @@ export function demoRecords(): [RecordType, DemoRecord[]][] {
     ["diary-equipment", equipmentData],
     ["diary-delays", delaysData],
     ["diary-visitors", visitorsData],
+    ...maturityDemoRecords({ project: L, deck: P.deckL2, delivery: D.d3, sam, ines, olu }),
   ];
 }

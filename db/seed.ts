@@ -1,6 +1,7 @@
 // The invented demo scenario (see the product brief): Kestrel & Vine Constructors build
 // Larkspur Commons and the Millrace Pump House. Idempotent: running it twice changes nothing.
 import { hashPassword } from "@/lib/auth/password";
+import { psiToMPa } from "@/lib/concrete/units";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { Database } from "./index";
 import { memberships, projects, users } from "./schema";
@@ -39,6 +40,8 @@ export const DEMO_PROJECTS = [
     timeZone: "America/Chicago",
     unitSystem: "IP" as const,
     specEditions: "ACI 318-19, ACI 301-20, ACI 305.1-14, ACI 306.1-90, ASTM C94-21",
+    // The project specification's stripping strength for elevated decks (invented): 3000 psi.
+    maturityTargetMPa: psiToMPa(3000),
   },
   {
     id: DEMO_IDS.projects.millrace,

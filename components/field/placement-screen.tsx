@@ -21,6 +21,7 @@ import { OpenFindings } from "@/components/findings/open-findings";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
 import { AuditTrail } from "@/components/signoff/audit-trail";
 import { PlacementSignOff } from "@/components/signoff/placement-sign-off";
+import { FieldMaturity } from "@/components/maturity/field-maturity";
 import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
 import { FieldTests } from "./field-tests";
@@ -191,6 +192,7 @@ export function PlacementScreen() {
       <FieldTests placement={placement} project={project} mix={mix ?? null} checks={checks} />
       <WeatherWatch placement={placement} project={project} mix={mix ?? null} checks={checks} />
       <CuringLog placement={placement} project={project} checks={checks} />
+      <FieldMaturity placement={placement} project={project} mix={mix ?? null} />
       <AuditTrail projectId={placement.projectId} recordId={placement.id} timeZone={project.timeZone} />
     </div>
   );

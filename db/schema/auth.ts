@@ -18,6 +18,7 @@ import { createdAtColumn, idColumn, updatedAtColumn } from "./columns";
 
 export const projectRole = pgEnum("project_role", ["superintendent", "inspector", "office", "owner"]);
 export const unitSystem = pgEnum("unit_system", ["SI", "IP"]);
+export const maturityMethod = pgEnum("maturity_method", ["nurse-saul", "equivalent-age"]);
 export const coldWeatherDefinition = pgEnum("cold_weather_definition", [
   "aci306r-current",
   "aci306-1990",
@@ -57,6 +58,12 @@ export const projects = pgTable("projects", {
   /** Edition of the standards the project specification cites, e.g. "ACI 318-19". */
   specEditions: text("spec_editions").notNull().default(""),
   digestHour: integer("digest_hour").notNull().default(18),
+  /** Maturity method settings (ASTM C1074 defaults: Nurse-Saul, T0 = 0 °C, E = 41.57 kJ/mol ↔ Q = 5000 K). */
+  maturityMethod: maturityMethod("maturity_method").notNull().default("nurse-saul"),
+  maturityDatumC: doublePrecision("maturity_datum_c").notNull().default(0),
+  maturityActivationEnergyJPerMol: doublePrecision("maturity_activation_energy_j_per_mol").notNull().default(41_570),
+  /** The strength the project asks for before stripping or stressing, when the specification sets one. */
+  maturityTargetMPa: doublePrecision("maturity_target_mpa"),
   createdAt: createdAtColumn(),
   updatedAt: updatedAtColumn(),
 });

@@ -9,3 +9,6 @@ export * from "./tolerance";
 export * from "./yield";
 export * from "./strength";
 export * from "./maturity";
+export * from "./maturity-calibration";
+export * from "./maturity-record";
+export * from "./maturity-assessment";

@@ -30,32 +30,86 @@ function intervals(readings: TemperatureReading[]): { hours: number; meanC: numb
   });
 }
 
+/** How the maturity index is computed (ASTM C1074); project settings with the standard's defaults. */
+export type MaturityMethod = "nurse-saul" | "equivalent-age";
+export interface MaturitySettings {
+  method: MaturityMethod;
+  /** Nurse-Saul datum temperature T0. */
+  datumC: number;
+  /** Equivalent age: apparent activation energy E (Q = E/R). */
+  activationEnergyJPerMol: number;
+  /** Equivalent age: reference temperature Ts. */
+  referenceC: number;
+}
+
+// ASTM C1074 [memory]: T0 = 0 °C and Q = 5000 K (E ≈ 41.6 kJ/mol), Ts = 20 °C when not determined for the mix.
+export const DEFAULT_MATURITY_SETTINGS: MaturitySettings = {
+  method: "nurse-saul",
+  datumC: 0,
+  activationEnergyJPerMol: 41_570,
+  referenceC: 20,
+};
+
+/** The unit of the maturity index a method gives. */
+export const maturityUnit = (method: MaturityMethod): string => (method === "nurse-saul" ? "°C·h" : "h");
+
+// The index gained over one interval: C1074 Nurse-Saul (°C·h) or Arrhenius equivalent age (h at Ts).
+function intervalGain(hours: number, meanC: number, settings: MaturitySettings): number {
+  if (settings.method === "nurse-saul") return Math.max(0, meanC - settings.datumC) * hours;
+  const qKelvin = settings.activationEnergyJPerMol / GAS_CONSTANT_J_PER_MOL_K;
+  const meanK = meanC + KELVIN_OFFSET;
+  if (meanK <= 0) throw new ConcreteInputError("readings", "Temperature readings are below absolute zero");
+  return Math.exp(-qKelvin * (1 / meanK - 1 / (settings.referenceC + KELVIN_OFFSET))) * hours;
+}
+
+function assertSettings(settings: MaturitySettings): void {
+  assertFinite(settings.datumC, "datumC", "Datum temperature");
+  assertPositive(settings.activationEnergyJPerMol, "activationEnergyJPerMol", "Activation energy");
+  assertFinite(settings.referenceC, "referenceC", "Reference temperature");
+}
+
+/** The maturity reached at each reading (0 at the first): the curve a chart draws and a target is read from. */
+export function maturitySeries(
+  readings: TemperatureReading[],
+  settings: MaturitySettings = DEFAULT_MATURITY_SETTINGS,
+): { at: Date; tempC: number; maturity: number }[] {
+  assertSettings(settings);
+  const steps = intervals(readings);
+  let sum = 0;
+  const out = [{ at: readings[0].at, tempC: readings[0].tempC, maturity: 0 }];
+  steps.forEach(({ hours, meanC }, i) => {
+    sum += intervalGain(hours, meanC, settings);
+    out.push({ at: readings[i + 1].at, tempC: readings[i + 1].tempC, maturity: sum });
+  });
+  return out;
+}
+
+/** The rate at which a constant temperature adds maturity, per hour (for a prediction "if it holds"). */
+export function maturityRatePerHour(tempC: number, settings: MaturitySettings = DEFAULT_MATURITY_SETTINGS): number {
+  assertFinite(tempC, "tempC", "Temperature");
+  assertSettings(settings);
+  return intervalGain(1, tempC, settings);
+}
+
+const total = (readings: TemperatureReading[], settings: MaturitySettings) => {
+  const series = maturitySeries(readings, settings);
+  return series[series.length - 1].maturity;
+};
+
 // ASTM C1074 Nurse-Saul: M = Σ (Ta − T0)·Δt in °C·h; intervals below the datum add nothing.
 export function temperatureTimeFactor(readings: TemperatureReading[], datumC = 0): number {
-  assertFinite(datumC, "datumC", "Datum temperature");
-  return intervals(readings).reduce(
-    (sum, { hours, meanC }) => sum + Math.max(0, meanC - datumC) * hours,
-    0,
-  );
+  return total(readings, { ...DEFAULT_MATURITY_SETTINGS, method: "nurse-saul", datumC });
 }
 
 // ASTM C1074 Arrhenius: te = Σ exp(−Q·(1/Ta − 1/Ts))·Δt, kelvin, Q = E/R (≈ 5000 K by default); hours.
 export function equivalentAgeHours(
   readings: TemperatureReading[],
   {
-    activationEnergyJPerMol = 41_570,
-    referenceC = 20,
+    activationEnergyJPerMol = DEFAULT_MATURITY_SETTINGS.activationEnergyJPerMol,
+    referenceC = DEFAULT_MATURITY_SETTINGS.referenceC,
   }: { activationEnergyJPerMol?: number; referenceC?: number } = {},
 ): number {
-  assertPositive(activationEnergyJPerMol, "activationEnergyJPerMol", "Activation energy");
-  assertFinite(referenceC, "referenceC", "Reference temperature");
-  const qKelvin = activationEnergyJPerMol / GAS_CONSTANT_J_PER_MOL_K;
-  const referenceK = referenceC + KELVIN_OFFSET;
-  return intervals(readings).reduce((sum, { hours, meanC }) => {
-    const meanK = meanC + KELVIN_OFFSET;
-    if (meanK <= 0) throw new ConcreteInputError("readings", "Temperature readings are below absolute zero");
-    return sum + Math.exp(-qKelvin * (1 / meanK - 1 / referenceK)) * hours;
-  }, 0);
+  return total(readings, { ...DEFAULT_MATURITY_SETTINGS, method: "equivalent-age", activationEnergyJPerMol, referenceC });
 }
 
 export interface StrengthMaturityFit {
@@ -64,6 +118,8 @@ export interface StrengthMaturityFit {
   /** Calibration range: estimates outside it are extrapolations. */
   minMaturity: number;
   maxMaturity: number;
+  /** Fit quality: coefficient of determination R² of S on log10(M) (1 = every point on the curve). */
+  rSquared: number;
 }
 
 // ASTM C1074 appendix [memory]: least-squares fit of S = a + b·log10(M) to the lab calibration.
@@ -82,9 +138,11 @@ export function fitLogStrengthMaturity(points: { maturity: number; strength: num
   const meanY = ys.reduce((sum, y) => sum + y, 0) / n;
   let sxx = 0;
   let sxy = 0;
+  let syy = 0;
   xs.forEach((x, i) => {
     sxx += (x - meanX) ** 2;
     sxy += (x - meanX) * (ys[i] - meanY);
+    syy += (ys[i] - meanY) ** 2;
   });
   if (sxx === 0) {
     throw new ConcreteInputError("points", "Calibration points need at least two different maturities");
@@ -96,6 +154,8 @@ export function fitLogStrengthMaturity(points: { maturity: number; strength: num
     b,
     minMaturity: Math.min(...maturities),
     maxMaturity: Math.max(...maturities),
+    // Simple linear regression: R² = Sxy² / (Sxx·Syy); equal strengths fit a flat line exactly.
+    rSquared: syy === 0 ? 1 : (sxy * sxy) / (sxx * syy),
   };
 }
 

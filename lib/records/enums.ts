@@ -23,3 +23,9 @@ export type FindingState = (typeof FINDING_STATES)[number];
 /** Our own plain words: minor (fix in the normal course), major (fix before work continues there), critical (stop that work now). */
 export const FINDING_SEVERITIES = ["minor", "major", "critical"] as const;
 export type FindingSeverity = (typeof FINDING_SEVERITIES)[number];
+
+// Temperature sensors and their readings (maturity method, lib/concrete/maturity*).
+export const READING_SOURCES = ["manual", "import"] as const;
+export const MATURITY_METHODS = ["nurse-saul", "equivalent-age"] as const;
+/** Readings per stored batch: an imported logger file is split into batches of this size. */
+export const MAX_READINGS_PER_BATCH = 1_000;

@@ -19,5 +19,7 @@ export const RECORD_TYPES = [
   "site-visits",
   "findings",
   "photos",
+  "temperature-sensors",
+  "sensor-readings",
 ] as const;
 export type RecordType = (typeof RECORD_TYPES)[number];

@@ -97,3 +97,23 @@ export function zonedTimeToInstant(date: string, hour: number, timeZone: string)
 export function localDayRange(date: string, timeZone: string): { start: Date; end: Date } {
   return { start: zonedTimeToInstant(date, 0, timeZone), end: zonedTimeToInstant(addDays(date, 1), 0, timeZone) };
 }
+
+/**
+ * Every instant at which the wall clock in `timeZone` shows `wall` (ms since epoch, earliest first):
+ * one normally, two in the hour repeated when clocks go back, none in the hour skipped when they go
+ * forward (a logger's local-time record across a change, lib/maturity/csv-import).
+ */
+export function wallClockInstants(wall: WallClock, timeZone: string): { instants: number[] } {
+  const asUtc = Date.UTC(wall.year, wall.month - 1, wall.day, wall.hour, wall.minute, wall.second);
+  // The offsets in force a day either side cover any single change of offset around this time.
+  const before = offsetMs(new Date(asUtc - DAY_MS), timeZone);
+  const after = offsetMs(new Date(asUtc + DAY_MS), timeZone);
+  const instants = [...new Set([before, after])]
+    .map((offset) => asUtc - offset)
+    .filter((t) => {
+      const p = zonedParts(new Date(t), timeZone);
+      return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) === asUtc;
+    })
+    .sort((a, b) => a - b);
+  return { instants };
+}

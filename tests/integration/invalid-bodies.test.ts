@@ -22,7 +22,8 @@ type Spec =
   | { k: "instant" }
   | { k: "date" }
   | { k: "bool" }
-  | { k: "ints"; min: number; max: number; maxItems: number };
+  | { k: "ints"; min: number; max: number; maxItems: number }
+  | { k: "readings" };
 type Field = Spec & { required?: boolean; nullable?: boolean; createOnly?: boolean };
 
 const req = <T extends Spec>(s: T): Field => ({ ...s, required: true });
@@ -95,6 +96,13 @@ const FIELDS: Record<RecordType, Record<string, Field>> = {
     sizeBytes: { k: "num", min: 1, max: 15 * 1024 * 1024, int: true, required: true, createOnly: true },
     contentType: { k: "enum", values: ["image/jpeg", "image/png", "image/webp"], required: true, createOnly: true },
   },
+  "temperature-sensors": {
+    placementId: parent(), name: req(text(80)), location: opt(text(160)), loggingIntervalMinutes: nul(num(1, 1_440, true)), endedAt: nul({ k: "instant" }), note: nul(text(1_000)),
+  },
+  "sensor-readings": {
+    sensorId: parent(), source: { k: "enum", values: ["manual", "import"], required: true, createOnly: true },
+    readings: req({ k: "readings" }),
+  },
 };
 
 const GUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
@@ -148,6 +156,17 @@ function badValue(spec: Field): fc.Arbitrary<unknown> {
         fc.tuple(fc.integer({ min: spec.max + 1, max: 10_000 })).map((a) => [7, ...a]),
         fc.constant([7, 28.5]),
         fc.constant(["7"]),
+      );
+      break;
+    case "readings":
+      options.push(
+        notNumber.filter((v) => !Array.isArray(v)),
+        fc.constant([]),
+        fc.constant([["2026-11-16T10:00:00", 12]]),
+        fc.constant([["2026-11-16T10:00:00Z", 90]]),
+        fc.constant([["2026-11-16T10:00:00Z", "12"]]),
+        fc.constant([["2026-11-16T11:00:00Z", 12], ["2026-11-16T10:00:00Z", 12]]),
+        fc.constant(Array.from({ length: 1_001 }, (_, i) => [new Date(Date.UTC(2026, 10, 16) + i * 60_000).toISOString(), 12])),
       );
       break;
   }

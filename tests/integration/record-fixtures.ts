@@ -30,6 +30,8 @@ export const WRITER: Record<RecordType, ProjectRole> = {
   "site-visits": "inspector",
   findings: "inspector",
   photos: "superintendent",
+  "temperature-sensors": "superintendent",
+  "sensor-readings": "superintendent",
 };
 
 /** Roles that may create, update and delete each type (the expected outcomes, written out). */
@@ -53,6 +55,9 @@ export const WRITERS: Record<RecordType, ProjectRole[]> = {
   findings: ["inspector", "office"],
   // "photo.add" (lib/auth/can): the field and the office; owners only view.
   photos: ["superintendent", "inspector", "office"],
+  // "curing.write": the superintendent keeps the temperature record, as the curing log.
+  "temperature-sensors": ["superintendent", "office"],
+  "sensor-readings": ["superintendent", "office"],
 };
 
 // Mid-November 2026 in Chicago (CST, UTC−6), like the demo scenario.
@@ -79,6 +84,8 @@ const PARENT_TYPE: Partial<Record<RecordType, { field: string; type: RecordType 
   findings: { field: "siteVisitId", type: "site-visits" },
   // A photo points at any record by type and id; the fixtures use a delivery.
   photos: { field: "recordId", type: "deliveries" },
+  "temperature-sensors": { field: "placementId", type: "placements" },
+  "sensor-readings": { field: "sensorId", type: "temperature-sensors" },
 };
 
 /** A valid create body; `parentId` fills the parent field, if the type has one. */
@@ -124,6 +131,10 @@ export function validBody(type: RecordType, parentId?: string): Record<string, u
       return { ...link, id, description: "Bottom bar cover 25 mm where 40 mm is specified", location: "Grid C/3", severity: "major", requirement: "Spec 03 30 00 §3.2; S-201 note 4", actionRequired: "Raise the chairs and show me before the pour", dueDate: "2026-11-17" };
     case "photos":
       return { ...link, id, recordType: "deliveries", caption: "Slump cone, truck B-17", takenAt: at(40), sha256: "ab".repeat(32), sizeBytes: 412_345, contentType: "image/jpeg" };
+    case "temperature-sensors":
+      return { ...link, id, name: `T-${tag}`, location: "East edge, mid-depth", loggingIntervalMinutes: 15 };
+    case "sensor-readings":
+      return { ...link, id, source: "manual", readings: [[at(600), 14.5], [at(615), 14]] };
   }
 }
 
@@ -147,6 +158,8 @@ export const PATCHES: Record<RecordType, Record<string, unknown>> = {
   "site-visits": { notes: "Pre-pour walk with the superintendent", leftAt: at(180) },
   findings: { severity: "critical", location: "Grid C/3 to C/4" },
   photos: { caption: "Slump cone, truck B-17, after the water addition" },
+  "temperature-sensors": { loggingIntervalMinutes: 30 },
+  "sensor-readings": { readings: [[at(600), 14.5], [at(615), 13.5]] },
 };
 
 export function parentOf(type: RecordType) {

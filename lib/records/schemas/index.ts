@@ -10,3 +10,4 @@ export * from "./curing";
 export * from "./diary";
 export * from "./site-visits";
 export * from "./photo";
+export * from "./maturity";

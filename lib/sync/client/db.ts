@@ -118,13 +118,18 @@ export class SyncDb extends Dexie {
       projects: "id",
       blobs: "id, uploadState, recordId",
     };
-    const later: RecordType[] = ["photos", "site-visits", "findings"];
+    const later: RecordType[] = ["photos", "site-visits", "findings", "temperature-sensors", "sensor-readings"];
     for (const type of LOCAL_RECORD_TYPES) if (!later.includes(type)) stores[tableNameOf(type)] = storeSpec(type);
     this.version(1).stores(stores);
     // 2: photo metadata as a synced record type (the bytes stay in `blobs`).
     this.version(2).stores({ [tableNameOf("photos")]: storeSpec("photos") });
     // 3: the inspection log (site visits and their findings).
     this.version(3).stores({ [tableNameOf("site-visits")]: storeSpec("site-visits"), [tableNameOf("findings")]: storeSpec("findings") });
+    // 4: temperature sensors and their reading batches (maturity method).
+    this.version(4).stores({
+      [tableNameOf("temperature-sensors")]: storeSpec("temperature-sensors"),
+      [tableNameOf("sensor-readings")]: storeSpec("sensor-readings"),
+    });
   }
 
   /** The table of a record type. */

@@ -170,6 +170,7 @@ const PARENT_TYPES: Record<NonNullable<ReturnType<typeof localDef>["parentField"
   checklistId: "checklists",
   specimenSetId: "specimen-sets",
   siteVisitId: "site-visits",
+  sensorId: "temperature-sensors",
 };
 
 /** The fields of a stored row the create schema knows (the sync bookkeeping left out). */

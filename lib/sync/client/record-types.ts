@@ -12,7 +12,7 @@ import * as s from "@/lib/records/schemas";
 export type { RecordType };
 
 /** Fields by which a child record points at its parent (all indexed locally). */
-export type ParentField = "placementId" | "diaryEntryId" | "checklistId" | "specimenSetId" | "siteVisitId";
+export type ParentField = "placementId" | "diaryEntryId" | "checklistId" | "specimenSetId" | "siteVisitId" | "sensorId";
 
 export type LocalTypeDef = {
   type: RecordType;
@@ -238,6 +238,27 @@ export const LOCAL_TYPES: Record<RecordType, LocalTypeDef> = {
     update: s.photoUpdateSchema,
     indexes: ["[recordType+recordId]", "recordId"],
     defaults: { caption: "", takenAt: null, storageKey: null, storedAt: null },
+  }),
+  "temperature-sensors": def({
+    type: "temperature-sensors",
+    table: "temperatureSensors",
+    label: "Temperature sensor",
+    create: s.sensorCreateSchema,
+    update: s.sensorUpdateSchema,
+    parentField: "placementId",
+    indexes: [],
+    defaults: { location: "", loggingIntervalMinutes: null, endedAt: null, note: null },
+  }),
+  // Batches of readings (lib/records/schemas/maturity.ts): firstAt and lastAt come from the schema.
+  "sensor-readings": def({
+    type: "sensor-readings",
+    table: "sensorReadings",
+    label: "Sensor readings",
+    create: s.sensorReadingsCreateSchema,
+    update: s.sensorReadingsUpdateSchema,
+    parentField: "sensorId",
+    indexes: [],
+    defaults: {},
   }),
 };
 

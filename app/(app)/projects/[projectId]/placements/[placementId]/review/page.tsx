@@ -6,6 +6,8 @@ import { AuditTrail } from "@/components/review/audit-trail";
 import { Correction } from "@/components/review/correction";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
+import { OfficeMaturity } from "@/components/maturity/office-maturity";
+import { loadMaturityRecords } from "@/lib/maturity/records";
 import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
@@ -31,6 +33,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
     throw error;
   }
   const { project, placement: p, mix, children, canCorrect } = data;
+  const maturity = await loadMaturityRecords(user, projectId, placementId, (p.mixId as string | null) ?? null);
   const units = project.unitSystem;
   const tz = project.timeZone;
   const time = new Intl.DateTimeFormat("en-US", { timeZone: tz, hour: "numeric", minute: "2-digit" });
@@ -227,6 +230,9 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         </Section>
       </div>
 
+      <Section title="Temperature & maturity" count={maturity.sensors.length} testId="section-maturity">
+        <OfficeMaturity project={project} placement={{ ...p, id: placementId }} mixCode={mix ? String(mix.code) : null} records={maturity} />
+      </Section>
       <Section title="Specimen sets" count={sets.length} testId="section-specimens" actions={<Link href={`/projects/${projectId}/lab?placement=${placementId}`} className="text-sm font-semibold text-lichen-800 hover:underline">Specimens and breaks</Link>}>
         {sets.length === 0 ? (
           <Empty>No specimens cast.</Empty>
