@@ -4,8 +4,10 @@ export async function register() {
   if (process.env.NEXT_RUNTIME === "nodejs") {
     if (process.env.DIGEST_WORKER === "off" || process.env.NEXT_PHASE === "phase-production-build") return;
     const { startDigestWorker } = await import("./lib/digest/worker");
+    const { startHousekeepingWorker } = await import("./lib/housekeeping/queue");
     try {
       await startDigestWorker();
+      await startHousekeepingWorker();
     } catch (error) {
       // The app still serves pages without the queue; the log says why digests are not going out.
       console.error("[digest worker] not started:", error);

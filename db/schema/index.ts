@@ -17,3 +17,4 @@ export * from "./digest";
 export * from "./review-views";
 export * from "./site-visits";
 export * from "./check-findings";
+export * from "./sessions";
