@@ -1,18 +1,16 @@
 // Refuses (exit 1) when enabled demo accounts, whose password is published in the README, exist in
 // DATABASE_URL and the app is about to be served on an address other machines can reach.
 // Used by scripts/start-production.sh; HOST is the address the server will bind to.
-import { and, inArray, isNull, sql } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import { closeDb, db } from "../db/index.ts";
-import { users } from "../db/schema/index.ts";
 import { DEMO_USERS } from "../db/seed.ts";
 
 const host = process.env.HOST ?? "127.0.0.1";
 const loopback = /^(127\.|::1$|localhost$)/.test(host);
 const emails = DEMO_USERS.map((u) => u.email.toLowerCase());
-const rows = await db
-  .select({ email: users.email })
-  .from(users)
-  .where(and(inArray(sql`lower(${users.email})`, emails), isNull(users.disabledAt)));
+const result = await db.execute(sql`
+  select email from users where disabled_at is null and lower(email) in (${sql.join(emails.map((e) => sql`${e}`), sql`, `)})`);
+const rows = result.rows as { email: string }[];
 await closeDb();
 if (rows.length && !loopback) {
   console.error(

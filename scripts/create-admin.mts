@@ -6,7 +6,6 @@ import { parseArgs } from "node:util";
 import { createInterface } from "node:readline";
 import { closeDb } from "../db/index.ts";
 import { parseOrThrow } from "../lib/api/handler.ts";
-import { AppError } from "../lib/errors.ts";
 import { createFirstAdmin } from "../lib/users/first-admin.ts";
 import { firstAdminSchema } from "../lib/users/schemas.ts";
 
@@ -30,7 +29,8 @@ try {
   const { id } = await createFirstAdmin(input);
   console.log(`administrator created: ${input.email} (${id})`);
 } catch (error) {
-  console.error(error instanceof AppError ? error.message : error);
+  // lib/ is loaded through the "@/" alias here, so compare by name rather than instanceof.
+  console.error((error as Error).name === "AppError" ? (error as Error).message : error);
   process.exitCode = 1;
 } finally {
   await closeDb();
