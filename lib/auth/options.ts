@@ -6,7 +6,7 @@ import { consumeSignInToken, findUserByEmail } from "@/lib/users/queries";
 import { verifyPassword } from "./password";
 import { assertNotLocked, clearFailures, recordFailure } from "./rate-limit";
 import { hashToken } from "./tokens";
-import { openSession, revokeSession } from "./user-sessions";
+import { openSession, revokeSession, userOfLiveSession } from "./user-sessions";
 
 /** `sessionId`: the session row of the request (lib/auth/user-sessions.ts), when there is one. */
 export type SessionUser = { id: string; email: string; name: string; isAdmin: boolean; sessionId?: string };
@@ -77,7 +77,9 @@ export const authOptions: NextAuthOptions = {
       }
       return token;
     },
-    session({ session, token }) {
+    async session({ session, token }) {
+      // A revoked, idle or disabled session reads as signed out in the browser too.
+      if (!token.sub || !token.sid || !(await userOfLiveSession(token.sid, token.sub))) return {} as typeof session;
       session.user = {
         id: token.sub ?? "",
         email: token.email ?? "",

@@ -69,7 +69,7 @@ describe("backup and restore", () => {
     const { project, team } = await projectWithTeam();
     const mutations = [1, 2, 3].map((id) => {
       const body = validBody("placements");
-      return { id, name: "create" as const, recordType: "placements", projectId: project.id, recordId: body.id as string, args: body };
+      return { id, name: "create" as const, recordType: "placements" as const, projectId: project.id, recordId: body.id as string, args: body };
     });
     await pushMutations(team.superintendent, { clientId: randomUUID(), schemaVersion: SYNC_SCHEMA_VERSION, mutations });
     for (const n of [1, 2]) {
