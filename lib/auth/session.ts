@@ -1,4 +1,5 @@
 import type { NextRequest } from "next/server";
+import { redirect } from "next/navigation";
 import { getServerSession } from "next-auth";
 import { getToken } from "next-auth/jwt";
 import { unauthenticated } from "@/lib/errors";
@@ -27,8 +28,13 @@ export async function getSessionUser(req?: NextRequest): Promise<SessionUser | n
   return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, sessionId };
 }
 
+/** The signed-in user; a route handler answers 401 without one, a page goes to the sign-in screen. */
 export async function requireUser(req?: NextRequest): Promise<SessionUser> {
   const user = await getSessionUser(req);
-  if (!user) throw unauthenticated();
+  if (!user) {
+    // A page rendered beside the layout's own check (revoked or idle session) must not show an error.
+    if (!req) redirect("/signin");
+    throw unauthenticated();
+  }
   return user;
 }

@@ -2,8 +2,10 @@
 // row; the row says whether it still counts. Checked on every request by lib/auth/session.ts.
 import { and, eq, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { DEFAULT_IDLE_TIMEOUT_MINUTES, userSessions, users } from "@/db/schema";
+import { accountSettings, DEFAULT_IDLE_TIMEOUT_MINUTES, userSessions, users } from "@/db/schema";
 import type { UserRow } from "@/lib/users/queries";
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /** Opens a session row at sign-in, valid for the user's current session version. */
 export async function openSession(userId: string, userAgent?: string | null): Promise<string> {
@@ -24,20 +26,23 @@ export async function openSession(userId: string, userAgent?: string | null): Pr
  * or the account is disabled. A good session's last use is refreshed at most once a minute.
  */
 export async function userOfLiveSession(sessionId: string, userId: string): Promise<UserRow | null> {
-  const result = await db.execute(sql`
-    select u.id,
-      (s.revoked_at is null and s.session_version = u.session_version and u.disabled_at is null
-        and s.last_seen_at > now() - make_interval(mins => coalesce(a.idle_timeout_minutes, ${DEFAULT_IDLE_TIMEOUT_MINUTES}))) as live,
-      s.last_seen_at < now() - interval '1 minute' as stale_touch
-    from user_sessions s
-    join users u on u.id = s.user_id
-    left join account_settings a on a.id = 1
-    where s.id = ${sessionId} and s.user_id = ${userId}`);
-  const row = result.rows[0] as { id: string; live: boolean; stale_touch: boolean } | undefined;
+  if (!UUID.test(sessionId) || !UUID.test(userId)) return null;
+  // One statement: this runs on every request.
+  const [row] = await db
+    .select({
+      user: users,
+      live: sql<boolean>`(${userSessions.revokedAt} is null and ${userSessions.sessionVersion} = ${users.sessionVersion}
+        and ${users.disabledAt} is null
+        and ${userSessions.lastSeenAt} > now() - make_interval(mins => coalesce(${accountSettings.idleTimeoutMinutes}, ${DEFAULT_IDLE_TIMEOUT_MINUTES})))`,
+      staleTouch: sql<boolean>`${userSessions.lastSeenAt} < now() - interval '1 minute'`,
+    })
+    .from(users)
+    .innerJoin(userSessions, eq(userSessions.userId, users.id))
+    .leftJoin(accountSettings, eq(accountSettings.id, 1))
+    .where(and(eq(userSessions.id, sessionId), eq(users.id, userId)));
   if (!row?.live) return null;
-  if (row.stale_touch) await db.update(userSessions).set({ lastSeenAt: sql`now()` }).where(eq(userSessions.id, sessionId));
-  const [user] = await db.select().from(users).where(eq(users.id, userId));
-  return user ?? null;
+  if (row.staleTouch) await db.update(userSessions).set({ lastSeenAt: sql`now()` }).where(eq(userSessions.id, sessionId));
+  return row.user;
 }
 
 /** Ends one session (sign-out on this browser). */
