@@ -15,11 +15,14 @@ export async function register() {
   logger.info({ digestWorker: settings.digest.worker, poolMax: settings.database.poolMax }, "configuration valid");
   if (!settings.digest.worker) return;
   const { startDigestWorker } = await import("./lib/digest/worker");
+  const { startHousekeepingWorker } = await import("./lib/housekeeping/queue");
   const { stopQueue } = await import("./lib/digest/queue");
   try {
     const worker = await startDigestWorker({ pollingIntervalSeconds: settings.digest.pollSeconds });
+    const housekeeping = await startHousekeepingWorker();
     onShutdown("digest worker", 10, async () => {
       await worker.stop();
+      await housekeeping.stop();
       await stopQueue();
     });
   } catch (err) {

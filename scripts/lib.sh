@@ -46,6 +46,14 @@ as_pg() {
   if is_root; then runuser -u postgres -- "$@"; else "$@"; fi
 }
 
+# True for addresses that only this machine can reach.
+is_loopback() {
+  case "$1" in
+    127.*|::1|localhost) return 0 ;;
+    *) return 1 ;;
+  esac
+}
+
 port_busy() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
 
 # The cluster folder must be reachable by the postgres user; a checkout under a private home

@@ -3,9 +3,13 @@
 # Installs what is missing, starts a project-local PostgreSQL (durable defaults) and the local
 # mail/S3 fakes, migrates, seeds the demo scenario (idempotent), builds and serves the app.
 # Ctrl-C stops the app, the fakes and the cluster.
+# The demo accounts share a published password, so this serves on 127.0.0.1 only (HOST=… to
+# change it; a non-loopback HOST is refused while demo accounts exist). Production: README.
 source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
 
 APP_PORT="${PORT:-3000}"
+APP_HOST="${HOST:-127.0.0.1}"
+is_loopback "$APP_HOST" || die "Refusing to serve the demo accounts (published password) on $APP_HOST. The demo start serves on 127.0.0.1 only; for a reachable server use the production start in README.md."
 PG_PORT="${PG_PORT:-54329}"
 export SMTP_PORT="${SMTP_PORT:-2525}" MAILBOX_PORT="${MAILBOX_PORT:-2580}" S3_PORT="${S3_PORT:-4569}"
 RUN_DIR="$DATA_DIR/run"
@@ -60,7 +64,8 @@ fi
 
 cat <<MSG
 
-  Placewright is starting on http://localhost:$APP_PORT
+  Placewright is starting on http://localhost:$APP_PORT (bound to $APP_HOST only)
+  DEMO MODE: demo accounts with a published password are present. Never expose this server.
   Demo sign-ins (password for all: placewright-demo):
     sam.super@example.test    superintendent
     ines.inspect@example.test inspector
@@ -76,9 +81,9 @@ cd "$ROOT"
 # PAIR=1 (`npm run start:pair`): two instances on the next two ports behind a round-robin proxy on
 # APP_PORT, both on this database, bucket and mailbox (scripts/serve-pair.mjs).
 if [ "${PAIR:-0}" = "1" ]; then
-  node scripts/serve-pair.mjs -H 0.0.0.0 -p "$APP_PORT" --ports "$((APP_PORT + 1)),$((APP_PORT + 2))" &
+  node scripts/serve-pair.mjs -H "$APP_HOST" -p "$APP_PORT" --ports "$((APP_PORT + 1)),$((APP_PORT + 2))" &
 else
-  node scripts/serve.mjs -H 0.0.0.0 -p "$APP_PORT" &
+  node scripts/serve.mjs -H "$APP_HOST" -p "$APP_PORT" &
 fi
 echo $! >"$RUN_DIR/app.pid"
 wait "$(cat "$RUN_DIR/app.pid")"

@@ -7,10 +7,12 @@ const settings = configOrExit();
 const { closeDb } = await import("../db/index.ts");
 const { stopQueue } = await import("../lib/digest/queue.ts");
 const { startDigestWorker } = await import("../lib/digest/worker.ts");
+const { startHousekeepingWorker } = await import("../lib/housekeeping/queue.ts");
 const { logger } = await import("../lib/log.ts");
 
 const worker = await startDigestWorker({ pollingIntervalSeconds: settings.digest.pollSeconds });
-logger.info({ queue: "project-digest" }, "digest worker running; Ctrl-C to stop");
+const housekeeping = await startHousekeepingWorker();
+logger.info({ queues: ["project-digest", "housekeeping"] }, "worker running; Ctrl-C to stop");
 
 let stopping = false;
 async function shutdown(signal: string) {
@@ -18,6 +20,7 @@ async function shutdown(signal: string) {
   stopping = true;
   logger.info({ signal }, "digest worker stopping");
   await worker.stop();
+  await housekeeping.stop();
   await stopQueue();
   await closeDb();
   logger.info({}, "digest worker stopped");

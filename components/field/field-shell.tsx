@@ -13,6 +13,9 @@ import { ContrastToggle } from "@/components/shell/contrast-toggle";
 import { SyncStatus } from "@/components/shell/sync-status";
 import { UserMenu } from "@/components/shell/user-menu";
 import { SyncProvider, useOfflineIdentity } from "@/lib/sync/client/react";
+import { finishPendingSignOut } from "@/lib/sync/client/erase";
+import { useOfflineAccess } from "@/lib/sync/client/use-offline-access";
+import { PinUnlock, SignInToOpen } from "./device-lock";
 import { FieldContext, useProjects } from "./common";
 
 const NAV = [
@@ -62,7 +65,11 @@ function NoIdentity() {
 }
 
 export function FieldShell({ children }: { children: React.ReactNode }) {
-  const { identity, source, loading } = useOfflineIdentity();
+  const { identity: person, source, loading, stored } = useOfflineIdentity();
+  // Offline, a remembered person's data opens only within the offline window or with their PIN.
+  const { access, unlock } = useOfflineAccess(source === "device" ? stored : null);
+  const identity = source === "session" || access === "open" ? person : null;
+  const locked = source === "device" && access !== "open";
   const pathname = usePathname();
   const [selectedProjectId, setSelected] = useState<string | null>(null);
 
@@ -83,6 +90,9 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
     } catch {
       /* ignore */
     }
+  }, []);
+  useEffect(() => {
+    void finishPendingSignOut();
   }, []);
   const context = useMemo(() => ({ selectedProjectId, selectProject }), [selectedProjectId, selectProject]);
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`) || (href === "/field/today" && pathname === "/field/placement");
@@ -119,7 +129,17 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
           </header>
 
           <main className="mx-auto w-full max-w-5xl flex-1 px-3 pb-28 pt-4">
-            {identity ? children : loading ? <p className="text-muted">Opening…</p> : <NoIdentity />}
+            {identity ? (
+              children
+            ) : loading || (locked && access === null) ? (
+              <p className="text-muted">Opening…</p>
+            ) : locked && access === "pin" && person ? (
+              <PinUnlock name={person.name} unlock={unlock} />
+            ) : locked ? (
+              <SignInToOpen />
+            ) : (
+              <NoIdentity />
+            )}
           </main>
 
           <BottomNav label="Field" items={NAV} isActive={isActive} testIdPrefix="field-nav-" />

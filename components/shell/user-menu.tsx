@@ -1,12 +1,15 @@
 "use client";
 
-import { LogOut, UserRound } from "lucide-react";
+import { LogOut, Trash2, UserRound } from "lucide-react";
+import Link from "next/link";
 import { useEffect, useRef, useState } from "react";
+import { EraseDeviceDialog } from "@/components/account/erase-device-dialog";
 import { useSignOutWithCheck } from "@/lib/sync/client/react";
 import type { ShellUser } from "./app-shell";
 
 export function UserMenu({ user, offline = false }: { user: ShellUser; offline?: boolean }) {
   const [open, setOpen] = useState(false);
+  const [erasing, setErasing] = useState(false);
   const ref = useRef<HTMLDivElement>(null);
   const signOut = useSignOutWithCheck();
   useEffect(() => {
@@ -42,8 +45,26 @@ export function UserMenu({ user, offline = false }: { user: ShellUser; offline?:
           >
             <LogOut className="h-5 w-5" aria-hidden="true" /> Sign out
           </button>
+          <button
+            type="button"
+            role="menuitem"
+            data-testid="erase-device"
+            onClick={() => {
+              setOpen(false);
+              setErasing(true);
+            }}
+            className="flex min-h-touch w-full items-center gap-2 rounded-md px-2 text-left font-semibold text-danger-800 hover:bg-ink-100"
+          >
+            <Trash2 className="h-5 w-5" aria-hidden="true" /> Sign out and erase this device
+          </button>
+          {offline ? null : (
+            <Link role="menuitem" href="/account" className="flex min-h-touch w-full items-center gap-2 rounded-md px-2 font-semibold hover:bg-ink-100" data-testid="account-link">
+              <UserRound className="h-5 w-5" aria-hidden="true" /> Password, sessions and device PIN
+            </Link>
+          )}
         </div>
       ) : null}
+      {erasing ? <EraseDeviceDialog userId={user.id} onClose={() => setErasing(false)} /> : null}
     </div>
   );
 }

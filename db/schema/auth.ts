@@ -34,6 +34,8 @@ export const users = pgTable(
     passwordHash: text("password_hash"),
     isAdmin: boolean("is_admin").notNull().default(false),
     disabledAt: timestamp("disabled_at", { withTimezone: true, mode: "date" }),
+    /** Bumped to end every session at once (sign out everywhere, disable, password change). */
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: createdAtColumn(),
     updatedAt: updatedAtColumn(),
   },

@@ -18,3 +18,4 @@ export * from "./review-views";
 export * from "./site-visits";
 export * from "./check-findings";
 export * from "./maturity";
+export * from "./sessions";

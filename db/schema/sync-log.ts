@@ -9,6 +9,11 @@ export const syncClients = pgTable("sync_clients", {
     .notNull()
     .references(() => users.id, { onDelete: "cascade" }),
   lastMutationId: integer("last_mutation_id").notNull().default(0),
+  /**
+   * The highest mutation id the device has dropped from its outbox (it says so on pull): it can
+   * never send one of those again, so their stored results may be pruned.
+   */
+  ackedMutationId: integer("acked_mutation_id").notNull().default(0),
   createdAt: createdAtColumn(),
   lastSeenAt: timestamp("last_seen_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
 });

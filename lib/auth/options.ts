@@ -6,8 +6,10 @@ import { consumeSignInToken, findUserByEmail } from "@/lib/users/queries";
 import { verifyPassword } from "./password";
 import { assertNotLocked, clearFailures, recordFailure } from "./rate-limit";
 import { hashToken } from "./tokens";
+import { openSession, revokeSession, userOfLiveSession } from "./user-sessions";
 
-export type SessionUser = { id: string; email: string; name: string; isAdmin: boolean };
+/** `sessionId`: the session row of the request (lib/auth/user-sessions.ts), when there is one. */
+export type SessionUser = { id: string; email: string; name: string; isAdmin: boolean; sessionId?: string };
 
 const passwordCredentials = z.object({
   email: z.string().trim().toLowerCase().email("Enter the e-mail address you were invited with."),
@@ -64,9 +66,10 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    jwt({ token, user }) {
+    async jwt({ token, user }) {
       if (user) {
         const u = user as SessionUser;
+        token.sid = await openSession(u.id);
         token.sub = u.id;
         token.name = u.name;
         token.email = u.email;
@@ -74,14 +77,22 @@ export const authOptions: NextAuthOptions = {
       }
       return token;
     },
-    session({ session, token }) {
+    async session({ session, token }) {
+      // A revoked, idle or disabled session reads as signed out in the browser too.
+      if (!token.sub || !token.sid || !(await userOfLiveSession(token.sid, token.sub))) return {} as typeof session;
       session.user = {
         id: token.sub ?? "",
         email: token.email ?? "",
         name: token.name ?? "",
         isAdmin: Boolean(token.isAdmin),
+        sid: token.sid,
       };
       return session;
+    },
+  },
+  events: {
+    async signOut({ token }) {
+      if (token?.sid) await revokeSession(token.sid);
     },
   },
 };

@@ -84,8 +84,8 @@ export async function removeMember(actor: SessionUser, projectId: string, userId
 export async function listUsers(actor: SessionUser) {
   authorizeAdmin(actor, "admin.users");
   return db
-    .select({ id: users.id, name: users.name, email: users.email, isAdmin: users.isAdmin, hasPassword: users.passwordHash })
+    .select({ id: users.id, name: users.name, email: users.email, isAdmin: users.isAdmin, hasPassword: users.passwordHash, disabledAt: users.disabledAt })
     .from(users)
     .orderBy(asc(users.name))
-    .then((rows) => rows.map((r) => ({ ...r, hasPassword: Boolean(r.hasPassword) })));
+    .then((rows) => rows.map((r) => ({ ...r, hasPassword: Boolean(r.hasPassword), disabled: r.disabledAt !== null })));
 }

@@ -70,6 +70,8 @@ export const pullRequestSchema = z.object({
   schemaVersion: z.number().int(),
   cursor: cursorSchema.nullable().default(null),
   limit: z.number().int().min(1).max(MAX_CHANGES_PER_PULL).optional(),
+  /** Every change up to this id has left the device's outbox (lets the server prune their results). */
+  ackedMutationId: z.number().int().min(0).optional(),
 });
 export type PullRequest = z.infer<typeof pullRequestSchema>;
 

@@ -6,6 +6,7 @@ import { encode } from "next-auth/jwt";
 import { db } from "@/db";
 import { memberships, projects, users } from "@/db/schema";
 import type { ProjectRole } from "@/lib/auth/roles";
+import { openSession } from "@/lib/auth/user-sessions";
 
 export type TestUser = { id: string; email: string; name: string; isAdmin: boolean };
 
@@ -46,13 +47,28 @@ export async function projectWithTeam() {
   return { project, team, outsider, otherProject, admin };
 }
 
-/** The session cookie next-auth would set for this user (same secret, same encoding). */
-export async function sessionCookie(user: TestUser): Promise<string> {
+/** A signed-in browser: its session row and the cookie next-auth would set (same secret, same encoding). */
+export async function signedInSession(user: TestUser): Promise<{ sessionId: string; cookie: string }> {
+  const sessionId = await openSession(user.id);
   const token = await encode({
-    token: { sub: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin },
+    token: { sub: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, sid: sessionId },
     secret: process.env.NEXTAUTH_SECRET!,
   });
-  return `next-auth.session-token=${token}`;
+  return { sessionId, cookie: `next-auth.session-token=${token}` };
+}
+
+// One signed-in browser per test user, reused by every call (as a real browser would), so a call
+// costs the same statements as in production. Tests of revocation use signedInSession() directly.
+const cookies = new Map<string, string>();
+
+/** The session cookie of this user's (shared) test session. */
+export async function sessionCookie(user: TestUser): Promise<string> {
+  let cookie = cookies.get(user.id);
+  if (!cookie) {
+    cookie = (await signedInSession(user)).cookie;
+    cookies.set(user.id, cookie);
+  }
+  return cookie;
 }
 
 type Handler<P> = (req: NextRequest, ctx: { params: Promise<P> }) => Promise<Response>;
@@ -60,11 +76,12 @@ type Handler<P> = (req: NextRequest, ctx: { params: Promise<P> }) => Promise<Res
 /** Calls a route handler the way Next does, as `user` (or anonymously), with a JSON or raw body. */
 export async function callRoute<P = Record<string, string>>(
   handler: Handler<P>,
-  opts: { user?: TestUser | null; method?: string; url?: string; params?: P; body?: unknown; rawBody?: string },
+  opts: { user?: TestUser | null; cookie?: string; method?: string; url?: string; params?: P; body?: unknown; rawBody?: string },
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read arbitrary JSON bodies
 ): Promise<{ status: number; json: any }> {
   const headers = new Headers({ "content-type": "application/json" });
-  if (opts.user) headers.set("cookie", await sessionCookie(opts.user));
+  if (opts.cookie) headers.set("cookie", opts.cookie);
+  else if (opts.user) headers.set("cookie", await sessionCookie(opts.user));
   const body = opts.rawBody ?? (opts.body === undefined ? undefined : JSON.stringify(opts.body));
   const req = new NextRequest(new URL(opts.url ?? "/api/test", "http://localhost:3100"), {
     method: opts.method ?? (body === undefined ? "GET" : "POST"),

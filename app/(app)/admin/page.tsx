@@ -1,14 +1,17 @@
 import type { Metadata } from "next";
+import { AccountSettingsForm } from "@/components/admin/account-settings-form";
 import { InviteForm } from "@/components/admin/invite-form";
+import { PersonStatus } from "@/components/admin/person-status";
 import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { listProjectsWithCounts, listUsers } from "@/lib/projects/admin";
+import { readAccountSettings } from "@/lib/users/admin-accounts";
 
 export const metadata: Metadata = { title: "People" };
 
 export default async function AdminPeoplePage() {
   const user = await requireUser();
-  const [people, projects] = await Promise.all([listUsers(user), listProjectsWithCounts(user)]);
+  const [people, projects, settings] = await Promise.all([listUsers(user), listProjectsWithCounts(user), readAccountSettings()]);
   return (
     <>
       <PageHeader title="People" subtitle="Everyone with an account, and invitations to new people." />
@@ -20,6 +23,7 @@ export default async function AdminPeoplePage() {
                 <th className="px-3 py-2">Name</th>
                 <th className="px-3 py-2">E-mail</th>
                 <th className="px-3 py-2">Status</th>
+                <th className="px-3 py-2"><span className="sr-only">Actions</span></th>
               </tr>
             </thead>
             <tbody className="divide-y divide-ink-100">
@@ -27,13 +31,17 @@ export default async function AdminPeoplePage() {
                 <tr key={p.id}>
                   <td className="px-3 py-2 font-semibold">{p.name}{p.isAdmin ? <span className="ml-2 rounded bg-ink-100 px-1.5 py-0.5 text-xs">admin</span> : null}</td>
                   <td className="px-3 py-2">{p.email}</td>
-                  <td className="px-3 py-2">{p.hasPassword ? "Active" : "Invited"}</td>
+                  <td className="px-3 py-2">{p.disabled ? "Disabled" : p.hasPassword ? "Active" : "Invited"}</td>
+                  <td className="px-3 py-2"><PersonStatus id={p.id} name={p.name} disabled={p.disabled} self={p.id === user.id} /></td>
                 </tr>
               ))}
             </tbody>
           </table>
         </section>
-        <InviteForm projects={projects.map((p) => ({ id: p.id, name: p.name }))} />
+        <div className="flex flex-col gap-4">
+          <InviteForm projects={projects.map((p) => ({ id: p.id, name: p.name }))} />
+          <AccountSettingsForm initial={settings} />
+        </div>
       </div>
     </>
   );

@@ -228,7 +228,20 @@ export async function ensureMeta(db: SyncDb, schemaVersion: number): Promise<{ c
 // the device database: who signed in last (identity offline, STACK.md)
 
 export type DeviceIdentity = { id: string; name: string; email: string; isAdmin: boolean };
-export type StoredIdentity = DeviceIdentity & { rememberedAt: string };
+/** A device PIN: PBKDF2-SHA-256 of the PIN with a random salt (base64), never the PIN itself. */
+export type StoredPin = { salt: string; hash: string; iterations: number; failures: number };
+/**
+ * `sessionSeenAt`: the last time the server confirmed a good session for this person on this device;
+ * with `offlineWindowHours` (the administrator's setting, fetched while online) it decides whether the
+ * person's offline data opens without the PIN (lib/sync/client/device-access.ts). Fields added without
+ * a schema change: none of them is indexed.
+ */
+export type StoredIdentity = DeviceIdentity & {
+  rememberedAt: string;
+  sessionSeenAt?: string;
+  offlineWindowHours?: number;
+  pin?: StoredPin;
+};
 type DeviceRow = { key: "currentUserId"; value: string | null };
 
 export class DeviceDb extends Dexie {

@@ -7,16 +7,21 @@ import { getDeviceDb, type DeviceDb, type DeviceIdentity, type StoredIdentity } 
 
 export type { DeviceIdentity, StoredIdentity };
 
-/** Stores the signed-in person and makes them the device's current user. */
+/** Stores the signed-in person (their session is good now) and makes them the device's current user. */
 export async function rememberIdentity(user: DeviceIdentity, deviceDb: DeviceDb = getDeviceDb()): Promise<void> {
-  const identity: StoredIdentity = {
-    id: user.id,
-    name: user.name,
-    email: user.email,
-    isAdmin: Boolean(user.isAdmin),
-    rememberedAt: new Date().toISOString(),
-  };
+  const now = new Date().toISOString();
   await deviceDb.transaction("rw", deviceDb.identities, deviceDb.device, async () => {
+    // Keep the device PIN and the offline window; a good session also counts as "seen now".
+    const before = await deviceDb.identities.get(user.id);
+    const identity: StoredIdentity = {
+      ...before,
+      id: user.id,
+      name: user.name,
+      email: user.email,
+      isAdmin: Boolean(user.isAdmin),
+      rememberedAt: now,
+      sessionSeenAt: now,
+    };
     await deviceDb.identities.put(identity);
     await deviceDb.device.put({ key: "currentUserId", value: user.id });
   });

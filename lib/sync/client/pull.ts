@@ -31,7 +31,15 @@ function isPullResponse(value: unknown): value is PullResponse {
 export async function pullOnce(db: SyncDb, options: PullOptions): Promise<PullOutcome & { hasMore?: boolean }> {
   const { clientId } = await ensureMeta(db, SYNC_SCHEMA_VERSION);
   const cursor = (await getMeta(db, "cursor")) ?? null;
-  const body: PullRequest = { clientId, schemaVersion: SYNC_SCHEMA_VERSION, cursor, ...(options.limit ? { limit: options.limit } : {}) };
+  // Entries up to the last acknowledged id left the outbox with that pull: they are never sent again.
+  const ackedMutationId = (await getMeta(db, "lastMutationId")) ?? 0;
+  const body: PullRequest = {
+    clientId,
+    schemaVersion: SYNC_SCHEMA_VERSION,
+    cursor,
+    ackedMutationId,
+    ...(options.limit ? { limit: options.limit } : {}),
+  };
   const res = await postSyncJson(options.fetch, options.url ?? "/api/sync/pull", body);
   if (!res) return { kind: "transient", message: MESSAGES.offline };
   if (res.status === 401) return { kind: "unauthenticated", message: MESSAGES.signIn };

@@ -7,6 +7,7 @@ import { signOut, useSession } from "next-auth/react";
 import { createContext, useCallback, useContext, useEffect, useMemo, useSyncExternalStore } from "react";
 import { getDeviceDb, getUserDb, type DeviceIdentity, type StoredIdentity, type SyncDb } from "./db";
 import { SyncDriver, type DriverStatus } from "./driver";
+import { rememberDevicePolicy } from "./device-policy";
 import { forgetCurrentIdentity, readCurrentIdentity, rememberIdentity } from "./identity";
 import { countUnsynced, readSyncSummary, type SyncSummary } from "./queries";
 import { unsyncedWarning } from "./words";
@@ -174,6 +175,8 @@ export type OfflineIdentity = {
   source: "session" | "device" | null;
   /** True while neither the session nor the device database has answered. */
   loading: boolean;
+  /** The device's row for the identity (offline window, PIN), when it was read from the device. */
+  stored: StoredIdentity | null;
 };
 
 /**
@@ -192,9 +195,9 @@ export function useOfflineIdentity(): OfflineIdentity {
 
   useEffect(() => {
     if (!sessionId || sessionName === undefined || sessionEmail === undefined) return;
-    rememberIdentity({ id: sessionId, name: sessionName, email: sessionEmail, isAdmin: Boolean(sessionAdmin) }).catch((error: unknown) =>
-      console.warn("sync: could not remember the identity", error),
-    );
+    rememberIdentity({ id: sessionId, name: sessionName, email: sessionEmail, isAdmin: Boolean(sessionAdmin) })
+      .then(() => rememberDevicePolicy(sessionId))
+      .catch((error: unknown) => console.warn("sync: could not remember the identity", error));
   }, [sessionId, sessionName, sessionEmail, sessionAdmin]);
 
   const stored = useLiveQuery<StoredIdentity | null>(() => readCurrentIdentity(getDeviceDb()), []);
@@ -210,9 +213,9 @@ export function useOfflineIdentity(): OfflineIdentity {
     [stored],
   );
 
-  if (sessionIdentity) return { identity: sessionIdentity, source: "session", loading: false };
-  if (storedIdentity) return { identity: storedIdentity, source: "device", loading: false };
-  return { identity: null, source: null, loading: stored === undefined || status === "loading" };
+  if (sessionIdentity) return { identity: sessionIdentity, source: "session", loading: false, stored: null };
+  if (storedIdentity) return { identity: storedIdentity, source: "device", loading: false, stored: stored ?? null };
+  return { identity: null, source: null, loading: stored === undefined || status === "loading", stored: null };
 }
 
 export type SignOutCheckOptions = {
