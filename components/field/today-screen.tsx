@@ -9,8 +9,8 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { OpenFindings } from "@/components/findings/open-findings";
 import { formatLength, formatVolume } from "@/lib/concrete";
-import { STATE_LABELS } from "@/lib/placements/workflow";
-import type { PlacementState } from "@/lib/records/enums";
+import { StateBadge } from "@/components/ui/state-badge";
+import { placementStateLabel, textClassOf } from "@/lib/ui/vocabulary";
 import { listByProject, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, num, str, unitSystemOf, useFieldContext, useProjects } from "./common";
@@ -18,18 +18,6 @@ import { PlanPlacementForm } from "./plan-placement-form";
 
 
 type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[] };
-
-export function StateBadge({ state }: { state: string }) {
-  const held = state === "held";
-  return (
-    <span
-      data-testid="placement-state"
-      className={held ? "rounded-full bg-caution-100 px-2.5 py-1 text-xs font-semibold text-caution-800" : "rounded-full bg-ink-100 px-2.5 py-1 text-xs font-semibold text-ink-800"}
-    >
-      {STATE_LABELS[state as PlacementState] ?? state}
-    </span>
-  );
-}
 
 export function TodayScreen() {
   const db = useSyncDb();
@@ -52,7 +40,6 @@ export function TodayScreen() {
         const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
         if (day !== today && day !== tomorrow) continue;
         const warnings: string[] = [];
-        if (placement.state === "held") warnings.push("Held");
         if (observations.some((o) => o.placementId === placement.id && (num(o.airTempC) ?? 99) <= 4)) warnings.push("Cold weather");
         if (placement.pending) warnings.push("Not yet sent");
         out.push({ placement, project, day: day === today ? "today" : "tomorrow", warnings });
@@ -109,7 +96,7 @@ export function TodayScreen() {
       ) : (
         <>
         {rows.some((r) => r.placement.state === "held") ? (
-          <Notice tone="danger" title="Held by the inspector: do not place" className="mb-3" testId="today-hold-banner">
+          <Notice tone="danger" icon="octagon-pause" title={`${placementStateLabel("held")} by the inspector: do not place`} className="mb-3" testId="today-hold-banner">
             {rows
               .filter((r) => r.placement.state === "held")
               .map((r) => `${str(r.placement.element)}: ${str(r.placement.holdReason) || "no reason given"}`)
@@ -135,7 +122,7 @@ export function TodayScreen() {
                       <div className="min-w-0 flex-1">
                         <div className="flex flex-wrap items-center gap-2">
                           <span className="text-lg font-bold text-ink-950">{str(placement.element)}</span>
-                          <StateBadge state={str(placement.state)} />
+                          <StateBadge kind="placement" code={str(placement.state)} testId="placement-state" />
                         </div>
                         <p className="text-sm text-muted">
                           {project.name} · {[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "no location"}
@@ -146,8 +133,8 @@ export function TodayScreen() {
                           {least !== undefined ? ` · least ${formatLength(least, units)}` : ""}
                         </p>
                         {placement.state === "held" ? (
-                          <p className="mt-2 text-base font-semibold text-danger-800" data-testid="today-hold-reason">
-                            Held by the inspector: {str(placement.holdReason) || "no reason given"}
+                          <p className={`mt-2 text-base font-semibold ${textClassOf("placement", "held")}`} data-testid="today-hold-reason">
+                            {placementStateLabel("held")} by the inspector: {str(placement.holdReason) || "no reason given"}
                           </p>
                         ) : null}
                         {warnings.length > 0 ? (

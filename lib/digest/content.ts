@@ -2,6 +2,7 @@
 // passed in, so the same day renders for the preview, each recipient and the tests.
 import { renderEmptyHtml, renderHtml, type DigestLinks } from "./html";
 import { summarizeDay, type DigestSummary } from "./summary";
+import { warningWord } from "@/lib/ui/vocabulary";
 import type { DigestDay } from "./types";
 
 export type { DigestLinks } from "./html";
@@ -34,14 +35,14 @@ function renderText(s: DigestSummary, links: DigestLinks): string {
   if (s.warnings.length) {
     heading("Needs attention");
     for (const w of s.warnings) {
-      out.push(`! ${w.tone === "danger" ? "Warning" : "Caution"}: ${w.title}`, `  ${w.detail}`, `  Rule: ${w.rule}`);
+      out.push(`! ${warningWord(w).label}: ${w.title}`, `  ${w.detail}`, `  Rule: ${w.rule}`);
     }
   }
   heading("Placements");
   if (s.placements.length === 0) out.push("No placements today.");
   for (const p of s.placements) {
     out.push(`- ${p.element} [${p.stateLabel}]`, `  ${[p.where, `start ${p.start}`].filter(Boolean).join(" · ")}`, `  ${p.volume}`, `  ${p.signed}`);
-    if (p.holdReason) out.push(`  Held: ${p.holdReason}`);
+    if (p.holdReason) out.push(`  ${p.stateLabel}: ${p.holdReason}`);
   }
   if (s.trucks.lines.length) {
     const t = s.trucks;

@@ -10,7 +10,8 @@ import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
-import { STATE_LABELS } from "@/lib/placements/workflow";
+import { StateBadge } from "@/components/ui/state-badge";
+import { severityOf, TONES, warningWord } from "@/lib/ui/vocabulary";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
 
 export const metadata: Metadata = { title: "Placement review" };
@@ -72,7 +73,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
       <Section title="Placement" testId="section-placement">
         <Facts
           items={[
-            ["State", <span key="s" data-testid="placement-state">{STATE_LABELS[p.state as keyof typeof STATE_LABELS]}{p.state === "held" && p.holdReason ? `: ${p.holdReason}` : ""}</span>],
+            ["State", <span key="s" className="inline-flex flex-wrap items-center gap-2"><StateBadge kind="placement" code={p.state as string} testId="placement-state" />{p.state === "held" && p.holdReason ? <span className="font-semibold" data-testid="placement-hold-reason">{p.holdReason as string}</span> : null}</span>],
             ["Planned start", dayTime.format(new Date(p.plannedStart as string))],
             ["Element type", p.elementType as string],
             ["Least dimension", num(p.leastDimensionMm) === null ? "—" : formatLength(num(p.leastDimensionMm)!, units)],
@@ -99,8 +100,11 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         ) : (
           <ul className="space-y-1.5">
             {data.warnings.map((w, i) => (
-              <li key={i} className={w.tone === "danger" ? "border-l-4 border-danger-600 pl-2" : "border-l-4 border-caution-600 pl-2"} data-testid="warning">
-                <p className="text-sm font-semibold">{w.title}</p>
+              <li key={i} className={`rounded border-l-4 px-2 py-1 ${TONES[warningWord(w).tone].className}`} data-testid="warning">
+                <p className="flex items-center gap-1.5 text-sm font-semibold">
+                  <StateBadge kind="severity" code={severityOf(w)} size="sm" />
+                  {w.title}
+                </p>
                 <p className="text-sm">{w.detail}</p>
                 <p className="text-xs text-muted">{w.rule}</p>
               </li>
@@ -145,7 +149,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                     {water ? `${formatWaterVolume(water, units)}${d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}${d.waterAuthorisedBy ? `, authorised ${d.waterAuthorisedBy}` : ""}` : "—"}
                     {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="waterAddedL" quantity="waterVolume" valueSI={water} unitSystem={units} label="Water added" testId={`correct-water-${d.ticketNumber}`} /> : null}
                   </span>,
-                  d.status === "rejected" ? <span key="s" className="font-semibold text-danger-700">Rejected{d.rejectReason ? `: ${d.rejectReason}` : ""}</span> : "Accepted",
+                  <StateBadge key="s" kind="delivery" code={d.status as string} size="sm">{d.status === "rejected" && d.rejectReason ? `: ${d.rejectReason}` : null}</StateBadge>,
                   <AuditTrail key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
                 ],
               };
@@ -254,7 +258,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                 ) : null}
                 <div>
                   <p className="font-semibold">{s.typedName} <span className="font-normal text-muted">({s.role}{s.signerName && s.signerName !== s.typedName ? `, account ${s.signerName}` : ""})</span></p>
-                  <p className="text-xs text-muted">{dayTime.format(new Date(s.signedAt!))} · content hash {s.contentHash.slice(0, 12)}…</p>
+                  <p className="text-xs text-muted">{dayTime.format(new Date(s.signedAt!))} · signature check code {s.contentHash.slice(0, 12)}…</p>
                 </div>
               </div>
             ))
