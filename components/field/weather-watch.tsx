@@ -17,6 +17,8 @@ import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectR
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { NowInput, Section, mayWrite, byTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { paletteHex } from "@/lib/ui/palette";
+import { SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 
 export const COLD_AIR_C = 4;
 
@@ -62,9 +64,9 @@ export function evaporationOf(o: { airTempC?: number; relativeHumidityPct?: numb
 }
 
 const RISK_LOOK: Record<EvaporationRisk, { words: string; icon: typeof CircleCheck; box: string }> = {
-  low: { words: "Low risk", icon: CircleCheck, box: "bg-lichen-50 text-lichen-800 border-lichen-600" },
-  caution: { words: "Caution", icon: TriangleAlert, box: "bg-caution-50 text-caution-800 border-caution-600" },
-  high: { words: "High risk", icon: OctagonAlert, box: "bg-danger-50 text-danger-800 border-danger-600" },
+  low: { words: "Low risk", icon: CircleCheck, box: TONES.done.className },
+  caution: { words: "Caution", icon: TriangleAlert, box: TONES[SEVERITY_WORDS.caution.tone].className },
+  high: { words: "High risk", icon: OctagonAlert, box: TONES[SEVERITY_WORDS.warning.tone].className },
 };
 
 export function RiskBadge({ risk, testId }: { risk: EvaporationRisk; testId?: string }) {
@@ -161,11 +163,11 @@ function DayChart({ points, units, highSI }: { points: { time: string; rate: num
       <figcaption className="text-sm font-semibold">Evaporation rate today ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
         <LineChart responsive data={points} margin={{ top: 8, right: 12, bottom: 4, left: 0 }} style={{ width: "100%", height: "100%" }}>
-          <CartesianGrid stroke="#cdd5de" strokeDasharray="3 3" />
-          <XAxis dataKey="time" stroke="#445466" fontSize={12} />
-          <YAxis domain={[0, Number(top.toFixed(2))]} stroke="#445466" fontSize={12} width={40} />
-          <ReferenceLine y={high} stroke="#951c15" strokeDasharray="6 3" label={{ value: "high", fill: "#951c15", fontSize: 12, position: "insideTopRight" }} />
-          <Line type="monotone" dataKey="rate" stroke="#187467" strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
+          <CartesianGrid stroke={paletteHex("ink-200")} strokeDasharray="3 3" />
+          <XAxis dataKey="time" stroke={paletteHex("ink-600")} fontSize={12} />
+          <YAxis domain={[0, Number(top.toFixed(2))]} stroke={paletteHex("ink-600")} fontSize={12} width={40} />
+          <ReferenceLine y={high} stroke={paletteHex("danger-700")} strokeDasharray="6 3" label={{ value: "high", fill: paletteHex("danger-700"), fontSize: 12, position: "insideTopRight" }} />
+          <Line type="monotone" dataKey="rate" stroke={paletteHex("lichen-600")} strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
         </LineChart>
       </div>
     </figure>

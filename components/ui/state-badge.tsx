@@ -14,6 +14,7 @@ import {
   OctagonPause,
   PencilLine,
   Reply,
+  Scale,
   Send,
   ShieldCheck,
   TriangleAlert,
@@ -39,6 +40,7 @@ export const ICONS: Record<IconName, LucideIcon> = {
   "pencil-line": PencilLine,
   send: Send,
   "file-x": FileX,
+  scale: Scale,
 };
 
 export function VocabularyIcon({ name, className }: { name: IconName; className?: string }) {

@@ -47,6 +47,7 @@ export const ICON_SYMBOLS = {
   "pencil-line": "&#9998;", // ✎
   send: "&#8599;", // ↗
   "file-x": "&#10005;", // ✕
+  scale: "&#9878;", // ⚖
 } as const;
 export type IconName = keyof typeof ICON_SYMBOLS;
 
@@ -113,6 +114,9 @@ export type VocabularyKind = keyof typeof VOCABULARY;
 
 /** The text colour class of a state (a hold reason written in the hold's colour). */
 export const textClassOf = (kind: VocabularyKind, code: string) => TONES[wordFor(kind, code).tone].textClass;
+
+/** The field tab and links for changes made in two places that someone must reconcile. */
+export const RECONCILE_WORDS = { label: "To reconcile", icon: "scale" } as const satisfies { label: string; icon: IconName };
 
 /** The word for a stored code; an unknown code (a newer server) is shown as itself, in neutral. */
 export function wordFor(kind: VocabularyKind, code: string): Word {
