@@ -54,7 +54,7 @@ function warningBox(w: DigestWarning) {
 /** A state as a pill: the vocabulary's word, symbol and colours (the screens' StateBadge). */
 function badge(word: Word, code: string) {
   const t = toneHex(word.tone);
-  return `<span data-state-badge="${esc(code)}" data-tone="${word.tone}" style="display:inline-block;padding:2px 10px;border:1px solid ${t.border};border-radius:999px;background:${t.bg};color:${t.text};font-size:13px;font-weight:700;white-space:nowrap">${ICON_SYMBOLS[word.icon]} ${esc(word.label)}</span>`;
+  return `<span data-state-badge="${esc(code)}" data-tone="${word.tone}" style="display:inline-block;padding:2px 10px;border:1px solid ${t.border};border-radius:999px;background:${t.bg};color:${t.text};font-size:13px;font-weight:700;white-space:nowrap">${ICON_SYMBOLS[word.icon]} <span data-part="label">${esc(word.label)}</span></span>`;
 }
 
 /** A word in its tone's text colour, with its symbol (a rejected truck, a late one, a low break). */

@@ -101,6 +101,13 @@ export const DIARY_STATE_WORDS: Record<"missing" | "draft" | "submitted", Word> 
   submitted: { label: "Submitted", tone: "done", icon: "send" },
 };
 
+/** A planned cylinder test in the lab's queue. */
+export const LAB_DUE_WORDS: Record<"due" | "overdue" | "tested", Word> = {
+  due: { label: "Due", tone: "neutral", icon: "clock" },
+  overdue: { label: "Overdue", tone: "danger", icon: "octagon-alert" },
+  tested: { label: "Tested", tone: "done", icon: "circle-check" },
+};
+
 export const VOCABULARY = {
   placement: PLACEMENT_STATE_WORDS,
   "site-visit": SITE_VISIT_STATE_WORDS,
@@ -109,6 +116,7 @@ export const VOCABULARY = {
   severity: SEVERITY_WORDS,
   delivery: DELIVERY_STATUS_WORDS,
   diary: DIARY_STATE_WORDS,
+  "lab-due": LAB_DUE_WORDS,
 } as const;
 export type VocabularyKind = keyof typeof VOCABULARY;
 

@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import tailwindConfig from "@/tailwind.config";
 import { ICONS } from "@/components/ui/state-badge";
 import { SEVERITIES } from "@/lib/checks/types";
+import type { DueStatus } from "@/lib/lab/due";
 import { describeAllowed } from "@/lib/placements/workflow";
 import { DELIVERY_STATUSES, FINDING_SEVERITIES, FINDING_STATES, PLACEMENT_STATES, SITE_VISIT_STATES } from "@/lib/records/enums";
 import { describeMoves } from "@/lib/site-visits/lifecycle";
@@ -20,6 +21,7 @@ const CODES: Record<VocabularyKind, readonly string[]> = {
   severity: SEVERITIES,
   delivery: DELIVERY_STATUSES,
   diary: ["missing", "draft", "submitted"],
+  "lab-due": ["due", "overdue", "tested"] satisfies DueStatus[],
 };
 
 const allPaletteHexes = new Set(
