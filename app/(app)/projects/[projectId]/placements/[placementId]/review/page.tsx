@@ -11,7 +11,7 @@ import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
 import { StateBadge } from "@/components/ui/state-badge";
-import { severityOf, TONES, warningWord } from "@/lib/ui/vocabulary";
+import { SEVERITY_WORDS, severityOf, TONES, warningWord, wordFor } from "@/lib/ui/vocabulary";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
 
 export const metadata: Metadata = { title: "Placement review" };
@@ -133,7 +133,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
               const water = num(d.waterAddedL);
               return {
                 key: d.id as string,
-                tone: d.status === "rejected" ? "caution" : late ? "danger" : undefined,
+                tone: d.status === "rejected" ? wordFor("delivery", "rejected").tone : late ? SEVERITY_WORDS.warning.tone : undefined,
                 cells: [
                   <span key="t" className="font-semibold">{d.ticketNumber as string}{d.truck ? <span className="ml-1 font-normal text-muted">truck {d.truck as string}</span> : null}</span>,
                   <span key="v">
@@ -149,7 +149,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                     {water ? `${formatWaterVolume(water, units)}${d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}${d.waterAuthorisedBy ? `, authorised ${d.waterAuthorisedBy}` : ""}` : "—"}
                     {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="waterAddedL" quantity="waterVolume" valueSI={water} unitSystem={units} label="Water added" testId={`correct-water-${d.ticketNumber}`} /> : null}
                   </span>,
-                  <StateBadge key="s" kind="delivery" code={d.status as string} size="sm">{d.status === "rejected" && d.rejectReason ? `: ${d.rejectReason}` : null}</StateBadge>,
+                  <span key="s" className="flex flex-col items-start gap-0.5"><StateBadge kind="delivery" code={d.status as string} size="sm" testId="delivery-status" />{d.status === "rejected" && d.rejectReason ? <span className="text-xs">{d.rejectReason as string}</span> : null}</span>,
                   <AuditTrail key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
                 ],
               };
