@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from "next";
 import { Providers } from "@/components/providers/providers";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
+import { paletteHex } from "@/lib/ui/palette";
 
 export const metadata: Metadata = {
   title: { default: "Placewright", template: "%s · Placewright" },
@@ -11,7 +12,7 @@ export const metadata: Metadata = {
 };
 
 export const viewport: Viewport = {
-  themeColor: "#161d27",
+  themeColor: paletteHex("ink-900"),
   width: "device-width",
   initialScale: 1,
 };

@@ -1,4 +1,5 @@
 import type { MetadataRoute } from "next";
+import { paletteHex } from "@/lib/ui/palette";
 
 export default function manifest(): MetadataRoute.Manifest {
   return {
@@ -9,8 +10,8 @@ export default function manifest(): MetadataRoute.Manifest {
     scope: "/",
     display: "standalone",
     orientation: "any",
-    background_color: "#f4f6f8",
-    theme_color: "#161d27",
+    background_color: paletteHex("ink-50"),
+    theme_color: paletteHex("ink-900"),
     categories: ["business", "productivity"],
     icons: [
       { src: "/icons/icon-192.png", sizes: "192x192", type: "image/png", purpose: "any" },

@@ -4,14 +4,15 @@ import { useId } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, XAxis, YAxis } from "recharts";
 import { unitLabel, type UnitSystem } from "@/lib/concrete";
 import { chartSummary, formatRate, riskThresholds, type ChartPoint } from "./evaporation-model";
+import { paletteHex } from "@/lib/ui/palette";
 
 // Palette values from tailwind.config.ts: SVG strokes need literal colours.
-const INK_900 = "#161d27";
-const INK_600 = "#445466";
-const INK_200 = "#cdd5de";
-const LICHEN_600 = "#187467";
-const CAUTION_700 = "#8a5000";
-const DANGER_700 = "#951c15";
+const INK_900 = paletteHex("ink-900");
+const INK_600 = paletteHex("ink-600");
+const INK_200 = paletteHex("ink-200");
+const LICHEN_600 = paletteHex("lichen-600");
+const CAUTION_700 = paletteHex("caution-700");
+const DANGER_700 = paletteHex("danger-700");
 
 // Evenly spaced round ticks from 0 past `top`: multiples of `unit`, at most seven of them.
 function roundTicks(top: number, unit: number): number[] {

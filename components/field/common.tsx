@@ -4,7 +4,8 @@
 // times in the project's zone, and small touch-sized controls.
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
-import { CircleAlert, CircleCheck, OctagonAlert } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import { createContext, useContext } from "react";
 import { can, type Action } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
@@ -138,26 +139,27 @@ export const byTime = (field: string) => (a: LocalRecord, b: LocalRecord) => str
 
 /** A small verdict beside a value: words + icon + colour. */
 export function Verdict({ ok, okText = "In tolerance", badText = "Out of tolerance", testId }: { ok: boolean; okText?: string; badText?: string; testId?: string }) {
-  const Icon = ok ? CircleCheck : OctagonAlert;
+  // The colours and icons of the vocabulary: a pass in the done tone, a failure as a warning.
+  const word = ok ? { tone: "done" as const, icon: "circle-check" as const } : SEVERITY_WORDS.warning;
   return (
     <span
       data-testid={testId}
       data-ok={ok ? "yes" : "no"}
-      className={clsx(
-        "inline-flex items-center gap-1 rounded-full px-2 py-0.5 text-sm font-semibold",
-        ok ? "bg-lichen-50 text-lichen-800" : "bg-danger-50 text-danger-800",
-      )}
+      data-tone={word.tone}
+      className={clsx("inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-sm font-semibold", TONES[word.tone].className)}
     >
-      <Icon className="h-4 w-4" aria-hidden="true" />
+      <VocabularyIcon name={word.icon} />
       {ok ? okText : badText}
     </span>
   );
 }
 
+/** A caution in words, with the vocabulary's caution colour and icon. */
 export function CautionBadge({ children, testId }: { children: React.ReactNode; testId?: string }) {
+  const word = SEVERITY_WORDS.caution;
   return (
-    <span data-testid={testId} className="inline-flex items-center gap-1 rounded-full bg-caution-100 px-2 py-0.5 text-sm font-semibold text-caution-800">
-      <CircleAlert className="h-4 w-4" aria-hidden="true" />
+    <span data-testid={testId} data-tone={word.tone} className={clsx("inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-sm font-semibold", TONES[word.tone].className)}>
+      <VocabularyIcon name={word.icon} />
       {children}
     </span>
   );

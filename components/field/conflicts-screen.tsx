@@ -2,7 +2,9 @@
 
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
-import { CircleCheck, GitMerge, OctagonAlert } from "lucide-react";
+import { CircleCheck, OctagonAlert } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -64,7 +66,7 @@ function ConflictCard({ conflict }: { conflict: ConflictRow }) {
   return (
     <li className="card p-4" data-testid="conflict" data-record-id={conflict.recordId}>
       <p className="flex flex-wrap items-center gap-2 text-lg font-bold">
-        <GitMerge className="h-5 w-5 text-danger-700" aria-hidden="true" />
+        <VocabularyIcon name={RECONCILE_WORDS.icon} className="h-5 w-5 text-danger-700" />
         {typeLabel}
         {typeof server.ticketNumber === "string" ? ` · ticket ${server.ticketNumber}` : typeof server.element === "string" ? ` · ${server.element}` : ""}
       </p>
@@ -148,7 +150,7 @@ export function ConflictsScreen() {
   if (conflicts === undefined || rejected === undefined) return <p className="text-muted">Reading this device…</p>;
   return (
     <div className="flex flex-col gap-4">
-      <PageHeader title="Conflicts" subtitle="Changes made here and elsewhere to the same record" />
+      <PageHeader title={RECONCILE_WORDS.label} subtitle="Changes made here and elsewhere to the same record" />
       {conflicts.length === 0 ? (
         <Notice tone="success" title="No conflicts to resolve." testId="no-conflicts" />
       ) : (

@@ -1,5 +1,7 @@
 "use client";
 
+import { StateBadge } from "@/components/ui/state-badge";
+import { DELIVERY_STATUS_WORDS } from "@/lib/ui/vocabulary";
 import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { Pencil, Plus, Truck } from "lucide-react";
@@ -16,7 +18,6 @@ import {
   NowInput,
   mayWrite,
   Section,
-  Verdict,
   byTime,
   formatTime,
   fromSI,
@@ -200,7 +201,7 @@ function DeliveryForm({
           {(["accepted", "rejected"] as const).map((s) => (
             <label key={s} className="flex min-h-touch items-center gap-2 rounded-lg border border-ink-300 px-3 font-semibold has-[:checked]:border-lichen-700 has-[:checked]:bg-lichen-50">
               <input type="radio" value={s} className="h-5 w-5" data-testid={`delivery-status-${s}`} {...register("status")} />
-              {s === "accepted" ? "Accepted" : "Rejected"}
+              {DELIVERY_STATUS_WORDS[s].label}
             </label>
           ))}
         </div>
@@ -249,7 +250,7 @@ export function Deliveries({ placement, project, checks }: { placement: LocalRec
                   #{i + 1} · Ticket <span data-testid="delivery-ticket-number">{str(d.ticketNumber)}</span>
                 </span>
                 {d.truck ? <span className="text-muted">truck {str(d.truck)}</span> : null}
-                {d.status === "rejected" ? <Verdict ok={false} badText="Rejected" /> : null}
+                {d.status === "rejected" ? <StateBadge kind="delivery" code="rejected" testId="delivery-rejected" /> : null}
                 {canWrite ? (
                 <Button variant="ghost" className="ml-auto" data-testid="edit-delivery" onClick={() => setEditing(d.id)} aria-label={`Edit ticket ${str(d.ticketNumber)}`}>
                   <Pencil className="h-4 w-4" aria-hidden="true" /> Edit

@@ -56,7 +56,7 @@ function EntryForm({ project, date, entry, weatherHint, canWrite }: { project: P
         {failure ? <Notice tone="danger" title="Not saved">{failure}</Notice> : null}
         {saved && !formState.isDirty ? <Notice tone="success" title="Saved on this device" /> : null}
         <Button type="submit" data-testid="diary-save" disabled={formState.isSubmitting || !canWrite}>
-          {entry ? "Save the day" : "Start the diary for this day"}
+          {entry ? "Save the diary" : "Start the diary for this day"}
         </Button>
       </form>
     </Section>

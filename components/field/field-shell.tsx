@@ -4,7 +4,9 @@
 // device's copy otherwise), the sync loop, a project switcher from the device database, and the
 // bottom navigation. Rendered by the static (field) layout, so it never asks the server for anything.
 import { BottomNav } from "@/components/shell/bottom-nav";
-import { CalendarDays, ClipboardCheck, GitMerge, Gauge, LogIn, NotebookPen, UserRound } from "lucide-react";
+import { CalendarDays, ClipboardCheck, Gauge, LogIn, NotebookPen, UserRound } from "lucide-react";
+import { ICONS } from "@/components/ui/state-badge";
+import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useCallback, useEffect, useMemo, useState } from "react";
@@ -23,7 +25,7 @@ const NAV = [
   { href: "/field/diary", label: "Diary", icon: NotebookPen },
   { href: "/field/visits", label: "Visits", icon: ClipboardCheck },
   { href: "/tools/evaporation", label: "Calculator", icon: Gauge },
-  { href: "/field/conflicts", label: "Conflicts", icon: GitMerge },
+  { href: "/field/conflicts", label: RECONCILE_WORDS.label, icon: ICONS[RECONCILE_WORDS.icon] },
 ];
 
 const PROJECT_KEY = "pw-field-project";

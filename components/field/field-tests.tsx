@@ -43,11 +43,14 @@ export function verdictsOf(found: Finding[], results: Results, mix: LocalRecord 
   return out;
 }
 
+// The concrete temperature has only a maximum, so its words say so rather than "out of tolerance".
+const WORDS: Record<string, { ok: string; bad: string }> = { Temperature: { ok: "Temperature within the maximum", bad: "Above the maximum temperature" } };
+
 function VerdictLine({ label, verdict, testId }: { label: string; verdict?: { ok: boolean; range: string }; testId: string }) {
   if (!verdict) return null;
   return (
     <span className="flex flex-wrap items-center gap-1 text-sm">
-      <Verdict ok={verdict.ok} testId={testId} okText={`${label} in tolerance`} badText={`${label} out of tolerance`} />
+      <Verdict ok={verdict.ok} testId={testId} okText={WORDS[label]?.ok ?? `${label} in tolerance`} badText={WORDS[label]?.bad ?? `${label} out of tolerance`} />
       <span className="text-muted">({verdict.range})</span>
     </span>
   );

@@ -11,7 +11,9 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { formatLength, formatVolume } from "@/lib/concrete";
 import type { ProjectRole } from "@/lib/auth/roles";
-import { STATE_LABELS, allowedTransitions, describeAllowed } from "@/lib/placements/workflow";
+import { allowedTransitions, describeAllowed } from "@/lib/placements/workflow";
+import { PLACEMENT_MOVE_WORDS } from "@/lib/ui/vocabulary";
+import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
@@ -25,18 +27,8 @@ import { FieldMaturity } from "@/components/maturity/field-maturity";
 import { CuringLog } from "./curing-log";
 import { Deliveries } from "./deliveries";
 import { FieldTests } from "./field-tests";
-import { StateBadge } from "./today-screen";
 import { useFindings } from "./use-findings";
 import { WeatherWatch } from "./weather-watch";
-
-const ACTION_WORDS: Partial<Record<PlacementState, string>> = {
-  planned: "Back to planned",
-  ready: "Mark ready for review",
-  cleared: "Clear to place",
-  placing: "Start placing",
-  placed: "Mark placed",
-  held: "Hold",
-};
 
 function Transitions({ placement, project, readyBlockedBy = [] }: { placement: LocalRecord; project: ProjectRow; readyBlockedBy?: string[] }) {
   const db = useSyncDb();
@@ -73,12 +65,12 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
             title={to === "ready" && readyBlockedBy.length > 0 ? readyBlockedBy.join(" ") : undefined}
             onClick={() => void move(to)}
           >
-            {ACTION_WORDS[to] ?? STATE_LABELS[to]}
+            {PLACEMENT_MOVE_WORDS[to].button}
           </Button>
         ))}
         {allowed.includes("held") && !holding ? (
           <Button variant="secondary" data-testid="transition-held" onClick={() => setHolding(true)}>
-            Hold…
+            {PLACEMENT_MOVE_WORDS.held.button}…
           </Button>
         ) : null}
         {allowed.length === 0 ? <p className="text-sm text-ink-800">Your role on this project cannot move it from here.</p> : null}
@@ -159,7 +151,7 @@ export function PlacementScreen() {
           <h1 className="text-2xl font-bold tracking-tight text-ink-950" data-testid="placement-title">
             {str(placement.element)}
           </h1>
-          <StateBadge state={str(placement.state)} />
+          <StateBadge kind="placement" code={str(placement.state)} testId="placement-state" />
         </div>
         <p className="text-muted">{project.name}</p>
       </div>

@@ -11,8 +11,8 @@ import { OpenFindings } from "@/components/findings/open-findings";
 import { FindingBadge } from "@/components/findings/finding-notice";
 import type { Finding } from "@/lib/checks";
 import { formatLength, formatVolume } from "@/lib/concrete";
-import { STATE_LABELS } from "@/lib/placements/workflow";
-import type { PlacementState } from "@/lib/records/enums";
+import { StateBadge } from "@/components/ui/state-badge";
+import { placementStateLabel, textClassOf } from "@/lib/ui/vocabulary";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, num, str, unitSystemOf, useFieldContext, useProjects } from "./common";
@@ -22,18 +22,6 @@ import { readFieldRecords } from "./use-findings";
 
 
 type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
-
-export function StateBadge({ state }: { state: string }) {
-  const held = state === "held";
-  return (
-    <span
-      data-testid="placement-state"
-      className={held ? "rounded-full bg-caution-100 px-2.5 py-1 text-xs font-semibold text-caution-800" : "rounded-full bg-ink-100 px-2.5 py-1 text-xs font-semibold text-ink-800"}
-    >
-      {STATE_LABELS[state as PlacementState] ?? state}
-    </span>
-  );
-}
 
 export function TodayScreen() {
   const db = useSyncDb();
@@ -61,7 +49,6 @@ export function TodayScreen() {
         const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
         if (day !== today && day !== tomorrow) continue;
         const warnings: string[] = [];
-        if (placement.state === "held") warnings.push("Held");
         if (placement.pending) warnings.push("Not yet sent");
         if (unchecked) warnings.push("Readings not checked: open the placement");
         const cold = placementFindings(records, findings, placement.id).filter((f) => f.rule === "cold-weather");
@@ -119,7 +106,7 @@ export function TodayScreen() {
       ) : (
         <>
         {rows.some((r) => r.placement.state === "held") ? (
-          <Notice tone="danger" title="Held by the inspector: do not place" className="mb-3" testId="today-hold-banner">
+          <Notice tone="danger" icon="octagon-pause" title={`${placementStateLabel("held")} by the inspector: do not place`} className="mb-3" testId="today-hold-banner">
             {rows
               .filter((r) => r.placement.state === "held")
               .map((r) => `${str(r.placement.element)}: ${str(r.placement.holdReason) || "no reason given"}`)
@@ -145,7 +132,7 @@ export function TodayScreen() {
                       <div className="min-w-0 flex-1">
                         <div className="flex flex-wrap items-center gap-2">
                           <span className="text-lg font-bold text-ink-950">{str(placement.element)}</span>
-                          <StateBadge state={str(placement.state)} />
+                          <StateBadge kind="placement" code={str(placement.state)} testId="placement-state" />
                         </div>
                         <p className="text-sm text-muted">
                           {project.name} · {[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "no location"}
@@ -156,8 +143,8 @@ export function TodayScreen() {
                           {least !== undefined ? ` · least ${formatLength(least, units)}` : ""}
                         </p>
                         {placement.state === "held" ? (
-                          <p className="mt-2 text-base font-semibold text-danger-800" data-testid="today-hold-reason">
-                            Held by the inspector: {str(placement.holdReason) || "no reason given"}
+                          <p className={`mt-2 text-base font-semibold ${textClassOf("placement", "held")}`} data-testid="today-hold-reason">
+                            {placementStateLabel("held")} by the inspector: {str(placement.holdReason) || "no reason given"}
                           </p>
                         ) : null}
                         {warnings.length > 0 ? (

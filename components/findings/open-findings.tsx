@@ -6,8 +6,8 @@ import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
 import { Section, str } from "@/components/field/common";
-import { FINDING_STATE_LABELS, isOutstanding } from "@/lib/site-visits/lifecycle";
-import type { FindingState } from "@/lib/records/enums";
+import { StateBadge } from "@/components/ui/state-badge";
+import { isOutstanding } from "@/lib/site-visits/lifecycle";
 import { listByProject, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 
@@ -39,8 +39,10 @@ export function OpenFindings({ projectIds, placementId, title = "Open findings" 
           <li key={f.id}>
             <Link href={`/field/visit?id=${str(f.siteVisitId)}#finding-${f.id}`} className="block rounded border border-ink-200 p-3 hover:bg-ink-50" data-testid="open-finding">
               <span className="font-semibold text-ink-950">{str(f.description)}</span>
-              <span className="block text-sm text-muted">
-                {[str(f.severity), FINDING_STATE_LABELS[str(f.state) as FindingState], str(f.location), f.dueDate ? `due ${str(f.dueDate)}` : ""].filter(Boolean).join(" · ")}
+              <span className="mt-1 flex flex-wrap items-center gap-1.5 text-sm text-muted">
+                <StateBadge kind="finding-severity" code={str(f.severity)} size="sm" />
+                <StateBadge kind="finding" code={str(f.state)} size="sm" testId="open-finding-state" />
+                {[str(f.location), f.dueDate ? `due ${str(f.dueDate)}` : ""].filter(Boolean).join(" · ")}
               </span>
             </Link>
           </li>

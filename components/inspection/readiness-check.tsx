@@ -158,7 +158,7 @@ export function ReadinessCheck({ placement, project, readiness }: { placement: L
     <Section title="Readiness check" testId="readiness-check">
       {!checklist ? (
         <>
-          <p className="text-muted">No readiness checklist yet. It is answered before the placement is marked ready for the inspector.</p>
+          <p className="text-muted">No readiness checklist yet. It is answered before you ask for inspection.</p>
           {canWrite && EDITABLE_STATES.has(state) ? (
             <Button className="mt-3" data-testid="start-readiness" disabled={starting} onClick={() => void start()}>
               <ClipboardCheck className="h-5 w-5" aria-hidden="true" /> Start the readiness check
@@ -190,7 +190,7 @@ export function ReadinessCheck({ placement, project, readiness }: { placement: L
           </ul>
           {editable && !verdict.ready ? (
             <div className="mt-2 rounded-lg bg-ink-50 p-3 text-sm text-ink-900" data-testid="readiness-problems">
-              <p className="font-semibold">Before it can be marked ready:</p>
+              <p className="font-semibold">Before you can ask for inspection:</p>
               <ul className="mt-1 list-disc pl-5">
                 {verdict.problems.map((p) => (
                   <li key={p}>{p}</li>

@@ -2,7 +2,9 @@
 
 import dynamic from "next/dynamic";
 import clsx from "clsx";
-import { CircleCheck, OctagonAlert } from "lucide-react";
+import { CircleCheck } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import { Notice } from "@/components/ui/notice";
 import type { MixAcceptance } from "@/lib/checks/strength";
 import { citation } from "@/lib/checks/types";
@@ -11,6 +13,7 @@ import { strengthText } from "./format";
 
 // recharts loads on demand: the figures beside the chart are what the first paint needs.
 const RunningAverageChart = dynamic(() => import("./charts").then((m) => m.RunningAverageChart), { ssr: false });
+const WARNING = SEVERITY_WORDS.warning;
 
 /** ACI 318 acceptance of one mix on the project: verdict, low-result flags, tests, chart. */
 export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }) {
@@ -21,8 +24,8 @@ export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }
       <div className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
         <h3 id={`acc-${a.mix.id}`} className="font-mono text-lg font-bold">{a.mix.code}</h3>
         <span className="text-sm">f′c {strengthText(a.mix.fcMPa, u)} at {a.mix.fcAgeDays} days · no test below {strengthText(a.individualLimitMPa, u)}</span>
-        <span className={clsx("ml-auto inline-flex items-center gap-1 font-semibold", a.ok === false ? "text-danger-700" : "text-ink-800")} data-testid="acceptance-verdict">
-          {a.ok === false ? <OctagonAlert className="h-4 w-4" aria-hidden="true" /> : <CircleCheck className="h-4 w-4" aria-hidden="true" />}
+        <span className={clsx("ml-auto inline-flex items-center gap-1 font-semibold", a.ok === false ? TONES[WARNING.tone].textClass : "text-ink-800")} data-testid="acceptance-verdict">
+          {a.ok === false ? <VocabularyIcon name={WARNING.icon} /> : <CircleCheck className="h-4 w-4" aria-hidden="true" />}
           {verdict}
         </span>
       </div>
@@ -61,7 +64,7 @@ export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }
                     <td className="px-2 py-1.5 text-right font-mono">{strengthText(t.runningAverageMPa, u)}</td>
                     <td className="px-2 py-1.5">
                       {low ? (
-                        <span className="inline-flex items-center gap-1 font-semibold text-danger-700"><OctagonAlert className="h-3.5 w-3.5" aria-hidden="true" />{t.lowIndividual ? "Low test" : "Low average"}</span>
+                        <span className={`inline-flex items-center gap-1 font-semibold ${TONES[WARNING.tone].textClass}`}><VocabularyIcon name={WARNING.icon} className="h-3.5 w-3.5" />{t.lowIndividual ? "Low test" : "Low average"}</span>
                       ) : (
                         <span className="inline-flex items-center gap-1"><CircleCheck className="h-3.5 w-3.5" aria-hidden="true" />Meets</span>
                       )}

@@ -3,13 +3,14 @@
 import { CartesianGrid, ComposedChart, Line, ReferenceLine, Scatter, XAxis, YAxis } from "recharts";
 import { formatStrength, mpaToPsi, type UnitSystem } from "@/lib/concrete";
 import type { MixAcceptance } from "@/lib/checks/strength";
+import { paletteHex } from "@/lib/ui/palette";
 
-const INK_600 = "#445466";
-const INK_200 = "#cdd5de";
-const LICHEN_600 = "#187467";
-const INK_900 = "#161d27";
-const DANGER_700 = "#951c15";
-const CAUTION_700 = "#8a5000";
+const INK_600 = paletteHex("ink-600");
+const INK_200 = paletteHex("ink-200");
+const LICHEN_600 = paletteHex("lichen-600");
+const INK_900 = paletteHex("ink-900");
+const DANGER_700 = paletteHex("danger-700");
+const CAUTION_700 = paletteHex("caution-700");
 
 const inUnits = (mpa: number, u: UnitSystem) => (u === "SI" ? Math.round(mpa * 10) / 10 : Math.round(mpaToPsi(mpa)));
 const axisTick = { fill: INK_600, fontSize: 12 };

@@ -1,7 +1,8 @@
 "use client";
 
 import dynamic from "next/dynamic";
-import { OctagonAlert } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import type { UnitSystem } from "@/lib/concrete";
 import { dueAt } from "@/lib/lab/due";
 import type { LabSetView } from "@/lib/lab/queries";
@@ -24,7 +25,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
         <h3 className="font-mono text-lg font-bold">{set.setCode}</h3>
         <span className="text-sm">{set.placement.element} · mix <span className="font-mono">{set.mixCode ?? "—"}</span></span>
         <span className="text-sm text-muted">{set.count} cylinders {nominalCylinderText(set.cylinderDiameterMm, set.cylinderLengthMm, u)} · cast {dateTimeText(set.castAt, timeZone)}</span>
-        {low ? <span className="ml-auto inline-flex items-center gap-1 text-sm font-semibold text-danger-700" data-testid="set-low"><OctagonAlert className="h-4 w-4" aria-hidden="true" />Low strength test</span> : null}
+        {low ? <span className={`ml-auto inline-flex items-center gap-1 text-sm font-semibold ${TONES[SEVERITY_WORDS.warning.tone].textClass}`} data-testid="set-low"><VocabularyIcon name={SEVERITY_WORDS.warning.icon} />Low strength test</span> : null}
       </header>
       <p className="mt-1 text-sm">Test ages: {[...set.testAgesDays].sort((a, b) => a - b).map((age) => `${age} d (due ${dateText(dueAt(new Date(set.castAt), age), timeZone)})`).join(" · ")}</p>
       <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr]">

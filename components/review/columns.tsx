@@ -5,26 +5,19 @@ import type { ColumnDef } from "@tanstack/react-table";
 import clsx from "clsx";
 import Link from "next/link";
 import { formatEvaporation, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
+import { StateBadge } from "@/components/ui/state-badge";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "@/lib/review/columns";
+import { DELIVERY_STATUS_WORDS, SEVERITY_WORDS, TONES, textClassOf } from "@/lib/ui/vocabulary";
 import type { DiaryReviewRow, PlacementReviewRow } from "@/lib/review/query";
 
 const label = (cols: readonly { key: string; label: string }[], key: string) => cols.find((c) => c.key === key)!.label.replace(/ \((m³|L|min)\)$/, "");
 const P = (key: string) => label(PLACEMENT_COLUMNS, key);
 const D = (key: string) => label(DIARY_COLUMNS, key);
 
-export const STATE_TEXT: Record<PlacementReviewRow["state"], string> = {
-  planned: "Planned",
-  ready: "Ready",
-  cleared: "Cleared",
-  placing: "Placing",
-  placed: "Placed",
-  signed: "Signed",
-  held: "Held",
-};
-
-function Count({ n, tone }: { n: number; tone: "danger" | "caution" }) {
+/** A count that needs attention, in the colour of a warning (the number is the word). */
+function Count({ n }: { n: number }) {
   if (n === 0) return <span className="text-ink-400">0</span>;
-  return <span className={clsx("rounded px-1.5 py-0.5 font-semibold", tone === "danger" ? "bg-danger-100 text-danger-800" : "bg-caution-100 text-caution-800")}>{n}</span>;
+  return <span className={clsx("rounded border px-1.5 py-0.5 font-semibold", TONES[SEVERITY_WORDS.warning.tone].className)}>{n}</span>;
 }
 
 const RISK_TEXT = { low: "Low", caution: "Caution", high: "High" } as const;
@@ -57,11 +50,11 @@ export function placementColumns(): ColumnDef<PlacementReviewRow>[] {
       cell: ({ row }) => (
         <>
           {row.original.trucks}
-          {row.original.rejectedTrucks ? <span className="ml-1 text-danger-700">({row.original.rejectedTrucks} rejected)</span> : null}
+          {row.original.rejectedTrucks ? <span className={clsx("ml-1 font-semibold", textClassOf("delivery", "rejected"))}>({row.original.rejectedTrucks} {DELIVERY_STATUS_WORDS.rejected.label.toLowerCase()})</span> : null}
         </>
       ),
     },
-    { id: "lateTrucks", header: "Late", meta: { align: "right" }, cell: ({ row }) => <Count n={row.original.lateTrucks} tone="danger" /> },
+    { id: "lateTrucks", header: "Late", meta: { align: "right" }, cell: ({ row }) => <Count n={row.original.lateTrucks} /> },
     {
       id: "waterAddedL",
       header: "Water added",
@@ -69,7 +62,7 @@ export function placementColumns(): ColumnDef<PlacementReviewRow>[] {
       cell: ({ row }) =>
         row.original.waterLoads === 0 ? <span className="text-ink-400">—</span> : <span className="font-semibold text-caution-800">{formatWaterVolume(row.original.waterAddedL, row.original.unitSystem)}</span>,
     },
-    { id: "testsOut", header: "Tests out", meta: { align: "right" }, cell: ({ row }) => <Count n={row.original.testsOut} tone="danger" /> },
+    { id: "testsOut", header: P("testsOut"), meta: { align: "right" }, cell: ({ row }) => <Count n={row.original.testsOut} /> },
     {
       id: "evaporationRisk",
       header: "Evaporation",
@@ -88,21 +81,15 @@ export function placementColumns(): ColumnDef<PlacementReviewRow>[] {
       id: "state",
       header: P("state"),
       cell: ({ row }) => (
-        <span className="inline-flex items-center gap-1">
-          {STATE_TEXT[row.original.state]}
-          {row.original.hasWarnings ? (
-            <span className="rounded bg-danger-100 px-1 text-xs font-bold text-danger-800" data-testid="warned" title="Has warnings">
-              Warnings
-            </span>
-          ) : null}
+        <span className="inline-flex flex-wrap items-center gap-1">
+          <StateBadge kind="placement" code={row.original.state} size="sm" testId="placement-state" />
+          {row.original.hasWarnings ? <StateBadge kind="severity" code="warning" size="sm" testId="warned" /> : null}
         </span>
       ),
     },
     { id: "signedBy", header: P("signedBy"), cell: ({ row }) => row.original.signedBy ?? <span className="text-ink-400">—</span> },
   ];
 }
-
-const DIARY_STATE = { missing: "Missing", draft: "Draft", submitted: "Submitted" } as const;
 
 export function diaryColumns(): ColumnDef<DiaryReviewRow>[] {
   return [
@@ -121,9 +108,7 @@ export function diaryColumns(): ColumnDef<DiaryReviewRow>[] {
       id: "state",
       header: D("state"),
       cell: ({ row }) => (
-        <span className={clsx("rounded px-1.5 py-0.5 text-xs font-bold", row.original.state === "missing" ? "bg-danger-100 text-danger-800" : row.original.state === "draft" ? "bg-caution-100 text-caution-800" : "bg-lichen-50 text-lichen-900")}>
-          {DIARY_STATE[row.original.state]}
-        </span>
+        <StateBadge kind="diary" code={row.original.state} size="sm" testId="diary-state" />
       ),
     },
     { id: "placements", header: D("placements"), meta: { align: "right" }, cell: ({ row }) => row.original.placements },

@@ -1,5 +1,6 @@
 // Building blocks of the office detail pages: a titled section and a compact table.
 import clsx from "clsx";
+import { TONES, type Tone } from "@/lib/ui/vocabulary";
 
 export function Section({ title, count, children, testId, actions }: { title: string; count?: number; children: React.ReactNode; testId?: string; actions?: React.ReactNode }) {
   return (
@@ -20,7 +21,8 @@ export function Empty({ children }: { children: React.ReactNode }) {
   return <p className="text-sm text-muted">{children}</p>;
 }
 
-export function MiniTable({ head, rows, testId }: { head: string[]; rows: { key: string; cells: React.ReactNode[]; tone?: "danger" | "caution" }[]; testId?: string }) {
+// A row's colour is the background token of its tone (those classes are written out in lib/ui/vocabulary.ts).
+export function MiniTable({ head, rows, testId }: { head: string[]; rows: { key: string; cells: React.ReactNode[]; tone?: Tone }[]; testId?: string }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-sm" data-testid={testId}>
@@ -35,7 +37,7 @@ export function MiniTable({ head, rows, testId }: { head: string[]; rows: { key:
         </thead>
         <tbody>
           {rows.map((r) => (
-            <tr key={r.key} className={clsx("border-b border-ink-100 align-top", r.tone === "danger" && "bg-danger-50", r.tone === "caution" && "bg-caution-50")}>
+            <tr key={r.key} className={clsx("border-b border-ink-100 align-top", r.tone && `bg-${TONES[r.tone].bg}`)}>
               {r.cells.map((c, i) => (
                 <td key={i} className={clsx("px-1.5 py-1", i < r.cells.length - 2 && "whitespace-nowrap")}>
                   {c}

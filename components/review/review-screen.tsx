@@ -13,7 +13,8 @@ import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "@/lib/review/columns";
 import { DIARY_STATES, REVIEW_PAGE_SIZES, type DiaryReviewRow, type PlacementReviewRow, type ReviewPage } from "@/lib/review/query";
 import type { ReviewView, SavedViews } from "@/lib/review/view-schema";
-import { diaryColumns, placementColumns, STATE_TEXT } from "./columns";
+import { diaryColumns, placementColumns } from "./columns";
+import { placementStateLabel, wordFor } from "@/lib/ui/vocabulary";
 import { CheckMenu, SmallDate, SmallSelect, smallButton } from "./controls";
 import { DataTable, Pager } from "./data-table";
 
@@ -136,8 +137,8 @@ function ReviewList({ list, projects, initial }: { list: List; projects: ReviewP
   const csvHref = `/api/review/${list}?${queryString(list, view, 1, { format: "csv", columns: all.filter((c) => view.columns.includes(c.key)).map((c) => c.key).join(",") })}`;
   const stateOptions =
     list === "placements"
-      ? PLACEMENT_STATES.map((s) => ({ value: s, label: STATE_TEXT[s] }))
-      : DIARY_STATES.map((s) => ({ value: s, label: { missing: "Missing", draft: "Draft", submitted: "Submitted" }[s] }));
+      ? PLACEMENT_STATES.map((s) => ({ value: s, label: placementStateLabel(s) }))
+      : DIARY_STATES.map((s) => ({ value: s, label: wordFor("diary", s).label }));
   const data = query.data;
 
   return (

@@ -30,7 +30,7 @@ export function BottomNav({
         <Link
           key={href}
           href={href}
-          data-testid={testIdPrefix ? `${testIdPrefix}${itemLabel.toLowerCase()}` : undefined}
+          data-testid={testIdPrefix ? `${testIdPrefix}${itemLabel.toLowerCase().replace(/\s+/g, "-")}` : undefined}
           aria-current={isActive(href) ? "page" : undefined}
           className={clsx(
             "flex min-h-16 flex-col items-center justify-center gap-1 text-xs font-semibold",

@@ -1,7 +1,9 @@
 "use client";
 
 import clsx from "clsx";
-import { CloudCheck, CloudUpload, GitMerge, LogIn, RefreshCw, TriangleAlert, Wifi, WifiOff } from "lucide-react";
+import { CloudCheck, CloudUpload, LogIn, RefreshCw, TriangleAlert, Wifi, WifiOff } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { useEffect, useRef, useState } from "react";
 import { SyncDetails } from "@/components/sync/sync-details";
@@ -85,9 +87,8 @@ export function SyncStatus() {
           data-testid="sync-conflicts"
           className="inline-flex min-h-11 items-center gap-1.5 rounded-md bg-danger-50 px-2 text-sm font-semibold text-danger-800"
         >
-          <GitMerge className="h-4 w-4" aria-hidden="true" />
-          {plural(state.conflicts, "conflict")}
-          <span className="sr-only"> to resolve</span>
+          <VocabularyIcon name={RECONCILE_WORDS.icon} />
+          {state.conflicts} {RECONCILE_WORDS.label.toLowerCase()}
         </Link>
       ) : null}
       <button

@@ -3,7 +3,8 @@
 // What the inspector signs for a placement, counted from the records on this device: trucks, tests,
 // warnings raised, checklists, photos and what is still open (conflicts, unsent changes, uploads).
 import { useLiveQuery } from "dexie-react-hooks";
-import { CircleAlert, CircleCheck } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { RECONCILE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import { num, str, unitSystemOf } from "@/components/field/common";
 import { fieldFindings, placementFindings } from "@/components/field/findings-model";
 import { readFieldRecords } from "@/components/field/use-findings";
@@ -98,7 +99,7 @@ export function blockingReason(s: PlacementSummary | undefined): string | null {
   if (!s) return null;
   const parts: string[] = [];
   if (s.unsent) parts.push(`${s.unsent} ${s.unsent === 1 ? "change has" : "changes have"} not reached the server yet`);
-  if (s.conflicts) parts.push(`${s.conflicts} ${s.conflicts === 1 ? "conflict" : "conflicts"} to resolve`);
+  if (s.conflicts) parts.push(`${plural(s.conflicts, "change", "changes")} ${RECONCILE_WORDS.label.toLowerCase()}`);
   if (s.photosUploading) parts.push(`${s.photosUploading} ${s.photosUploading === 1 ? "photo is" : "photos are"} still uploading`);
   return parts.length ? `Not yet: ${parts.join(", ")}. Sync, then sign.` : null;
 }
@@ -106,10 +107,10 @@ export function blockingReason(s: PlacementSummary | undefined): string | null {
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 function Line({ label, value, warn, testId }: { label: string; value: string; warn?: boolean; testId?: string }) {
-  const Icon = warn ? CircleAlert : CircleCheck;
+  const word = warn ? SEVERITY_WORDS.caution : { tone: "done" as const, icon: "circle-check" as const };
   return (
-    <li className="flex items-start gap-2 py-1" data-testid={testId}>
-      <Icon className={warn ? "mt-0.5 h-5 w-5 shrink-0 text-caution-700" : "mt-0.5 h-5 w-5 shrink-0 text-lichen-700"} aria-hidden="true" />
+    <li className="flex items-start gap-2 py-1" data-testid={testId} data-tone={word.tone}>
+      <VocabularyIcon name={word.icon} className={`mt-0.5 h-5 w-5 shrink-0 ${TONES[word.tone].textClass}`} />
       <span>
         <span className="font-semibold">{label}:</span> {value}
       </span>
@@ -127,7 +128,7 @@ export function PlacementSignSummary({ summary, project }: { summary: PlacementS
     ...s.checklists.filter((c) => c.no).map((c) => `${CHECKLIST_NAMES[c.kind] ?? c.kind} checklist: ${plural(c.no, "item", "items")} answered no`),
   ].filter((w): w is string => !!w);
   const open = [
-    s.conflicts ? plural(s.conflicts, "conflict", "conflicts") : null,
+    s.conflicts ? `${plural(s.conflicts, "change", "changes")} ${RECONCILE_WORDS.label.toLowerCase()}` : null,
     s.unsent ? plural(s.unsent, "unsent change", "unsent changes") : null,
     s.photosUploading ? plural(s.photosUploading, "photo uploading", "photos uploading") : null,
   ].filter((w): w is string => !!w);

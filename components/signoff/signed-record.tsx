@@ -1,6 +1,6 @@
 "use client";
 
-// A signed placement: the signature, who signed as what and when, the content hash and whether the
+// A signed placement: the signature, who signed as what and when, the signature check code and whether the
 // record still matches it (recomputed by the server now), the amendments beside the original, and
 // the late edits this device made that were kept as conflicts rather than applied.
 import { useQueryClient } from "@tanstack/react-query";
@@ -52,15 +52,15 @@ function HashLine({ hash, matches }: { hash: string; matches: boolean }) {
   return (
     <div className="mt-3 flex flex-col gap-2">
       <p className="text-sm text-muted">
-        SHA-256 of the record at signing: <code className="break-all font-mono text-ink-900" data-testid="content-hash">{hash}</code>
+        Signature check code (SHA-256 of the record at signing): <code className="break-all font-mono text-ink-900" data-testid="content-hash">{hash}</code>
       </p>
       {matches ? (
         <Notice tone="success" title="Verified: the record matches what was signed" testId="verify-result">
-          The hash was recomputed from the stored record just now.
+          The signature check code was recomputed from the stored record just now.
         </Notice>
       ) : (
         <Notice tone="danger" title="Does not match: the record changed after signing" testId="verify-result">
-          The hash recomputed now differs from the one signed. Report this to the office: a stored row was changed outside the application.
+          The signature check code recomputed now differs from the one signed. Report this to the office: a stored row was changed outside the application.
         </Notice>
       )}
     </div>
@@ -181,7 +181,7 @@ function LateEdits({ placement }: { placement: LocalRecord }) {
   if (!edits?.length) return null;
   return (
     <Notice tone="caution" title={`${edits.length} late ${edits.length === 1 ? "edit" : "edits"} kept, not applied`} className="mt-3" testId="late-edits">
-      Changes made on this device after the sign-off were refused and kept for the office. Add an amendment if they matter; see Conflicts for the values.
+      Changes made on this device after the sign-off were refused and kept for the office. Add an amendment if they matter; see To reconcile for the values.
     </Notice>
   );
 }

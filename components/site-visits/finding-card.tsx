@@ -11,11 +11,13 @@ import { formatDateTime, str, writeErrorOf } from "@/components/field/common";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { FindingState } from "@/lib/records/enums";
-import { allowedMoves, FINDING_STATE_LABELS } from "@/lib/site-visits/lifecycle";
+import { allowedMoves } from "@/lib/site-visits/lifecycle";
+import { StateBadge } from "@/components/ui/state-badge";
+import { FINDING_MOVE_WORDS } from "@/lib/ui/vocabulary";
 import { transitionSiteRecordLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 
-const NEEDS_LABEL = { response: "What was done (your answer)", reason: "Why it is reopened" } as const;
+const NEEDS_LABEL = { response: "What was done to correct it", reason: "Why it is reopened" } as const;
 
 export function FindingCard({ finding, project }: { finding: LocalRecord; project: ProjectRow }) {
   const db = useSyncDb();
@@ -43,10 +45,8 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
     <li id={`finding-${finding.id}`} className="rounded border border-ink-200 p-3" data-testid="finding">
       <div className="flex flex-wrap items-center gap-2">
         <span className="font-bold text-ink-950">{str(finding.description)}</span>
-        <span className="rounded bg-ink-100 px-2 text-sm font-semibold" data-testid="finding-state">
-          {FINDING_STATE_LABELS[state] ?? state}
-        </span>
-        <span className="text-sm text-muted">{str(finding.severity)}</span>
+        <StateBadge kind="finding" code={state} testId="finding-state" />
+        <StateBadge kind="finding-severity" code={str(finding.severity)} testId="finding-severity" />
       </div>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
         <dt className="text-muted">Where</dt>
@@ -59,7 +59,7 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
         <dd>{str(finding.dueDate) || "—"}</dd>
         {finding.response ? (
           <>
-            <dt className="text-muted">Answer</dt>
+            <dt className="text-muted">Correction</dt>
             <dd data-testid="finding-response">
               {str(finding.response)} <span className="text-muted">({formatDateTime(finding.answeredAt, project.timeZone)})</span>
             </dd>
@@ -78,7 +78,7 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
         <div className="mt-2 flex flex-wrap gap-2">
           {moves.map((m) => (
             <Button key={m.to} variant={m.to === "open" ? "secondary" : "primary"} data-testid={`finding-${m.verb}`} onClick={() => (m.needs || m.to === "closed" ? setActive(m.to) : void submit(m.to))}>
-              {m.verb[0].toUpperCase() + m.verb.slice(1)}
+              {FINDING_MOVE_WORDS[m.to as FindingState].button}
             </Button>
           ))}
         </div>

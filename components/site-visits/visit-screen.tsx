@@ -14,7 +14,9 @@ import { Section, fromTimeInput, num, str, toTimeInput, useProject, writeErrorOf
 import { SignOffDialog } from "@/components/signoff/lazy-sign-off-dialog";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { FINDING_SEVERITIES, type SiteVisitState } from "@/lib/records/enums";
-import { allowedMoves, isOutstanding, VISIT_STATE_LABELS } from "@/lib/site-visits/lifecycle";
+import { allowedMoves, isOutstanding } from "@/lib/site-visits/lifecycle";
+import { StateBadge } from "@/components/ui/state-badge";
+import { SITE_VISIT_MOVE_WORDS } from "@/lib/ui/vocabulary";
 import { createLocal, getRecord, listByParent, listByProject, transitionSiteRecordLocal, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useRequestSync, useSyncDb } from "@/lib/sync/client/react";
 import { FindingCard } from "./finding-card";
@@ -189,7 +191,7 @@ function SubmitAndSign({ visit, project, findings }: { visit: LocalRecord; proje
       <div className="flex flex-wrap gap-2">
         {moves.map((m) => (
           <Button key={m.to} variant={m.to === "draft" ? "secondary" : "primary"} data-testid={`visit-${m.to}`} onClick={() => void move(m.to)}>
-            {m.to === "submitted" ? "Submit the report" : "Back to draft"}
+            {SITE_VISIT_MOVE_WORDS[m.to as SiteVisitState].button}
           </Button>
         ))}
         {state === "submitted" && role === "inspector" ? (
@@ -254,9 +256,10 @@ export function VisitScreen() {
     <div className="flex flex-col gap-4">
       <div>
         {back}
-        <h1 className="text-2xl font-bold tracking-tight text-ink-950" data-testid="visit-title">
-          Site visit {str(visit.visitDate)} · {VISIT_STATE_LABELS[state] ?? state}
-        </h1>
+        <div className="flex flex-wrap items-center gap-2" data-testid="visit-title">
+          <h1 className="text-2xl font-bold tracking-tight text-ink-950">Site visit {str(visit.visitDate)}</h1>
+          <StateBadge kind="site-visit" code={state} testId="visit-state" />
+        </div>
         <p className="text-muted">{project.name}</p>
       </div>
       <Section title="Report" testId="visit-report">

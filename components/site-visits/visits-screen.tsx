@@ -11,8 +11,9 @@ import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { mayWrite, str, todayLocal, useFieldContext, useProjects, writeErrorOf } from "@/components/field/common";
-import { VISIT_STATE_LABELS, isOutstanding } from "@/lib/site-visits/lifecycle";
-import type { SiteVisitState } from "@/lib/records/enums";
+import { isOutstanding } from "@/lib/site-visits/lifecycle";
+import { StateBadge } from "@/components/ui/state-badge";
+import { FINDING_STATE_WORDS, textClassOf } from "@/lib/ui/vocabulary";
 import { createLocal, listByProject } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 
@@ -80,14 +81,14 @@ export function VisitsScreen() {
             <li key={visit.id}>
               <Link href={`/field/visit?id=${visit.id}`} className="card flex items-center gap-3 p-4 hover:bg-ink-50" data-testid="visit-link">
                 <div className="min-w-0 flex-1">
-                  <p className="text-lg font-bold text-ink-950">
-                    {str(visit.visitDate)} · {VISIT_STATE_LABELS[str(visit.state) as SiteVisitState] ?? str(visit.state)}
+                  <p className="flex flex-wrap items-center gap-2 text-lg font-bold text-ink-950">
+                    {str(visit.visitDate)} <StateBadge kind="site-visit" code={str(visit.state)} size="sm" testId="visit-state" />
                   </p>
                   <p className="text-sm text-muted">
                     {project.name}
                     {str(visit.areasInspected) ? ` · ${str(visit.areasInspected)}` : ""}
                   </p>
-                  {outstanding > 0 ? <p className="mt-1 font-semibold text-danger-800">{outstanding} open finding{outstanding === 1 ? "" : "s"}</p> : null}
+                  {outstanding > 0 ? <p className={`mt-1 font-semibold ${textClassOf("finding", "open")}`}>{outstanding} {FINDING_STATE_WORDS.open.label.toLowerCase()} finding{outstanding === 1 ? "" : "s"}</p> : null}
                 </div>
                 <ChevronRight className="h-6 w-6 shrink-0 text-ink-500" aria-hidden="true" />
               </Link>

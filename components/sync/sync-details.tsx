@@ -1,7 +1,9 @@
 "use client";
 
 import { useLiveQuery } from "dexie-react-hooks";
-import { CircleAlert, GitMerge, HardDrive, LogIn, RefreshCw, X } from "lucide-react";
+import { CircleAlert, HardDrive, LogIn, RefreshCw, X } from "lucide-react";
+import { VocabularyIcon } from "@/components/ui/state-badge";
+import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { listConflicts, listOutbox, dismissRejection } from "@/lib/sync/client/queries";
 import { useOptionalSyncDb, usePhotoProgress, useRequestSync, type SyncState } from "@/lib/sync/client/react";
@@ -93,8 +95,8 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
           onClick={onClose}
           className="mt-3 flex min-h-11 items-center gap-2 rounded-md border-2 border-danger-600 bg-danger-50 px-2 text-sm font-semibold text-danger-800"
         >
-          <GitMerge className="h-4 w-4 shrink-0" aria-hidden="true" />
-          {plural(state.conflicts, "conflict")} to resolve
+          <VocabularyIcon name={RECONCILE_WORDS.icon} />
+          {plural(state.conflicts, "change")} {RECONCILE_WORDS.label.toLowerCase()}
         </Link>
       ) : null}
 

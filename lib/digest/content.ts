@@ -3,6 +3,7 @@
 import { renderEmptyHtml, renderHtml, type DigestLinks } from "./html";
 import { citation } from "@/lib/checks";
 import { summarizeDay, type DigestSummary } from "./summary";
+import { warningWord } from "@/lib/ui/vocabulary";
 import type { DigestDay } from "./types";
 
 export type { DigestLinks } from "./html";
@@ -35,14 +36,14 @@ function renderText(s: DigestSummary, links: DigestLinks): string {
   if (s.warnings.length) {
     heading("Needs attention");
     for (const w of s.warnings) {
-      out.push(`! ${w.severity === "warning" ? "Warning" : "Caution"}: ${w.title}${w.context ? ` (${w.context})` : ""}`, `  ${w.message}`, `  Rule: ${citation(w.source)}. ${w.governs}`);
+      out.push(`! ${warningWord(w).label}: ${w.title}${w.context ? ` (${w.context})` : ""}`, `  ${w.message}`, `  Rule: ${citation(w.source)}. ${w.governs}`);
     }
   }
   heading("Placements");
   if (s.placements.length === 0) out.push("No placements today.");
   for (const p of s.placements) {
     out.push(`- ${p.element} [${p.stateLabel}]`, `  ${[p.where, `start ${p.start}`].filter(Boolean).join(" · ")}`, `  ${p.volume}`, `  ${p.signed}`);
-    if (p.holdReason) out.push(`  Held: ${p.holdReason}`);
+    if (p.holdReason) out.push(`  ${p.stateLabel}: ${p.holdReason}`);
   }
   if (s.trucks.lines.length) {
     const t = s.trucks;

@@ -1,23 +1,23 @@
 // The digest's HTML part: table layout and inline styles, which is what mail programs render
-// reliably. Colours from the app's palette; warnings carry a word and a symbol, never colour alone.
+// reliably. Colours, words and symbols from lib/ui/vocabulary.ts (the same as on the screens and in
+// the PDF); warnings and states carry a word and a symbol, never colour alone.
 import { citation, type Finding } from "@/lib/checks";
+import { paletteHex } from "@/lib/ui/palette";
+import { DELIVERY_STATUS_WORDS, ICON_SYMBOLS, toneHex, warningWord, wordFor, type Word } from "@/lib/ui/vocabulary";
 import type { DigestSummary } from "./summary";
 
 export type DigestLinks = { day: string; photo: (id: string) => string; preferences: string; unsubscribe: string | null };
 
 const C = {
-  ink950: "#0c1118",
-  ink900: "#161d27",
-  ink700: "#354252",
-  ink600: "#445466",
-  ink200: "#cdd5de",
-  ink100: "#e6eaef",
-  ink50: "#f4f6f8",
-  lichen700: "#155d54",
-  lichen100: "#d3f1ea",
-  lichen50: "#eefaf7",
-  caution: { border: "#a86300", bg: "#fff8e6", text: "#6b3e00" },
-  danger: { border: "#b4231a", bg: "#fdf0ef", text: "#741510" },
+  ink950: paletteHex("ink-950"),
+  ink900: paletteHex("ink-900"),
+  ink700: paletteHex("ink-700"),
+  ink600: paletteHex("ink-600"),
+  ink200: paletteHex("ink-200"),
+  ink100: paletteHex("ink-100"),
+  ink50: paletteHex("ink-50"),
+  lichen700: paletteHex("lichen-700"),
+  lichen100: paletteHex("lichen-100"),
 };
 const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? "" : "s"}`;
 const FONT = "-apple-system,'Segoe UI',Roboto,'Helvetica Neue',Arial,sans-serif";
@@ -41,21 +41,25 @@ function stat(label: string, value: string, note = "") {
 }
 
 function warningBox(w: Finding & { context: string }) {
-  const tone = C[w.severity === "warning" ? "danger" : "caution"];
-  const word = w.severity === "warning" ? "Warning" : "Caution";
+  const word = warningWord(w);
+  const tone = toneHex(word.tone);
   return (
-    `<div data-rule="${w.rule}" data-severity="${w.severity}" data-subject="${esc(`${w.subject.type}:${w.subject.id}`)}" style="margin:0 0 10px;padding:12px 14px;border:2px solid ${tone.border};border-left-width:6px;border-radius:8px;background:${tone.bg};color:${tone.text}">` +
-    `<div style="font-size:15px;font-weight:700;line-height:1.4">&#9888; ${word}: ${esc(w.title)}</div>` +
+    `<div data-rule="${w.rule}" data-severity="${w.severity}" data-subject="${esc(`${w.subject.type}:${w.subject.id}`)}" data-tone="${word.tone}" style="margin:0 0 10px;padding:12px 14px;border:2px solid ${tone.border};border-left-width:6px;border-radius:8px;background:${tone.bg};color:${tone.text}">` +
+    `<div style="font-size:15px;font-weight:700;line-height:1.4">${ICON_SYMBOLS[word.icon]} ${word.label}: ${esc(w.title)}</div>` +
     (w.context ? `<div style="font-size:13px;line-height:1.4;color:${C.ink700}">${esc(w.context)}</div>` : "") +
     `<div style="font-size:14px;line-height:1.5;margin-top:4px;color:${C.ink900}">${esc(w.message)}</div>` +
     `<div style="font-size:13px;line-height:1.45;margin-top:6px;color:${C.ink700}"><strong>Rule:</strong> ${esc(citation(w.source))}. ${esc(w.governs)}</div></div>`
   );
 }
 
-function badge(label: string, held: boolean) {
-  const [border, bg, color] = held ? [C.caution.border, C.caution.bg, C.caution.text] : [C.ink200, "#ffffff", C.ink700];
-  return `<span style="display:inline-block;padding:2px 10px;border:${held ? 2 : 1}px solid ${border};border-radius:999px;background:${bg};color:${color};font-size:13px;font-weight:700;white-space:nowrap">${held ? "&#9888; " : ""}${esc(label)}</span>`;
+/** A state as a pill: the vocabulary's word, symbol and colours (the screens' StateBadge). */
+function badge(word: Word, code: string) {
+  const t = toneHex(word.tone);
+  return `<span data-state-badge="${esc(code)}" data-tone="${word.tone}" style="display:inline-block;padding:2px 10px;border:1px solid ${t.border};border-radius:999px;background:${t.bg};color:${t.text};font-size:13px;font-weight:700;white-space:nowrap">${ICON_SYMBOLS[word.icon]} <span data-part="label">${esc(word.label)}</span></span>`;
 }
+
+/** A word in its tone's text colour, with its symbol (a rejected truck, a late one, a low break). */
+const flag = (word: Word, extra = "") => `<strong style="color:${toneHex(word.tone).text}">${ICON_SYMBOLS[word.icon]} ${esc(word.label)}${extra}</strong>`;
 
 const item = (html: string) => `<li style="margin:0 0 8px;font-size:15px;line-height:1.5;color:${C.ink900}">${html}</li>`;
 const list = (items: string[]) => `<ul style="margin:0 0 10px;padding-left:20px">${items.join("")}</ul>`;
@@ -66,11 +70,11 @@ function placementsHtml(s: DigestSummary) {
     .map(
       (p) =>
         `<div style="margin:0 0 12px;padding:12px 14px;border:1px solid ${C.ink200};border-radius:8px">` +
-        `<div style="font-size:16px;font-weight:700;color:${C.ink950};line-height:1.35">${esc(p.element)} ${badge(p.stateLabel, p.state === "held")}</div>` +
+        `<div style="font-size:16px;font-weight:700;color:${C.ink950};line-height:1.35">${esc(p.element)} ${badge(wordFor("placement", p.state), p.state)}</div>` +
         `<div style="font-size:14px;color:${C.ink600};margin-top:2px">${esc([p.where, `start ${p.start}`].filter(Boolean).join(" · "))}</div>` +
         `<div style="font-size:15px;color:${C.ink900};margin-top:6px">${esc(p.volume)}</div>` +
         `<div style="font-size:14px;color:${C.ink700};margin-top:2px">${esc(p.signed)}</div>` +
-        (p.holdReason ? `<div style="font-size:14px;color:${C.caution.text};margin-top:4px"><strong>Held:</strong> ${esc(p.holdReason)}</div>` : "") +
+        (p.holdReason ? `<div style="font-size:14px;color:${toneHex(wordFor("placement", p.state).tone).text};margin-top:4px"><strong>${esc(p.stateLabel)}:</strong> ${esc(p.holdReason)}</div>` : "") +
         `</div>`,
     )
     .join("");
@@ -88,9 +92,9 @@ function trucksHtml(s: DigestSummary) {
     item(
       `<strong>${esc(l.ticket)}</strong> · ${esc(l.volume)}${l.placement ? ` · ${muted(l.placement)}` : ""}<br>` +
         `<span style="font-size:14px">${esc(l.times)}</span>` +
-        (l.late ? ` <strong style="color:${C.danger.text}">&#9888; Late</strong>` : "") +
-        (l.water ? `<br><strong style="color:${C.caution.text}">&#9888; ${esc(l.water)}</strong>` : "") +
-        (l.rejected ? `<br><strong style="color:${C.danger.text}">&#10005; Rejected:</strong> ${esc(l.rejected)}` : ""),
+        (l.late ? ` ${flag({ ...warningWord({ severity: "warning" }), label: "Late" })}` : "") +
+        (l.water ? `<br>${flag({ ...warningWord({ severity: "caution" }), label: l.water })}` : "") +
+        (l.rejected ? `<br>${flag(DELIVERY_STATUS_WORDS.rejected, ":")} ${esc(l.rejected)}` : ""),
     ),
   );
   return head + list(rows);
@@ -118,7 +122,7 @@ export function renderHtml(s: DigestSummary, subject: string, links: DigestLinks
   }
   if (s.weather.readings) body.push(section("Weather", para(esc(`${plural(s.weather.readings, "reading")}; air ${s.weather.airRange}.`))));
   if (s.specimens.length || s.breaks.length) {
-    const breaks = s.breaks.map((b) => item(b.low ? `<strong style="color:${C.danger.text}">&#9888; ${esc(b.text)}</strong>` : esc(b.text)));
+    const breaks = s.breaks.map((b) => item(b.low ? flag({ ...warningWord({ severity: "warning" }), label: b.text }) : esc(b.text)));
     body.push(
       section(
         "Specimens and breaks",

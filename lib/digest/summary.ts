@@ -1,7 +1,7 @@
 // The day in plain sentences, in the project's units and time zone: what the HTML and the text
 // parts of the digest both show. Pure.
 import { formatStrength, formatTemperature, formatVolume, formatWaterVolume, mmToIn, toDisplay, unitLabel } from "@/lib/concrete";
-import { STATE_LABELS } from "@/lib/placements/workflow";
+import { placementStateLabel } from "@/lib/ui/vocabulary";
 import type { PlacementState } from "@/lib/records/enums";
 import { localDate } from "@/lib/time/zone";
 import { attention, type Finding } from "@/lib/checks";
@@ -80,7 +80,7 @@ export function summarizeDay(day: DigestDay): DigestSummary {
       start: time(p.plannedStart),
       volume: volume || "Volume not recorded",
       state: p.state,
-      stateLabel: STATE_LABELS[p.state],
+      stateLabel: placementStateLabel(p.state),
       signed: p.signedAt && p.signedByName ? `Signed by ${p.signedByName} at ${time(p.signedAt)}` : "Not signed yet",
       holdReason: p.state === "held" ? p.holdReason : null,
     };

@@ -1,6 +1,6 @@
 // The readiness check before a placement: the superintendent answers each item (yes / no / not
 // applicable, with a note) and marks the placement ready; the inspector then clears or holds it.
-// Pure: used by the field screen to say what is still missing before "Mark ready" is offered.
+// Pure: used by the field screen to say what is still missing before "Ask for inspection" is offered.
 // The items follow the pre-placement inspection common to concrete inspection guides (forms,
 // reinforcement and cover, embedded items, cleanliness, access and placing equipment, consolidation,
 // weather protection, testing) [common practice]; the project specification governs the real list.
@@ -29,7 +29,7 @@ export type ReadinessVerdict = { ready: boolean; answered: number; total: number
 const hasText = (s: string | null | undefined) => typeof s === "string" && s.trim().length > 0;
 
 /**
- * What still stands between this readiness checklist and "Mark ready":
+ * What still stands between this readiness checklist and "Ask for inspection":
  * - there must be a readiness checklist with at least one item;
  * - every item must be answered (yes, no or not applicable);
  * - a "no" must say what is wrong and what is being done (a note), so the inspector can judge it;

@@ -16,7 +16,7 @@ import { assertUuid, lockRecord } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
 import type { RecordContext, RecordRow } from "@/lib/records/types";
 import { inTransaction } from "@/lib/records/write";
-import { describeAllowed, findTransition, rolesFor, TRANSITIONS, type PlacementState } from "./workflow";
+import { describeAllowed, describeForbidden, findTransition, TRANSITIONS, type PlacementState } from "./workflow";
 
 export const transitionSchema = z
   .object({
@@ -89,7 +89,7 @@ export async function transitionPlacement(
     const transition = findTransition(from, to);
     if (!transition) throw conflict(describeAllowed(from), { reason: "state", allowed: TRANSITIONS.filter((t) => t.from === from).map((t) => t.to) });
     if (!can(ctx.user, transition.action, role)) {
-      throw forbidden(`Only the ${rolesFor(transition).join(" or ")} can move a ${from} placement to ${to}.`);
+      throw forbidden(describeForbidden(transition));
     }
     if (to === "signed") {
       throw conflict("A placement is signed through the sign-off (typed name, signature and password), not by a state change.", {

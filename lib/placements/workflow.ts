@@ -4,6 +4,7 @@
 import { can, type Action } from "@/lib/auth/can";
 import { PROJECT_ROLES, type ProjectRole } from "@/lib/auth/roles";
 import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
+import { describeNextSteps, PLACEMENT_MOVE_WORDS, placementStateLabel } from "@/lib/ui/vocabulary";
 
 export { PLACEMENT_STATES, type PlacementState };
 
@@ -22,16 +23,6 @@ export const TRANSITIONS: readonly Transition[] = [
   { from: "cleared", to: "held", action: "placement.review" },
   { from: "placed", to: "signed", action: "placement.sign" },
 ];
-
-export const STATE_LABELS: Record<PlacementState, string> = {
-  planned: "Planned",
-  ready: "Ready for review",
-  cleared: "Cleared to place",
-  placing: "Placing",
-  placed: "Placed",
-  signed: "Signed",
-  held: "Held",
-};
 
 /** Roles allowed to make a transition (derived from the permissions, for messages and screens). */
 export function rolesFor(transition: Transition): ProjectRole[] {
@@ -53,16 +44,22 @@ export function canTransition(from: PlacementState, to: PlacementState, role: Pr
 }
 
 /**
- * "A placement that is ready can go to: cleared, held (inspector); planned (superintendent)."
- * Grouped by the role that may make them; said plainly when there is no way on.
+ * What can happen next to a placement in `state`, in words: "This placement is ready for inspection.
+ * Next: the superintendent can take it back to planned; the inspector can clear it to place or hold it."
+ * Grouped by the roles that may make the moves; said plainly when there is no way on.
  */
 export function describeAllowed(state: PlacementState): string {
-  const groups = new Map<string, PlacementState[]>();
+  const groups = new Map<string, { roles: string[]; phrases: string[] }>();
   for (const t of TRANSITIONS.filter((t) => t.from === state)) {
-    const who = rolesFor(t).join(", ");
-    groups.set(who, [...(groups.get(who) ?? []), t.to]);
+    const roles = rolesFor(t);
+    const group = groups.get(roles.join()) ?? { roles, phrases: [] };
+    group.phrases.push(PLACEMENT_MOVE_WORDS[t.to].phrase);
+    groups.set(roles.join(), group);
   }
-  if (groups.size === 0) return `A placement that is ${state} cannot change state; correct it with an amendment.`;
-  const parts = [...groups].map(([who, states]) => `${states.join(", ")} (${who})`);
-  return `A placement that is ${state} can go to: ${parts.join("; ")}.`;
+  return describeNextSteps("placement", placementStateLabel(state), [...groups.values()], "It cannot change state any more; correct it with an amendment.");
+}
+
+/** The refusal when another role's move is tried: "Only the inspector can move a placement from “Ready for inspection” to “Held”." */
+export function describeForbidden(transition: Transition): string {
+  return `Only the ${rolesFor(transition).join(" or the ")} can move a placement from “${placementStateLabel(transition.from)}” to “${placementStateLabel(transition.to)}”.`;
 }

@@ -17,7 +17,8 @@ import { isLocalDate } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
 import { assertUuid } from "@/lib/records/guards";
-import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE } from "./pdf-layout";
+import { DELIVERY_STATUS_WORDS, warningWord, wordFor } from "@/lib/ui/vocabulary";
+import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE, toneColour } from "./pdf-layout";
 
 export const reportDateSchema = z
   .string({ error: "Add ?date= with a date such as 2026-11-17" })
@@ -128,7 +129,8 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
   l.heading(`Warnings (${summary.warnings.length})`);
   if (!summary.warnings.length) l.text("No warnings for the day.", { color: MUTED });
   for (const w of summary.warnings) {
-    l.text(`${w.severity === "warning" ? "Warning" : "Caution"}: ${w.title}${w.context ? ` (${w.context})` : ""}`, { bold: true, color: w.severity === "warning" ? DANGER : CAUTION, gap: 1 });
+    const word = warningWord(w);
+    l.text(`${word.label}: ${w.title}${w.context ? ` (${w.context})` : ""}`, { bold: true, color: toneColour(word.tone), gap: 1 });
     l.text(w.message, { indent: 12, gap: 1 });
     l.text(`Rule: ${citation(w.source)}`, { indent: 12, size: 7, color: MUTED, gap: 4 });
   }
@@ -142,18 +144,19 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
   day.placements.forEach((p, i) => {
     const line = summary.placements[i];
     l.need(60);
-    l.text(`${line.element}  ·  ${line.stateLabel}`, { size: 10, bold: true, gap: 2 });
+    const state = wordFor("placement", line.state);
+    l.text(`${line.element}  ·  ${state.label}`, { size: 10, bold: true, color: toneColour(state.tone), gap: 2 });
     l.text(`${line.where || "No level or grid"} · start ${line.start} · ${line.volume}`, { gap: 1 });
     l.text(line.signed, { color: MUTED, gap: 2 });
-    if (line.holdReason) l.text(`Held: ${line.holdReason}`, { color: CAUTION, gap: 2 });
+    if (line.holdReason) l.text(`${state.label}: ${line.holdReason}`, { color: toneColour(state.tone), gap: 2 });
 
     const trucks = day.deliveries.filter((d) => d.placementId === p.id);
     const lines = summary.trucks.lines.filter((_, j) => day.deliveries[j].placementId === p.id);
     if (trucks.length) {
       l.row(["Truck", "Volume", "Times", "Notes"], [0.22, 0.09, 0.45, 0.24], { bold: true, color: MUTED });
       lines.forEach((t) => {
-        const notes = [t.late ? "LATE" : null, t.rejected ? `REJECTED: ${t.rejected}` : null, t.water].filter(Boolean).join("; ");
-        l.row([t.ticket, t.volume, t.times, notes || "-"], [0.22, 0.09, 0.45, 0.24], { color: t.rejected || t.late ? DANGER : undefined });
+        const notes = [t.late ? "Late" : null, t.rejected ? `${DELIVERY_STATUS_WORDS.rejected.label}: ${t.rejected}` : null, t.water].filter(Boolean).join("; ");
+        l.row([t.ticket, t.volume, t.times, notes || "-"], [0.22, 0.09, 0.45, 0.24], { color: t.rejected ? toneColour(DELIVERY_STATUS_WORDS.rejected.tone) : t.late ? DANGER : undefined });
       });
     } else l.text("No trucks recorded.", { color: MUTED });
     l.y -= 4;
@@ -259,7 +262,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     l.need(50);
     const top = l.y;
     l.text(`${what} · ${ROLE_LABELS[s.role]} · ${s.typedName}${s.signerName && s.signerName !== s.typedName ? ` (${s.signerName})` : ""}`, { bold: true, gap: 1 });
-    l.text(`Signed ${dateTime(s.signedAt)} · content ${s.hash.slice(0, 16)}`, { size: 7, color: MUTED, gap: 2 });
+    l.text(`Signed ${dateTime(s.signedAt)} · signature check code ${s.hash.slice(0, 16)}`, { size: 7, color: MUTED, gap: 2 });
     const drawn = dataUrlBytes(s.image);
     const img = drawn ? await embedImage(l, drawn.bytes, drawn.type) : null;
     if (img) {

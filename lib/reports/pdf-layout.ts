@@ -8,18 +8,27 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import fontkit from "@pdf-lib/fontkit";
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import { paletteRgb, type PaletteToken } from "@/lib/ui/palette";
+import { TONES, type Tone } from "@/lib/ui/vocabulary";
 import { woffToSfnt } from "./woff";
 
 const FONT_DIR = path.join(process.cwd(), "node_modules/@fontsource/ibm-plex-mono/files");
 const fontFile = (weight: 400 | 600) => woffToSfnt(readFileSync(path.join(FONT_DIR, `ibm-plex-mono-latin-${weight}-normal.woff`)));
 
 export const PAGE = { width: 612, height: 792, margin: 40 }; // US Letter, points
-export const INK = rgb(0.09, 0.11, 0.14);
-export const MUTED = rgb(0.38, 0.42, 0.47);
-export const DANGER = rgb(0.58, 0.11, 0.08);
-export const CAUTION = rgb(0.54, 0.31, 0);
-export const ACCENT = rgb(0.05, 0.37, 0.34);
-export const RULE = rgb(0.82, 0.84, 0.87);
+// Colours from the app's palette (lib/ui/palette.ts), so the PDF matches the screens and the e-mail.
+const colour = (token: PaletteToken) => {
+  const { r, g, b } = paletteRgb(token);
+  return rgb(r, g, b);
+};
+/** The text colour of a state's or a severity's tone (lib/ui/vocabulary.ts). */
+export const toneColour = (tone: Tone) => colour(TONES[tone].text);
+export const INK = colour("ink-900");
+export const MUTED = colour("ink-600");
+export const DANGER = toneColour("danger");
+export const CAUTION = toneColour("caution");
+export const ACCENT = colour("lichen-700");
+export const RULE = colour("ink-200");
 
 type Style = { size?: number; bold?: boolean; color?: ReturnType<typeof rgb>; indent?: number; gap?: number };
 

@@ -10,7 +10,7 @@ export const PLACEMENT_COLUMNS = [
   { key: "trucks", label: "Trucks" },
   { key: "lateTrucks", label: "Late trucks" },
   { key: "waterAddedL", label: "Water added (L)" },
-  { key: "testsOut", label: "Tests out of tolerance" },
+  { key: "testsOut", label: "Out-of-tolerance tests" },
   { key: "evaporationRisk", label: "Highest evaporation risk" },
   { key: "state", label: "State" },
   { key: "signedBy", label: "Signed by" },

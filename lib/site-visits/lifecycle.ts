@@ -8,6 +8,7 @@ import { z } from "zod";
 import { can, type Action } from "@/lib/auth/can";
 import { PROJECT_ROLES, type ProjectRole } from "@/lib/auth/roles";
 import { FINDING_STATES, SITE_VISIT_STATES, type FindingState, type SiteVisitState } from "@/lib/records/enums";
+import { describeNextSteps, FINDING_MOVE_WORDS, SITE_VISIT_MOVE_WORDS, wordFor, type MoveWords } from "@/lib/ui/vocabulary";
 
 export type LifecycleType = "site-visits" | "findings";
 type StateOf<T extends LifecycleType> = T extends "site-visits" ? SiteVisitState : FindingState;
@@ -29,8 +30,6 @@ export const FINDING_MOVES: readonly LifecycleMove<"findings">[] = [
   { from: "closed", to: "open", action: "finding.close", needs: "reason", verb: "reopen" },
 ];
 
-export const VISIT_STATE_LABELS: Record<SiteVisitState, string> = { draft: "Draft", submitted: "Submitted", signed: "Signed" };
-export const FINDING_STATE_LABELS: Record<FindingState, string> = { open: "Open", answered: "Answered", closed: "Closed" };
 
 const text = (label: string, max: number) =>
   z.string({ error: `${label} must be text` }).trim().max(max, `${label} can be at most ${max} characters`).optional();
@@ -65,17 +64,25 @@ export function allowedMoves(type: LifecycleType, state: string, role: ProjectRo
 }
 
 const NOUN: Record<LifecycleType, string> = { "site-visits": "visit report", findings: "finding" };
+const labelOf = (type: LifecycleType, state: string) => wordFor(type === "site-visits" ? "site-visit" : "finding", state).label;
+const phraseOf = (type: LifecycleType, to: string) => ((type === "site-visits" ? SITE_VISIT_MOVE_WORDS : FINDING_MOVE_WORDS) as Record<string, MoveWords>)[to]?.phrase ?? to;
 
-/** "A finding that is answered can be: closed, open (inspector)." Said plainly when there is no way on. */
+/**
+ * What can happen next, in words: "This finding is correction reported. Next: the inspector can close
+ * it or reopen it." Said plainly when there is no way on.
+ */
 export function describeMoves(type: LifecycleType, state: string): string {
-  const moves = movesOf(type).filter((m) => m.from === state);
   if (type === "site-visits" && state === "signed") return "This visit report is signed; add an amendment instead.";
-  if (type === "site-visits" && state === "submitted") {
-    const to = moves.map((m) => `${m.to} (${rolesForMove(m).join(", ")})`).join("; ");
-    return `A submitted visit report can go to: ${to}; it is signed through the sign-off.`;
+  const groups = new Map<string, { roles: string[]; phrases: string[] }>();
+  for (const m of movesOf(type).filter((m) => m.from === state)) {
+    const roles = rolesForMove(m);
+    const group = groups.get(roles.join()) ?? { roles, phrases: [] };
+    group.phrases.push(phraseOf(type, m.to));
+    groups.set(roles.join(), group);
   }
-  if (moves.length === 0) return `A ${NOUN[type]} that is ${state} cannot change state.`;
-  return `A ${NOUN[type]} that is ${state} can go to: ${moves.map((m) => `${m.to} (${rolesForMove(m).join(", ")})`).join("; ")}.`;
+  const whenNone = type === "site-visits" ? "It is signed through the sign-off." : "It cannot change state.";
+  const text = describeNextSteps(NOUN[type], labelOf(type, state), [...groups.values()], whenNone);
+  return type === "site-visits" && state === "submitted" ? `${text.slice(0, -1)}; it is signed through the sign-off.` : text;
 }
 
 export type MoveCheck = { ok: true; move: LifecycleMove } | { ok: false; code: "state" | "forbidden" | "invalid_input"; message: string; field?: string };
@@ -92,7 +99,7 @@ export function checkMove(type: LifecycleType, from: string, args: LifecycleArgs
   const move = findMove(type, from, args.to);
   if (!move) return { ok: false, code: "state", message: describeMoves(type, from) };
   if (role === null || !can({ isAdmin: false }, move.action, role)) {
-    return { ok: false, code: "forbidden", message: `Only the ${rolesForMove(move).join(" or ")} can ${move.verb} a ${from} ${NOUN[type]}.` };
+    return { ok: false, code: "forbidden", message: `Only the ${rolesForMove(move).join(" or the ")} can ${move.verb} a ${NOUN[type]} that is ${labelOf(type, from).toLowerCase()}.` };
   }
   if (move.needs === "response" && !args.response) {
     return { ok: false, code: "invalid_input", field: "response", message: "Say what was done to fix it" };

@@ -65,8 +65,8 @@ test("field screens work offline, sync every record once, and resolve a conflict
   await shell.nav("Diary");
   await expect(page.getByRole("heading", { name: "Daily diary" })).toBeVisible();
   await shell.expectMarked();
-  await shell.nav("Conflicts");
-  await expect(page.getByRole("heading", { name: "Conflicts" })).toBeVisible();
+  await shell.nav("To reconcile");
+  await expect(page.getByRole("heading", { name: "To reconcile" })).toBeVisible();
   await shell.expectMarked();
   await shell.nav("Today");
   await expect(page.getByRole("heading", { name: "Today", level: 1 })).toBeVisible();
@@ -105,7 +105,7 @@ test("field screens work offline, sync every record once, and resolve a conflict
   await expect(page.getByTestId("diary-crew-row").filter({ hasText: `Finishers ${stamp}` })).toBeVisible();
   await shell.expectMarked();
   await shell.screenshot("diary-offline");
-  await shell.nav("Conflicts");
+  await shell.nav("To reconcile");
   await expect(page.getByTestId("no-conflicts")).toBeVisible();
   await shell.screenshot("conflicts-offline");
 
@@ -172,7 +172,7 @@ test("field screens work offline, sync every record once, and resolve a conflict
   await shellOnline.nav("Diary");
   await expect(again.getByTestId("diary-crew-row").filter({ hasText: `Finishers ${stamp}` })).toBeVisible();
   await shellOnline.screenshot("diary-online");
-  await shellOnline.nav("Conflicts");
+  await shellOnline.nav("To reconcile");
   await shellOnline.screenshot("conflicts-online");
   await shellOnline.nav("Today");
   await reopened.open(placementId);

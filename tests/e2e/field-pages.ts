@@ -27,8 +27,8 @@ export class FieldShellPage {
     expect(await this.page.evaluate(() => (window as unknown as { __marker?: number }).__marker)).toBe(1);
   }
 
-  async nav(label: "Today" | "Diary" | "Conflicts") {
-    await this.page.getByTestId(`field-nav-${label.toLowerCase()}`).click();
+  async nav(label: "Today" | "Diary" | "To reconcile") {
+    await this.page.getByTestId(`field-nav-${label.toLowerCase().replace(/\s+/g, "-")}`).click();
   }
 
   async screenshot(name: string) {

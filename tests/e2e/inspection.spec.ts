@@ -61,11 +61,11 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
   await expect(sam.page.getByTestId("transition-ready")).toBeEnabled();
   await bothSizes(sam, "readiness-superintendent", PHONE);
   await sam.page.getByTestId("transition-ready").click();
-  await expect(sam.state()).toHaveText("Ready for review");
+  await expect(sam.state()).toHaveText("Ready for inspection");
   await sam.waitAllSaved();
 
   // Ines sees it ready with the answers read-only, and holds it with a reason.
-  await ines.waitForState(id, "Ready for review");
+  await ines.waitForState(id, "Ready for inspection");
   await expect(ines.page.getByTestId("readiness-review-note")).toBeVisible();
   await expect(ines.item("cover")).toContainText("Chairs at the sump being raised");
   await expect(ines.item("cover").getByTestId("readiness-answer-yes")).toHaveCount(0);
@@ -90,12 +90,12 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
   await sam.open(id);
   await sam.answer("cover", "yes", "Re-chaired; 50 mm measured at the sump");
   await sam.page.getByTestId("transition-ready").click();
-  await expect(sam.state()).toHaveText("Ready for review");
+  await expect(sam.state()).toHaveText("Ready for inspection");
   await expect(sam.page.getByTestId("hold-banner")).toHaveCount(0);
   await sam.waitAllSaved();
 
   // Ines clears it.
-  await ines.waitForState(id, "Ready for review");
+  await ines.waitForState(id, "Ready for inspection");
   await ines.page.getByTestId("transition-cleared").click();
   await expect(ines.state()).toHaveText("Cleared to place");
   await ines.waitAllSaved();

@@ -62,13 +62,13 @@ test("visit with a finding: open → answered → closed, then the report is sub
   await samFinding.getByTestId("finding-answer").click();
   await samFinding.getByTestId("finding-move-text").fill("Ties cut back 25 mm and patched; photo in the diary");
   await samFinding.getByTestId("finding-move-save").click();
-  await expect(samFinding.getByTestId("finding-state")).toHaveText("Answered");
+  await expect(samFinding.getByTestId("finding-state")).toHaveText("Correction reported");
   await sam.waitAllSaved();
 
   // Ines sees the answer, closes the finding, submits and signs the report.
   await expect(async () => {
     await ines.page.goto(visitUrl);
-    await expect(finding.getByTestId("finding-state")).toHaveText("Answered", { timeout: 8_000 });
+    await expect(finding.getByTestId("finding-state")).toHaveText("Correction reported", { timeout: 8_000 });
   }).toPass({ timeout: 60_000 });
   await expect(finding.getByTestId("finding-response")).toContainText("Ties cut back");
   await finding.getByTestId("finding-close").click();

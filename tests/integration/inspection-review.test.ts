@@ -49,7 +49,7 @@ describe("clear or hold", () => {
     const clear = await move(s.team.superintendent, id, { to: "cleared", baseVersion: 2 });
     const hold = await move(s.team.superintendent, id, { to: "held", reason: "I would like to wait", baseVersion: 2 });
     expect([clear.status, hold.status]).toEqual([403, 403]);
-    expect(hold.json.error.message).toBe("Only the inspector can move a ready placement to held.");
+    expect(hold.json.error.message).toBe("Only the inspector can move a placement from “Ready for inspection” to “Held”.");
     expect(await stateOf(id)).toMatchObject({ state: "ready", version: 2, holdReason: null });
   });
 
@@ -69,7 +69,7 @@ describe("clear or hold", () => {
     await move(s.team.inspector, id, { to: "held", reason: "Cover short at SW-3", baseVersion: 2 });
     const whileHeld = await move(s.team.superintendent, id, { to: "placing", baseVersion: 3 });
     expect(whileHeld.status).toBe(409);
-    expect(whileHeld.json.error.message).toBe("A placement that is held can go to: ready (superintendent).");
+    expect(whileHeld.json.error.message).toBe("This placement is held. Next: the superintendent can ask for inspection.");
     // fixed, ready again, cleared: now it may start
     await move(s.team.superintendent, id, { to: "ready", baseVersion: 3 });
     await move(s.team.inspector, id, { to: "cleared", baseVersion: 4 });

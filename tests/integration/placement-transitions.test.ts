@@ -53,7 +53,7 @@ describe("placement transitions", () => {
     const p = await makeRecord("placements", s.project.id, team);
     const res = await move(team.superintendent, p.id, { to: "placed", baseVersion: 1 });
     expect(res.status).toBe(409);
-    expect(res.json.error.message).toBe("A placement that is planned can go to: ready (superintendent).");
+    expect(res.json.error.message).toBe("This placement is planned. Next: the superintendent can ask for inspection.");
     expect(res.json.error.allowed).toEqual(["ready"]);
   });
 

@@ -64,9 +64,13 @@ describe("placement workflow", () => {
     for (const role of ROLES) for (const state of PLACEMENT_STATES) expect(canTransition(state, state, role)).toBe(false);
   });
 
-  it("says which moves are allowed now, and by whom", () => {
-    expect(describeAllowed("ready")).toBe("A placement that is ready can go to: planned (superintendent); cleared, held (inspector).");
-    expect(describeAllowed("placed")).toBe("A placement that is placed can go to: signed (inspector).");
-    expect(describeAllowed("signed")).toMatch(/cannot change state; correct it with an amendment/);
+  it("says in plain words which moves are allowed now, and by whom, never a raw state code", () => {
+    expect(describeAllowed("ready")).toBe(
+      "This placement is ready for inspection. Next: the superintendent can take it back to planned; the inspector can clear it to place or hold it.",
+    );
+    expect(describeAllowed("placed")).toBe("This placement is placed. Next: the inspector can sign it off.");
+    expect(describeAllowed("held")).toBe("This placement is held. Next: the superintendent can ask for inspection.");
+    expect(describeAllowed("signed")).toMatch(/cannot change state any more; correct it with an amendment/);
+    for (const state of PLACEMENT_STATES) expect(describeAllowed(state)).not.toMatch(/can go to:|\(inspector\)|\bcleared, held\b/);
   });
 });

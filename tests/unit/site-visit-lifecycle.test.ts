@@ -53,7 +53,7 @@ describe("finding lifecycle: open → answered → closed, reopen → open", () 
   it("a move that does not exist is 'state' and says where the finding can go", () => {
     const r = checkMove("findings", "closed", { to: "answered", response: "Done" }, "superintendent");
     expect(r).toMatchObject({ ok: false, code: "state" });
-    expect(!r.ok && r.message).toContain("open (inspector)");
+    expect(!r.ok && r.message).toBe("This finding is closed. Next: the inspector can reopen it.");
   });
 
   it("answering needs the answer, reopening needs the reason", () => {

@@ -5,7 +5,8 @@ import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
 import { listUserProjects } from "@/lib/users/queries";
 import type { SessionUser } from "@/lib/auth/options";
-import { STATE_LABELS, type PlacementState } from "@/lib/placements/workflow";
+import { StateBadge } from "@/components/ui/state-badge";
+import type { PlacementState } from "@/lib/records/enums";
 import { listRecords } from "@/lib/records/read";
 
 export const metadata: Metadata = { title: "Today" };
@@ -76,7 +77,7 @@ export default async function TodayPage() {
                           <span className="block font-semibold">{pl.element}</span>
                           <span className="text-sm text-muted">{pl.start}</span>
                         </span>
-                        <span className="rounded-full border border-ink-300 px-2.5 py-1 text-xs font-semibold">{STATE_LABELS[pl.state]}</span>
+                        <StateBadge kind="placement" code={pl.state} size="sm" testId="placement-state" />
                       </Link>
                     </li>
                   ))}

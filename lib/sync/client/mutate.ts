@@ -17,7 +17,7 @@
 import { z } from "zod";
 import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
-import { describeAllowed, findTransition, rolesFor, type PlacementState } from "@/lib/placements/workflow";
+import { describeAllowed, describeForbidden, findTransition, rolesFor, type PlacementState } from "@/lib/placements/workflow";
 import { assertVisitNotSigned } from "./site-visits";
 import { getMeta, setMeta, type LocalRecord, type OutboxEntry, type SyncDb } from "./db";
 import { LocalWriteError, validationError } from "./errors";
@@ -273,7 +273,7 @@ export async function transitionLocal(db: SyncDb, placementId: string, to: Place
     if (!transition) throw new LocalWriteError("state", describeAllowed(from));
     const project = await db.projects.get(row.projectId);
     if (project && !rolesFor(transition).includes(project.role)) {
-      throw new LocalWriteError("forbidden", `Only the ${rolesFor(transition).join(" or ")} can move a ${from} placement to ${args.to}.`);
+      throw new LocalWriteError("forbidden", describeForbidden(transition));
     }
     const waiting = await entriesFor(db, "placements", placementId);
     const mutationId = await appendEntry(db, {

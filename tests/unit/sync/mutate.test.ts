@@ -169,7 +169,7 @@ describe("deletes, transitions and signed records", () => {
     await transitionLocal(db, id, "ready");
     expect((await db.records("placements").get(id))?.state).toBe("ready");
     // Clearing belongs to the inspector.
-    await expect(transitionLocal(db, id, "cleared")).rejects.toMatchObject({ code: "forbidden", message: "Only the inspector can move a ready placement to cleared." });
+    await expect(transitionLocal(db, id, "cleared")).rejects.toMatchObject({ code: "forbidden", message: "Only the inspector can move a placement from “Ready for inspection” to “Cleared to place”." });
     await db.projects.put(project(PROJECT_ID, "inspector"));
     await expect(transitionLocal(db, id, "held")).rejects.toBeInstanceOf(LocalValidationError);
     await transitionLocal(db, id, "held", "Rebar cover short at grid C");

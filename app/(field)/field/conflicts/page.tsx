@@ -1,8 +1,9 @@
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { ConflictsScreen } from "@/components/field/conflicts-screen";
+import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 
-export const metadata: Metadata = { title: "Conflicts" };
+export const metadata: Metadata = { title: RECONCILE_WORDS.label };
 
 export default function Page() {
   return (

@@ -9,7 +9,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { formatVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
-import { STATE_LABELS } from "@/lib/placements/workflow";
+import { StateBadge } from "@/components/ui/state-badge";
 import { loadDiaryReview, type DiaryReview } from "@/lib/review/diary-detail";
 
 export const metadata: Metadata = { title: "Daily diary" };
@@ -84,7 +84,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
           <Empty>No placements planned for this day.</Empty>
         ) : (
           <MiniTable
-            head={["Element", "Mix", "Placed", "Trucks", "Late", "Tests out", "State"]}
+            head={["Element", "Mix", "Placed", "Trucks", "Late", "Out-of-tolerance tests", "State"]}
             rows={data.placements.map((p) => ({
               key: p.id,
               tone: p.hasWarnings ? "danger" : undefined,
@@ -95,7 +95,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
                 p.trucks,
                 p.lateTrucks,
                 p.testsOut,
-                STATE_LABELS[p.state],
+                <StateBadge key="s" kind="placement" code={p.state} size="sm" testId="placement-state" />,
               ],
             }))}
           />

@@ -7,8 +7,7 @@ import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
 import { formatLength, formatTemperature, formatVolume, formatWaterVolume, formatSpeed, formatEvaporation, type UnitSystem } from "@/lib/concrete";
 import { AppError } from "@/lib/errors";
-import { STATE_LABELS } from "@/lib/placements/workflow";
-import type { PlacementState } from "@/lib/records/enums";
+import { placementStateLabel } from "@/lib/ui/vocabulary";
 import { loadPlacementPrint } from "@/lib/signoff/print";
 
 export const metadata: Metadata = { title: "Placement record" };
@@ -108,7 +107,7 @@ export default async function PlacementPrintPage({ params }: { params: Promise<{
           {n(p.leastDimensionMm) !== null ? ` · least dimension ${formatLength(n(p.leastDimensionMm)!, units)}` : ""} · start {when(p.plannedStart, tz)}
         </p>
         <p className="mt-1 text-base font-semibold" data-testid="print-state">
-          State: {STATE_LABELS[s(p.state) as PlacementState] ?? s(p.state)}
+          State: {placementStateLabel(s(p.state))}
         </p>
       </header>
 
@@ -126,7 +125,7 @@ export default async function PlacementPrintPage({ params }: { params: Promise<{
               </p>
               <p className="text-sm">{when(v.signOff.signedAt, tz)}</p>
               <p className="mt-2 text-xs">
-                SHA-256 at signing: <code className="break-all font-mono" data-testid="print-hash">{v.signOff.contentHash}</code>
+                Signature check code (SHA-256 of the record at signing): <code className="break-all font-mono" data-testid="print-hash">{v.signOff.contentHash}</code>
               </p>
               <p className="mt-1 text-sm font-semibold" data-testid="print-verify">
                 {v.matches ? "Verified when printed: the stored record matches what was signed." : "WARNING: the stored record no longer matches what was signed."}

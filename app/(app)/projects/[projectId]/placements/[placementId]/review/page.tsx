@@ -13,7 +13,8 @@ import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { GOVERNS, citation } from "@/lib/checks";
 import { AppError } from "@/lib/errors";
-import { STATE_LABELS } from "@/lib/placements/workflow";
+import { StateBadge } from "@/components/ui/state-badge";
+import { SEVERITY_WORDS, severityOf, TONES, warningWord, wordFor } from "@/lib/ui/vocabulary";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
 
 export const metadata: Metadata = { title: "Placement review" };
@@ -76,7 +77,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
       <Section title="Placement" testId="section-placement">
         <Facts
           items={[
-            ["State", <span key="s" data-testid="placement-state">{STATE_LABELS[p.state as keyof typeof STATE_LABELS]}{p.state === "held" && p.holdReason ? `: ${p.holdReason}` : ""}</span>],
+            ["State", <span key="s" className="inline-flex flex-wrap items-center gap-2"><StateBadge kind="placement" code={p.state as string} testId="placement-state" />{p.state === "held" && p.holdReason ? <span className="font-semibold" data-testid="placement-hold-reason">{p.holdReason as string}</span> : null}</span>],
             ["Planned start", dayTime.format(new Date(p.plannedStart as string))],
             ["Element type", p.elementType as string],
             ["Least dimension", num(p.leastDimensionMm) === null ? "—" : formatLength(num(p.leastDimensionMm)!, units)],
@@ -103,8 +104,11 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         ) : (
           <ul className="space-y-1.5">
             {data.warnings.map((w, i) => (
-              <li key={i} className={w.severity === "warning" ? "border-l-4 border-danger-600 pl-2" : "border-l-4 border-caution-600 pl-2"} data-testid="warning" data-rule={w.rule}>
-                <p className="text-sm font-semibold">{w.severity === "warning" ? "Warning" : "Caution"}: {w.title}</p>
+              <li key={i} className={`rounded border-l-4 px-2 py-1 ${TONES[warningWord(w).tone].className}`} data-testid="warning" data-rule={w.rule}>
+                <p className="flex items-center gap-1.5 text-sm font-semibold">
+                  <StateBadge kind="severity" code={severityOf(w)} size="sm" />
+                  {w.title}
+                </p>
                 <p className="text-sm">{w.message}</p>
                 <p className="text-xs text-muted">Rule: {citation(w.source)}</p>
               </li>
@@ -133,7 +137,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
               const water = num(d.waterAddedL);
               return {
                 key: d.id as string,
-                tone: d.status === "rejected" ? "caution" : late ? "danger" : undefined,
+                tone: d.status === "rejected" ? wordFor("delivery", "rejected").tone : late ? SEVERITY_WORDS.warning.tone : undefined,
                 cells: [
                   <span key="t" className="font-semibold">{d.ticketNumber as string}{d.truck ? <span className="ml-1 font-normal text-muted">truck {d.truck as string}</span> : null}</span>,
                   <span key="v">
@@ -149,7 +153,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                     {water ? `${formatWaterVolume(water, units)}${d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}${d.waterAuthorisedBy ? `, authorised ${d.waterAuthorisedBy}` : ""}` : "—"}
                     {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="waterAddedL" quantity="waterVolume" valueSI={water} unitSystem={units} label="Water added" testId={`correct-water-${d.ticketNumber}`} /> : null}
                   </span>,
-                  d.status === "rejected" ? <span key="s" className="font-semibold text-danger-700">Rejected{d.rejectReason ? `: ${d.rejectReason}` : ""}</span> : "Accepted",
+                  <span key="s" className="flex flex-col items-start gap-0.5"><StateBadge kind="delivery" code={d.status as string} size="sm" testId="delivery-status" />{d.status === "rejected" && d.rejectReason ? <span className="text-xs">{d.rejectReason as string}</span> : null}</span>,
                   <AuditTrail key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
                 ],
               };
@@ -261,7 +265,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                 ) : null}
                 <div>
                   <p className="font-semibold">{s.typedName} <span className="font-normal text-muted">({s.role}{s.signerName && s.signerName !== s.typedName ? `, account ${s.signerName}` : ""})</span></p>
-                  <p className="text-xs text-muted">{dayTime.format(new Date(s.signedAt!))} · content hash {s.contentHash.slice(0, 12)}…</p>
+                  <p className="text-xs text-muted">{dayTime.format(new Date(s.signedAt!))} · signature check code {s.contentHash.slice(0, 12)}…</p>
                 </div>
               </div>
             ))
