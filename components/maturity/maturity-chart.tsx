@@ -2,15 +2,16 @@
 
 import { CartesianGrid, Legend, Line, LineChart, XAxis, YAxis } from "recharts";
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
+import { paletteHex } from "@/lib/ui/palette";
 
-const INK_600 = "#445466";
-const INK_200 = "#cdd5de";
+const INK_600 = paletteHex("ink-600");
+const INK_200 = paletteHex("ink-200");
 // One colour and one dash pattern per sensor, so the lines differ without relying on colour alone.
 const LINES = [
-  { stroke: "#187467", dash: undefined },
-  { stroke: "#2f4a8a", dash: "6 3" },
-  { stroke: "#6b3f8f", dash: "2 3" },
-  { stroke: "#445466", dash: "10 4" },
+  { stroke: paletteHex("lichen-600"), dash: undefined },
+  { stroke: paletteHex("ink-900"), dash: "6 3" },
+  { stroke: paletteHex("caution-700"), dash: "2 3" },
+  { stroke: paletteHex("ink-500"), dash: "10 4" },
 ];
 const axisTick = { fill: INK_600, fontSize: 12 };
 
