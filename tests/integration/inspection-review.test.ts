@@ -53,10 +53,10 @@ describe("clear or hold", () => {
     expect(await stateOf(id)).toMatchObject({ state: "ready", version: 2, holdReason: null });
   });
 
-  it("an inspector of another project cannot clear or hold: 403 through this project, 404 through theirs", async () => {
+  it("an inspector of another project cannot clear or hold: 404 through this project (not a member), 404 through theirs", async () => {
     const id = await readyPlacement();
-    expect((await move(other.team.inspector, id, { to: "cleared", baseVersion: 2 })).status).toBe(403);
-    expect((await move(other.team.inspector, id, { to: "held", reason: "Not mine", baseVersion: 2 })).status).toBe(403);
+    expect((await move(other.team.inspector, id, { to: "cleared", baseVersion: 2 })).status).toBe(404);
+    expect((await move(other.team.inspector, id, { to: "held", reason: "Not mine", baseVersion: 2 })).status).toBe(404);
     expect((await move(other.team.inspector, id, { to: "cleared", baseVersion: 2 }, other.project.id)).status).toBe(404);
     expect(await stateOf(id)).toMatchObject({ state: "ready", version: 2 });
   });
@@ -125,7 +125,7 @@ describe("an amendment can itself be signed", () => {
     expect(wrong.status).toBe(401);
     expect(wrong.json.error.message).toBe("That password is not right. Nothing was signed.");
     expect((await signAmendment(s.team.office, id, amendmentId, { baseVersion: 2 })).status).toBe(409);
-    expect((await signAmendment(other.team.inspector, id, amendmentId)).status).toBe(403);
+    expect((await signAmendment(other.team.inspector, id, amendmentId)).status).toBe(404);
     expect(await signOffsOf(amendmentId)).toHaveLength(0);
   });
 
