@@ -5,6 +5,7 @@ import { db, type Transaction } from "@/db";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
+import { getRole } from "@/lib/users/queries";
 import { SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushRequest, type PushResponse } from "../protocol";
 import { applyMutation, type Applied } from "./apply";
 
@@ -49,6 +50,16 @@ export function isTransient(error: unknown): boolean {
   );
 }
 
+/**
+ * The payload is kept so a person can see a refused change, except when the sender may not make
+ * that kind of change at all (not a member, or a role without the write): otherwise a read-only
+ * account could store 16 KB per change without end.
+ */
+const keptArgs = (applied: Applied, m: Mutation) =>
+  applied.result === "rejected" && (applied.reason === "forbidden" || applied === UNKNOWN_PROJECT) ? {} : m.args;
+
+const UNKNOWN_PROJECT: Applied = { result: "rejected", reason: "not_found", message: "Project not found." };
+
 export async function pushMutations(user: SessionUser, request: PushRequest, hooks: PushHooks = {}): Promise<PushResponse> {
   if (request.schemaVersion !== SYNC_SCHEMA_VERSION) {
     throw new AppError("conflict", "This app version is out of date. Reload the app to sync.", undefined, { reason: "schema" });
@@ -70,16 +81,19 @@ export async function pushMutations(user: SessionUser, request: PushRequest, hoo
       }
       if (m.id > client.lastMutationId + 1) throw new SyncGapError(client.lastMutationId + 1);
 
-      const applied = await applyMutation(tx, user, request.clientId, m);
+      // A project the sender does not belong to (or that does not exist) is refused before any write,
+      // like the project routes: the same answer for both, and nothing of the sender's is kept.
+      const member = (await getRole(user.id, m.projectId, tx)) !== null;
+      const applied: Applied = member ? await applyMutation(tx, user, request.clientId, m) : UNKNOWN_PROJECT;
       await hooks.afterApply?.(tx, m, applied);
       await tx.insert(syncMutations).values({
         clientId: request.clientId,
         mutationId: m.id,
         name: m.name,
         recordType: m.recordType,
-        projectId: m.projectId,
+        projectId: member ? m.projectId : null,
         recordId: m.recordId,
-        args: m.args,
+        args: keptArgs(applied, m),
         baseVersion: m.baseVersion ?? null,
         result: applied.result,
         reason: applied.reason ?? null,
