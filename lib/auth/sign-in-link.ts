@@ -3,6 +3,7 @@ import { signInTokens } from "@/db/schema";
 import { appOrigin, sendMail } from "@/lib/mail/transport";
 import { signInLinkMail } from "@/lib/mail/templates";
 import { findUserByEmail } from "@/lib/users/queries";
+import { safeCallbackPath } from "./callback-url";
 import { newToken } from "./tokens";
 
 export const LINK_MINUTES = 15;
@@ -20,7 +21,6 @@ export async function requestSignInLink(email: string, callbackUrl = "/"): Promi
     userId: user.id,
     expiresAt: new Date(Date.now() + LINK_MINUTES * 60_000),
   });
-  const safeCallback = callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/";
-  const url = `${appOrigin()}/signin/link?token=${encodeURIComponent(token)}&callbackUrl=${encodeURIComponent(safeCallback)}`;
+  const url = `${appOrigin()}/signin/link?token=${encodeURIComponent(token)}&callbackUrl=${encodeURIComponent(safeCallbackPath(callbackUrl, "/"))}`;
   await sendMail({ to: user.email, ...signInLinkMail(user.name, url, LINK_MINUTES) });
 }
