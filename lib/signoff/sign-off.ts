@@ -29,7 +29,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
   const role = await authorizeAny(db, user, projectId, ["placement.sign"]);
-  await checkSignerPassword(user, body.password);
+  await checkSignerPassword(user, body.password, { projectId, recordType: "placements", recordId: placementId });
   return inTransaction({ user }, undefined, async (tx) => {
     const snapshot = await placementSnapshot(tx, projectId, placementId);
     if (!snapshot.placement) throw notFound("Placement");
