@@ -5,7 +5,8 @@ const baseURL = process.env.PLAYWRIGHT_BASE_URL ?? `http://localhost:${port}`;
 process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ??= ".data/test-run/playwright.json";
 
 export default defineConfig({
-  testDir: "tests/e2e",
+  testDir: "tests",
+  testMatch: ["e2e/**/*.spec.ts", "security/**/*.spec.ts"],
   outputDir: ".data/test-run/playwright-artifacts",
   workers: 1,
   fullyParallel: false,
