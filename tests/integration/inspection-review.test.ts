@@ -143,7 +143,11 @@ describe("an amendment can itself be signed", () => {
     const v1 = await callRoute(verifyRoute, { user: s.team.owner, params: { projectId: s.project.id, id } });
     expect(v1.json.amendments[0]).toMatchObject({ matches: true, signOff: { typedName: "Olu Okafor", signerName: s.team.office.name, role: "office" } });
 
-    await db.execute(sql`update amendments set what = 'Truck 3 arrived at 11:52' where id = ${amendmentId}`);
+    // Behind the app's back, as the database owner (amendments are append-only for the app, drizzle/0011).
+    await db.transaction(async (tx) => {
+      await tx.execute(sql`set local session_replication_role = replica`);
+      await tx.execute(sql`update amendments set what = 'Truck 3 arrived at 11:52' where id = ${amendmentId}`);
+    });
     const v2 = await callRoute(verifyRoute, { user: s.team.owner, params: { projectId: s.project.id, id } });
     expect(v2.json.amendments[0].matches).toBe(false);
   });
