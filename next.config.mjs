@@ -1,3 +1,5 @@
+import { securityHeaders, storageOrigin } from "./lib/http/security-headers.mjs";
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
@@ -6,6 +8,7 @@ const nextConfig = {
   serverExternalPackages: ["@node-rs/argon2", "pg", "pg-boss", "nodemailer"],
   async headers() {
     return [
+      ...securityHeaders({ storageOrigin: storageOrigin(), dev: process.env.NODE_ENV !== "production" }),
       {
         source: "/sw.js",
         headers: [

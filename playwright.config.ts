@@ -12,8 +12,10 @@ const serve = pair
   : `node scripts/serve.mjs -H 127.0.0.1 -p ${port}`;
 
 export default defineConfig({
-  testDir: "tests/e2e",
-  ...(pair ? { testMatch: ["field-offline.spec.ts", "sign-in.spec.ts", "pair.spec.ts"] } : { testIgnore: ["pair.spec.ts"] }),
+  testDir: "tests",
+  ...(pair
+    ? { testMatch: ["e2e/field-offline.spec.ts", "e2e/sign-in.spec.ts", "e2e/pair.spec.ts"] }
+    : { testMatch: ["e2e/**/*.spec.ts", "security/**/*.spec.ts"], testIgnore: ["e2e/pair.spec.ts"] }),
   outputDir: ".data/test-run/playwright-artifacts",
   workers: 1,
   fullyParallel: false,

@@ -16,7 +16,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "integration",
-          include: ["tests/integration/**/*.test.ts"],
+          include: ["tests/integration/**/*.test.ts", "tests/security/**/*.test.ts"],
           environment: "node",
           // One database: files run one after another, tests inside a file in order.
           fileParallelism: false,

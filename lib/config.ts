@@ -43,7 +43,6 @@ export const envSchema = z.object({
   NEXTAUTH_URL: url(["http:", "https:"]).optional(),
   APP_ORIGIN: url(["http:", "https:"]).optional(),
   SMTP_URL: url(["smtp:", "smtps:"]).optional().transform((v) => v ?? "smtp://127.0.0.1:2525"),
-  SMTP_IGNORE_TLS: flag(true),
   MAIL_FROM: text("Placewright <no-reply@placewright.example.test>"),
   /** Absent: AWS S3 itself (region and credentials below). */
   S3_ENDPOINT: url(["http:", "https:"]).optional(),
@@ -70,7 +69,7 @@ function shape(env: z.output<typeof envSchema>) {
     database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX, statementTimeoutMs: env.DATABASE_STATEMENT_TIMEOUT_MS },
     auth: { secret: env.NEXTAUTH_SECRET },
     origin: (env.APP_ORIGIN ?? env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, ""),
-    mail: { smtpUrl: env.SMTP_URL, ignoreTls: env.SMTP_IGNORE_TLS, from: env.MAIL_FROM },
+    mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },
     s3: {
       endpoint: env.S3_ENDPOINT,
       region: env.S3_REGION,

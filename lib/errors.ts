@@ -7,6 +7,8 @@ export type ErrorCode =
   | "forbidden"
   | "not_found"
   | "conflict"
+  | "payload_too_large"
+  | "unsupported_media_type"
   | "rate_limited"
   | "unavailable";
 
@@ -16,6 +18,8 @@ export const STATUS_BY_CODE: Record<ErrorCode, number> = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
   rate_limited: 429,
   unavailable: 503,
 };

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
 import { Notice } from "@/components/ui/notice";
+import { safeCallbackPath } from "@/lib/auth/callback-url";
 
 /** Exchanges the one-time token from the e-mail for a session, once. */
 export function LinkSignIn() {
@@ -17,8 +18,7 @@ export function LinkSignIn() {
     if (started.current) return;
     started.current = true;
     const token = params.get("token") ?? "";
-    const raw = params.get("callbackUrl");
-    const callbackUrl = raw && raw.startsWith("/") && !raw.startsWith("//") ? raw : "/today";
+    const callbackUrl = safeCallbackPath(params.get("callbackUrl"));
     signIn("link", { token, redirect: false }).then((result) => {
       if (!result || result.error) {
         setError(result?.error ?? "This sign-in link did not work. Ask for a new one.");

@@ -9,19 +9,16 @@ import { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { safeCallbackPath } from "@/lib/auth/callback-url";
 import { emailField } from "@/lib/users/schemas";
 
 const passwordForm = z.object({ email: emailField, password: z.string().min(1, "Enter your password.") });
 const linkForm = z.object({ email: emailField });
 
-function safeCallback(raw: string | null): string {
-  return raw && raw.startsWith("/") && !raw.startsWith("//") ? raw : "/today";
-}
-
 export function SignInForm() {
   const router = useRouter();
   const params = useSearchParams();
-  const callbackUrl = safeCallback(params.get("callbackUrl"));
+  const callbackUrl = safeCallbackPath(params.get("callbackUrl"));
   const [mode, setMode] = useState<"password" | "link">("password");
   const [error, setError] = useState<string | null>(params.get("error") ? "Sign-in failed. Try again." : null);
   const [linkSent, setLinkSent] = useState<string | null>(null);

@@ -1,5 +1,5 @@
 import { integer, jsonb, pgTable, primaryKey, text, timestamp, uuid, varchar } from "drizzle-orm/pg-core";
-import { users } from "./auth";
+import { projects, users } from "./auth";
 import { createdAtColumn } from "./columns";
 
 /** A device (per user): its mutations are applied in order, each once (SYNC.md). */
@@ -31,7 +31,8 @@ export const syncMutations = pgTable(
     mutationId: integer("mutation_id").notNull(),
     name: varchar("name", { length: 24 }).notNull(),
     recordType: varchar("record_type", { length: 48 }).notNull(),
-    projectId: uuid("project_id").notNull(),
+    // Null when the change named a project the sender does not belong to (refused, nothing kept).
+    projectId: uuid("project_id").references(() => projects.id, { onDelete: "cascade" }),
     recordId: uuid("record_id").notNull(),
     args: jsonb("args").notNull(),
     baseVersion: integer("base_version"),

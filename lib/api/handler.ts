@@ -5,6 +5,7 @@ import type { SessionUser } from "@/lib/auth/options";
 import { AppError, invalidInput } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { logger } from "@/lib/log";
+import { checkOrigin, DEFAULT_MAX_BODY_BYTES, readJsonBody } from "./request-guard";
 
 export type ErrorBody = { error: { code: string; message: string; fields?: Record<string, string> } };
 
@@ -49,14 +50,10 @@ export function errorResponse(error: unknown): NextResponse<ErrorBody> {
   );
 }
 
-async function readJson(req: NextRequest): Promise<unknown> {
-  const text = await req.text();
-  if (!text) return undefined;
-  try {
-    return JSON.parse(text);
-  } catch {
-    throw invalidInput("The request body is not valid JSON.", { _: "The request body is not valid JSON." });
-  }
+/** The validated body; a route without a body schema still has its body size capped. */
+export async function readBody<B>(req: NextRequest, options: { body?: ZodType<B>; maxBodyBytes?: number }): Promise<B> {
+  const json = await readJsonBody(req, options.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES);
+  return options.body ? parseOrThrow(options.body, json) : (undefined as B);
 }
 
 type Ctx<P, B> = { req: NextRequest; user: SessionUser; params: P; body: B };
@@ -66,14 +63,15 @@ type Ctx<P, B> = { req: NextRequest; user: SessionUser; params: P; body: B };
  * Authorization against the project happens in lib (it needs the record's project), via lib/auth.
  */
 export function apiRoute<P = Record<string, string>, B = undefined>(
-  options: { body?: ZodType<B> },
+  options: { body?: ZodType<B>; maxBodyBytes?: number },
   handler: (ctx: Ctx<P, B>) => Promise<unknown>,
 ) {
   return async (req: NextRequest, context: { params: Promise<P> }) => {
     try {
+      checkOrigin(req);
       const user = await requireUser(req);
       const params = (await context.params) ?? ({} as P);
-      const body = options.body ? parseOrThrow(options.body, await readJson(req)) : (undefined as B);
+      const body = await readBody(req, options);
       const result = await handler({ req, user, params, body });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true });
@@ -84,10 +82,14 @@ export function apiRoute<P = Record<string, string>, B = undefined>(
 }
 
 /** Same as apiRoute for routes that anyone may call (sign-in link requests, invitations). */
-export function publicRoute<B>(options: { body?: ZodType<B> }, handler: (ctx: { req: NextRequest; body: B }) => Promise<unknown>) {
+export function publicRoute<B>(
+  options: { body?: ZodType<B>; maxBodyBytes?: number },
+  handler: (ctx: { req: NextRequest; body: B }) => Promise<unknown>,
+) {
   return async (req: NextRequest) => {
     try {
-      const body = options.body ? parseOrThrow(options.body, await readJson(req)) : (undefined as B);
+      checkOrigin(req);
+      const body = await readBody(req, options);
       const result = await handler({ req, body });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true });

@@ -4,7 +4,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import { consumeSignInToken, findUserByEmail } from "@/lib/users/queries";
 import { verifyPassword } from "./password";
-import { assertNotLocked, clearFailures, recordFailure } from "./rate-limit";
+import { clear, clientAddress, consume, refund } from "./rate-limit";
 import { hashToken } from "./tokens";
 import { openSession, revokeSession, userOfLiveSession } from "./user-sessions";
 
@@ -19,19 +19,19 @@ const passwordCredentials = z.object({
 export const WRONG_PASSWORD = "That e-mail and password do not match. Check both, or send yourself a sign-in link.";
 
 // next-auth passes a thrown Error's message back to the sign-in form as `error`.
-export async function authorizePassword(raw: Record<string, string> | undefined): Promise<SessionUser> {
+export async function authorizePassword(raw: Record<string, string> | undefined, fromAddress = "unknown"): Promise<SessionUser> {
   const parsed = passwordCredentials.safeParse(raw ?? {});
   if (!parsed.success) throw new Error(parsed.error.issues[0]?.message ?? "Enter your e-mail and password.");
   const { email, password } = parsed.data;
   try {
-    await assertNotLocked(email);
+    // Points are taken before the hash is checked and given back on success (lib/auth/rate-limit.ts).
+    await consume("signInIp", fromAddress);
+    await consume("signInEmail", email);
     const user = await findUserByEmail(email);
-    const ok = user && !user.disabledAt && (await verifyPassword(user.passwordHash, password));
-    if (!ok || !user) {
-      await recordFailure(email);
-      throw new Error(WRONG_PASSWORD);
-    }
-    await clearFailures(email);
+    // An unknown address costs the same hash as a known one, so timing does not tell them apart.
+    const ok = await verifyPassword(user && !user.disabledAt ? user.passwordHash : null, password);
+    if (!ok || !user) throw new Error(WRONG_PASSWORD);
+    await Promise.all([refund("signInIp", fromAddress), clear("signInEmail", email)]);
     return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin };
   } catch (error) {
     if (error instanceof AppError) throw new Error(error.message);
@@ -56,7 +56,7 @@ export const authOptions: NextAuthOptions = {
       id: "password",
       name: "E-mail and password",
       credentials: { email: { type: "email" }, password: { type: "password" } },
-      authorize: (credentials) => authorizePassword(credentials as Record<string, string>),
+      authorize: (credentials, req) => authorizePassword(credentials as Record<string, string>, clientAddress(req?.headers)),
     }),
     CredentialsProvider({
       id: "link",

@@ -10,6 +10,13 @@ import type { DiaryListQuery, DiaryReviewRow, PlacementListQuery, PlacementRevie
 
 export const EXPORT_LIMIT = 20_000;
 
+/**
+ * Text typed on site (element, level, grid, names) can start with = + - @ tab or CR, which a
+ * spreadsheet runs as a formula; such cells are prefixed with ' (numbers are left alone).
+ * [OWASP, "CSV Injection"]
+ */
+const UNPARSE = { escapeFormulae: true } as const;
+
 const PLACEMENT_VALUE: Record<(typeof PLACEMENT_COLUMNS)[number]["key"], (r: PlacementReviewRow) => string | number | null> = {
   date: (r) => r.date,
   project: (r) => r.projectName,
@@ -55,12 +62,12 @@ export function csvResponse(text: string, name: string): Response {
 
 export function placementsCsv(rows: PlacementReviewRow[], columns?: string[]): string {
   const cols = pick(PLACEMENT_COLUMNS, columns);
-  return Papa.unparse({ fields: cols.map((c) => c.label), data: rows.map((r) => cols.map((c) => PLACEMENT_VALUE[c.key](r) ?? "")) });
+  return Papa.unparse({ fields: cols.map((c) => c.label), data: rows.map((r) => cols.map((c) => PLACEMENT_VALUE[c.key](r) ?? "")) }, UNPARSE);
 }
 
 export function diariesCsv(rows: DiaryReviewRow[], columns?: string[]): string {
   const cols = pick(DIARY_COLUMNS, columns);
-  return Papa.unparse({ fields: cols.map((c) => c.label), data: rows.map((r) => cols.map((c) => DIARY_VALUE[c.key](r) ?? "")) });
+  return Papa.unparse({ fields: cols.map((c) => c.label), data: rows.map((r) => cols.map((c) => DIARY_VALUE[c.key](r) ?? "")) }, UNPARSE);
 }
 
 export async function exportPlacementsCsv(user: SessionUser, q: PlacementListQuery, columns?: string[]): Promise<Response> {

@@ -54,7 +54,7 @@ export async function signAmendment(user: SessionUser, projectId: string, placem
   assertUuid(amendmentId, "Amendment");
   const body = parseOrThrow(signOffSchema, input);
   const role = await authorizeAny(db, user, projectId, ["amendment.write"]);
-  await checkSignerPassword(user, body.password);
+  await checkSignerPassword(user, body.password, { projectId, recordType: "amendment", recordId: amendmentId });
   return inTransaction({ user }, undefined, async (tx) => {
     const [amendment] = await tx
       .select()

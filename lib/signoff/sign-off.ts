@@ -29,7 +29,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
   const role = await authorizeAny(db, user, projectId, ["placement.sign"]);
-  await checkSignerPassword(user, body.password);
+  await checkSignerPassword(user, body.password, { projectId, recordType: "placements", recordId: placementId });
   return inTransaction({ user }, undefined, async (tx) => {
     const snapshot = await placementSnapshot(tx, projectId, placementId);
     if (!snapshot.placement) throw notFound("Placement");
@@ -111,7 +111,11 @@ export async function addAmendment(user: SessionUser, projectId: string, placeme
     if (placement.state !== "signed") {
       throw conflict("Only a signed placement takes amendments; correct an unsigned one directly.", { reason: "state" });
     }
-    const [existing] = await tx.select().from(amendments).where(eq(amendments.id, body.id));
+    // Looked up within this placement only: an id from another project must not answer with its row.
+    const [existing] = await tx
+      .select()
+      .from(amendments)
+      .where(and(eq(amendments.projectId, projectId), eq(amendments.recordId, placementId), eq(amendments.id, body.id)));
     if (existing) return existing; // a retried request
     const [row] = await tx
       .insert(amendments)
@@ -127,7 +131,9 @@ export async function addAmendment(user: SessionUser, projectId: string, placeme
         why: body.why,
         authorId: user.id,
       })
+      .onConflictDoNothing()
       .returning();
+    if (!row) throw conflict("That amendment id is already in use. Reload and write the amendment again.", { reason: "exists" });
     await writeAudit(tx, { projectId, userId: user.id, recordType: "amendment", recordId: row.id, action: "create", after: row, note: `amends placement ${placementId}` });
     return row;
   });

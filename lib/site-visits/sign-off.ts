@@ -12,12 +12,12 @@
 import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { conflicts, findings, photos, signOffs, siteVisits, users } from "@/db/schema";
+import { conflicts, findings, photos, signOffs, siteVisits } from "@/db/schema";
 import { parseOrThrow } from "@/lib/api/handler";
+import { checkSignerPassword } from "@/lib/signoff/password";
 import type { SessionUser } from "@/lib/auth/options";
-import { verifyPassword } from "@/lib/auth/password";
 import { writeAudit } from "@/lib/audit";
-import { AppError, conflict, notFound } from "@/lib/errors";
+import { conflict, notFound } from "@/lib/errors";
 import { authorizeAny } from "@/lib/records/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedVisitConflict } from "@/lib/records/db-errors";
@@ -77,10 +77,7 @@ export async function signOffVisit(user: SessionUser, projectId: string, visitId
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
   const role = await authorizeAny(db, user, projectId, ["visit.sign"]);
-  const [account] = await db.select({ passwordHash: users.passwordHash }).from(users).where(eq(users.id, user.id));
-  if (!(await verifyPassword(account?.passwordHash ?? null, body.password))) {
-    throw new AppError("unauthenticated", "That password is not right. Nothing was signed.", { password: "Wrong password." });
-  }
+  await checkSignerPassword(user, body.password, { projectId, recordType: "site-visits", recordId: visitId });
   const def = getRecordDef("site-visits");
   return inTransaction({ user }, def, async (tx) => {
     const visit = await lockRecord(tx, def, projectId, visitId);

@@ -9,6 +9,11 @@ import { RECORD_TYPES } from "@/lib/records/record-types";
 export const SYNC_SCHEMA_VERSION = 3;
 export const MAX_MUTATIONS_PER_PUSH = 100;
 export const MAX_CHANGES_PER_PULL = 500;
+/**
+ * A change's arguments as JSON, in bytes. The largest record a form makes is a few kilobytes (free
+ * text is capped at 500 characters per field); 100 changes at the cap still fit a push body.
+ */
+export const MAX_MUTATION_ARGS_BYTES = 16 * 1024;
 
 export const MUTATION_NAMES = ["create", "update", "delete", "transition", "resolve"] as const;
 export type MutationName = (typeof MUTATION_NAMES)[number];
@@ -31,7 +36,12 @@ export const mutationSchema = z.object({
   recordType: z.enum(RECORD_TYPES, { error: "Unknown record type" }),
   projectId: uuid,
   recordId: uuid,
-  args: z.record(z.string(), z.unknown()).default({}),
+  args: z
+    .record(z.string(), z.unknown())
+    .default({})
+    .refine((args) => new TextEncoder().encode(JSON.stringify(args)).length <= MAX_MUTATION_ARGS_BYTES, {
+      error: `A change is too large (at most ${MAX_MUTATION_ARGS_BYTES / 1024} KB); nothing was saved.`,
+    }),
   baseVersion: z.number().int().min(1).optional(),
 });
 export type Mutation = z.infer<typeof mutationSchema>;

@@ -4,7 +4,7 @@ import { db } from "@/db";
 import { users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
-import { assertNotLocked, clearFailures, recordFailure } from "@/lib/auth/rate-limit";
+import { consume, refund } from "@/lib/auth/rate-limit";
 import { bumpSessionVersion } from "@/lib/auth/user-sessions";
 import { writeAudit } from "@/lib/audit";
 import { invalidInput, unauthenticated } from "@/lib/errors";
@@ -27,12 +27,12 @@ export async function changePassword(user: SessionUser, input: ChangePasswordInp
   const row = await findUserById(user.id);
   if (!row) throw unauthenticated();
   if (row.passwordHash) {
-    await assertNotLocked(row.email);
+    // The same throttle as sign-in: an attempt counts before the check and is given back on success.
+    await consume("signInEmail", row.email);
     if (!input.currentPassword || !(await verifyPassword(row.passwordHash, input.currentPassword))) {
-      await recordFailure(row.email);
       throw invalidInput("Your current password is not right.", { currentPassword: "Not your current password." });
     }
-    await clearFailures(row.email);
+    await refund("signInEmail", row.email);
   }
   const passwordHash = await hashPassword(input.newPassword);
   await db.transaction(async (tx) => {

@@ -4,6 +4,7 @@ import { invitations, memberships, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorizeAdmin } from "@/lib/auth/authorize";
 import { hashPassword } from "@/lib/auth/password";
+import { consume, refund } from "@/lib/auth/rate-limit";
 import { hashToken, newToken } from "@/lib/auth/tokens";
 import { writeAudit } from "@/lib/audit";
 import { AppError, notFound } from "@/lib/errors";
@@ -13,6 +14,9 @@ import type { InviteInput } from "./schemas";
 import { findUserByEmail } from "./queries";
 
 export const INVITATION_DAYS = 7;
+
+const invitationGone = () =>
+  new AppError("not_found", "This invitation has expired or was already used. Ask an administrator for a new one.");
 
 /** Admin invites a person by e-mail, optionally straight into a project with a role. */
 export async function inviteUser(actor: SessionUser, input: InviteInput): Promise<{ id: string }> {
@@ -60,9 +64,16 @@ export async function inviteUser(actor: SessionUser, input: InviteInput): Promis
 }
 
 /** The invitee sets a password; creates the account (and membership) and consumes the invitation. */
-export async function acceptInvitation(token: string, password: string): Promise<{ email: string }> {
+export async function acceptInvitation(token: string, password: string, fromAddress = "unknown"): Promise<{ email: string }> {
+  await consume("invitationIp", fromAddress);
+  // The token first: argon2 is expensive, and an unknown token must not cost the server a hash.
+  const [live] = await db
+    .select({ id: invitations.id })
+    .from(invitations)
+    .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())));
+  if (!live) throw invitationGone();
   const passwordHash = await hashPassword(password);
-  return db.transaction(async (tx) => {
+  const accepted = await db.transaction(async (tx) => {
     const [invitation] = await tx
       .update(invitations)
       .set({ acceptedAt: new Date() })
@@ -74,9 +85,7 @@ export async function acceptInvitation(token: string, password: string): Promise
         ),
       )
       .returning();
-    if (!invitation) {
-      throw new AppError("not_found", "This invitation has expired or was already used. Ask an administrator for a new one.");
-    }
+    if (!invitation) throw invitationGone();
     let user = await findUserByEmail(invitation.email, tx);
     if (user?.passwordHash) {
       throw new AppError("conflict", "This address already has an account. Sign in instead.");
@@ -102,6 +111,8 @@ export async function acceptInvitation(token: string, password: string): Promise
     });
     return { email: user.email };
   });
+  await refund("invitationIp", fromAddress);
+  return accepted;
 }
 
 export async function findOpenInvitation(token: string) {

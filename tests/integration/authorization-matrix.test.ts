@@ -17,7 +17,8 @@ type Route = "list" | "create" | "read" | "update" | "delete";
 
 /** The table of expected outcomes: allow (200/201), 403 or 404. */
 function expected(route: Route, type: RecordType, actor: Actor, target: Target): number {
-  if (actor === "outsider" || target === "foreign-project") return 403;
+  // A project the caller does not belong to answers like one that does not exist (no existence oracle).
+  if (actor === "outsider" || target === "foreign-project") return 404;
   const reading = route === "list" || route === "read";
   if (!reading && !WRITERS[type].includes(actor)) return 403;
   if (target === "foreign-record") return 404;
@@ -99,17 +100,17 @@ describe("authorization matrix", () => {
       expect(outsiderOwn.status).toBe(200);
       expect(outsiderOwn.json.items).toEqual([]);
       const outsiderTheirs = await callRoute(listRoute, { user: s.outsider, params: { projectId: s.project.id, type } });
-      expect(outsiderTheirs.status).toBe(403);
+      expect(outsiderTheirs.status).toBe(404);
       expect(outsiderTheirs.json.items).toBeUndefined();
       // An administrator without a membership reads no project records either.
-      expect((await callRoute(listRoute, { user: s.admin, params: { projectId: s.project.id, type } })).status).toBe(403);
+      expect((await callRoute(listRoute, { user: s.admin, params: { projectId: s.project.id, type } })).status).toBe(404);
     });
   });
 
   describe("placement transition route", () => {
     // planned → ready is the superintendent's move; every other role gets 403.
     const expectedMove = (who: Actor, target: Target) => {
-      if (who === "outsider" || target === "foreign-project") return 403;
+      if (who === "outsider" || target === "foreign-project") return 404;
       if (who === "office" || who === "owner") return 403; // they make no moves at all
       if (target === "foreign-record") return 404;
       return who === "superintendent" ? 200 : 403;

@@ -219,8 +219,8 @@ describe("who may enter breaks, and bad break input", () => {
       expect(res.json.error.message).toBe("Your role on this project does not allow that.");
     }
     const outsider = await post(s.outsider, validBody("breaks", setId));
-    expect(outsider.status).toBe(403);
-    expect(outsider.json.error.message).toBe("You are not a member of this project.");
+    expect(outsider.status).toBe(404);
+    expect(outsider.json.error.message).toBe("Project not found.");
     expect(await countRows("breaks")).toBe(before);
     const ok = await post(s.team.office, validBody("breaks", setId));
     expect(ok.status).toBe(201);
@@ -228,9 +228,9 @@ describe("who may enter breaks, and bad break input", () => {
     expect(ok.json.strengthMPa).toBeCloseTo(22.918, 3);
   });
 
-  it("another project's user: 403 on the project's lab reads, 404 for a project that does not exist", async () => {
-    expect((await callRoute(acceptanceRoute, { user: s.outsider, params: { projectId: s.project.id } })).status).toBe(403);
-    expect((await callRoute(setsRoute, { user: s.outsider, params: { projectId: s.project.id } })).status).toBe(403);
+  it("another project's user and a project that does not exist get the same 404 on the lab reads", async () => {
+    expect((await callRoute(acceptanceRoute, { user: s.outsider, params: { projectId: s.project.id } })).status).toBe(404);
+    expect((await callRoute(setsRoute, { user: s.outsider, params: { projectId: s.project.id } })).status).toBe(404);
     const ghost = randomUUID();
     expect((await callRoute(acceptanceRoute, { user: s.team.office, params: { projectId: ghost } })).status).toBe(404);
     // A set of this project cannot receive a break through another project's URL.

@@ -106,13 +106,13 @@ describe("photo upload through the AWS SDK against the local S3 fake", () => {
     expect(await db.select().from(photos).where(eq(photos.id, pdfId))).toHaveLength(0);
   });
 
-  it("another project's member is 403; owners view but do not add", async () => {
+  it("another project's member is 404 (not a member); owners view but do not add (403)", async () => {
     const file = jpeg();
     const params = { projectId: s.project.id, photoId: randomUUID() };
-    expect((await callRoute(requestRoute, { user: s.outsider, params, body: meta(file) })).status).toBe(403);
+    expect((await callRoute(requestRoute, { user: s.outsider, params, body: meta(file) })).status).toBe(404);
     expect((await callRoute(requestRoute, { user: s.team.owner, params, body: meta(file) })).status).toBe(403);
-    expect((await callRoute(completeRoute, { user: s.outsider, params })).status).toBe(403);
-    expect((await callRoute(viewRoute, { user: s.outsider, params })).status).toBe(403);
+    expect((await callRoute(completeRoute, { user: s.outsider, params })).status).toBe(404);
+    expect((await callRoute(viewRoute, { user: s.outsider, params })).status).toBe(404);
   });
 
   it("completing before the bytes arrived says so", async () => {

@@ -57,7 +57,7 @@ describe("placement transitions", () => {
     expect(res.json.error.allowed).toEqual(["ready"]);
   });
 
-  it("a move that belongs to another role is a 403; office and owner move nothing", async () => {
+  it("a move that belongs to another role is a 403; office and owner move nothing; a non-member gets 404", async () => {
     const p = await makeRecord("placements", s.project.id, team);
     await move(team.superintendent, p.id, { to: "ready", baseVersion: 1 });
     const superClears = await move(team.superintendent, p.id, { to: "cleared", baseVersion: 2 });
@@ -66,7 +66,7 @@ describe("placement transitions", () => {
     for (const role of ["office", "owner"] as const) {
       expect((await move(team[role], p.id, { to: "cleared", baseVersion: 2 })).status).toBe(403);
     }
-    expect((await move(s.outsider, p.id, { to: "cleared", baseVersion: 2 })).status).toBe(403);
+    expect((await move(s.outsider, p.id, { to: "cleared", baseVersion: 2 })).status).toBe(404);
   });
 
   it("holding needs a reason; the reason is kept, and cleared when the placement is ready again", async () => {
@@ -107,10 +107,12 @@ describe("placement transitions", () => {
     expect(after.json.error.message).toBe("This placement is signed; add an amendment instead.");
   });
 
-  it("a placement of another project is a 404; bad ids are 404, not errors", async () => {
+  it("a placement of another project is a 404; a malformed id is a 400 naming the parameter, not an error", async () => {
     const other = await projectWithTeam();
     const foreign = await makeRecord("placements", other.project.id, other.team);
     expect((await move(team.superintendent, foreign.id, { to: "ready", baseVersion: 1 })).status).toBe(404);
-    expect((await move(team.superintendent, "not-a-uuid", { to: "ready", baseVersion: 1 })).status).toBe(404);
+    const malformed = await move(team.superintendent, "not-a-uuid", { to: "ready", baseVersion: 1 });
+    expect(malformed.status).toBe(400);
+    expect(malformed.json.error.fields).toHaveProperty("id");
   });
 });

@@ -48,10 +48,10 @@ async function signOffCount(id: string) {
 }
 
 describe("sign-off of a placement", () => {
-  it("a superintendent cannot sign (403); an inspector of another project cannot (403)", async () => {
+  it("a superintendent cannot sign (403); an inspector of another project cannot (404, not a member)", async () => {
     const p = await placedPlacement();
     expect((await sign(s.team.superintendent, p.id, { baseVersion: p.version })).status).toBe(403);
-    expect((await sign(otherInspector, p.id, { baseVersion: p.version })).status).toBe(403);
+    expect((await sign(otherInspector, p.id, { baseVersion: p.version })).status).toBe(404);
     expect(await signOffCount(p.id)).toBe(0);
   });
 
@@ -130,6 +130,6 @@ describe("sign-off of a placement", () => {
     expect(trail.json[1].before.state).toBe("planned");
     expect(trail.json[1].after.state).toBe("ready");
     const outsider = await callRoute(auditRoute, { user: s.outsider, params: { projectId: s.project.id, recordId: p.id } });
-    expect(outsider.status).toBe(403);
+    expect(outsider.status).toBe(404);
   });
 });

@@ -144,11 +144,11 @@ describe("a finding's life through /api/sync/push: open → answered → closed 
 });
 
 describe("sign-off of a visit report", () => {
-  it("a superintendent cannot sign (403); an inspector of another project cannot (403); a wrong password is 401", async () => {
+  it("a superintendent cannot sign (403); an inspector of another project cannot (404, not a member); a wrong password is 401", async () => {
     const { visitId } = await newVisit();
     const version = await submit(visitId);
     expect((await sign(s.team.superintendent, visitId, { baseVersion: version })).status).toBe(403);
-    expect((await sign(otherInspector, visitId, { baseVersion: version })).status).toBe(403);
+    expect((await sign(otherInspector, visitId, { baseVersion: version })).status).toBe(404);
     const wrong = await sign(s.team.inspector, visitId, { baseVersion: version, password: "not-it" });
     expect(wrong.status).toBe(401);
     expect((await visitRow(visitId)).state).toBe("submitted");

@@ -10,7 +10,9 @@ import { writeAudit } from "@/lib/audit";
 import { AppError } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { transitionPlacement } from "@/lib/placements/transition";
+import { authorizeAny, writeActions } from "@/lib/records/access";
 import { getRecord } from "@/lib/records/read";
+import { getRecordDef } from "@/lib/records/registry";
 import type { RecordContext, RecordRow } from "@/lib/records/types";
 import { createRecord, deleteRecord, updateRecord } from "@/lib/records/write";
 import { transitionSiteRecord } from "@/lib/site-visits/transition";
@@ -59,6 +61,11 @@ async function resolveConflict(ctx: RecordContext, m: Mutation): Promise<RecordR
     .where(and(eq(conflicts.id, conflictId), eq(conflicts.projectId, m.projectId), eq(conflicts.recordId, m.recordId)))
     .for("update");
   if (!open) throw new AppError("not_found", "That conflict was not found on this record.");
+  // Whoever sent the conflicting change answers it; anyone else needs the right to write this kind
+  // of record, so a reader cannot close it and a non-writer cannot discard the writer's values.
+  if (open.createdBy !== ctx.user.id) {
+    await authorizeAny(tx, ctx.user, m.projectId, writeActions(getRecordDef(m.recordType).action));
+  }
   const row =
     Object.keys(patch).length > 0
       ? await updateRecord(ctx, m.recordType, m.projectId, m.recordId, { baseVersion: m.baseVersion, patch })

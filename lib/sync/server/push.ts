@@ -6,6 +6,7 @@ import { insertMany } from "@/db/json-rows";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
+import { getRoles } from "@/lib/users/queries";
 import { SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushRequest, type PushResponse } from "../protocol";
 import { planCreates, writeCreates, type CreateInput } from "@/lib/records/create-batch";
 import { applyMutation, type Applied } from "./apply";
@@ -64,6 +65,17 @@ export function isTransient(error: unknown): boolean {
  * back (503: the device sends it again, and nothing is doubled). A gap stops the push: what came
  * before it is committed, and the answer names the expected id.
  */
+
+/**
+ * The payload is kept so a person can see a refused change, except when the sender may not make
+ * that kind of change at all (not a member, or a role without the write): otherwise a read-only
+ * account could store 16 KB per change without end.
+ */
+const keptArgs = (applied: Applied, m: Mutation) =>
+  applied.result === "rejected" && (applied.reason === "forbidden" || applied === UNKNOWN_PROJECT) ? {} : m.args;
+
+const UNKNOWN_PROJECT: Applied = { result: "rejected", reason: "not_found", message: "Project not found." };
+
 export async function pushMutations(user: SessionUser, request: PushRequest, hooks: PushHooks = {}): Promise<PushResponse> {
   if (request.schemaVersion !== SYNC_SCHEMA_VERSION) {
     throw new AppError("conflict", "This app version is out of date. Reload the app to sync.", undefined, { reason: "schema" });
@@ -122,9 +134,9 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
             mutationId: m.id,
             name: m.name,
             recordType: m.recordType,
-            projectId: m.projectId,
+            projectId: a === UNKNOWN_PROJECT ? null : m.projectId,
             recordId: m.recordId,
-            args: m.args,
+            args: keptArgs(a, m),
             baseVersion: m.baseVersion ?? null,
             result: a.result,
             reason: a.reason ?? null,
@@ -152,11 +164,21 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
 async function applyInOrder(tx: Transaction, user: SessionUser, clientId: string, fresh: Mutation[], hooks: PushHooks, batch: boolean) {
   const ctx = { user, deviceId: clientId, tx };
   const applied = new Map<number, Applied>();
+  // A project the sender does not belong to (or that does not exist) is refused before any write,
+  // like the project routes: the same answer for both, and nothing of the sender's is kept.
+  const roles = await getRoles(user.id, [...new Set(fresh.map((m) => m.projectId))], tx);
   let i = 0;
   while (i < fresh.length) {
+    if (!roles.has(fresh[i].projectId)) {
+      const m = fresh[i];
+      await hooks.afterApply?.(tx, m, UNKNOWN_PROJECT);
+      applied.set(m.id, UNKNOWN_PROJECT);
+      i += 1;
+      continue;
+    }
     const creates: CreateInput[] = [];
     for (const m of batch ? fresh.slice(i) : []) {
-      if (m.name !== "create") break;
+      if (m.name !== "create" || !roles.has(m.projectId)) break;
       creates.push({ type: m.recordType, projectId: m.projectId, input: { ...m.args, id: m.recordId } });
     }
     const plan = creates.length ? await planCreates(tx, ctx, creates) : [];

@@ -1,12 +1,13 @@
 import { NextResponse } from "next/server";
 import { apiRoute } from "@/lib/api/handler";
+import { SYNC_MAX_BODY_BYTES } from "@/lib/api/request-guard";
 import { AppError } from "@/lib/errors";
 import { pushRequestSchema } from "@/lib/sync/protocol";
 import { isTransient, pushMutations } from "@/lib/sync/server/push";
 
 export const dynamic = "force-dynamic";
 
-export const POST = apiRoute({ body: pushRequestSchema }, async ({ user, body }) => {
+export const POST = apiRoute({ body: pushRequestSchema, maxBodyBytes: SYNC_MAX_BODY_BYTES }, async ({ user, body }) => {
   try {
     return await pushMutations(user, body);
   } catch (error) {

@@ -1,4 +1,4 @@
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { auditTrail } from "@/lib/signoff/sign-off";
 
-export const GET = apiRoute<{ projectId: string; recordId: string }>({}, ({ user, params }) => auditTrail(user, params.projectId, params.recordId));
+export const GET = projectRoute<{ projectId: string; recordId: string }>({ action: "project.read" }, ({ user, params }) => auditTrail(user, params.projectId, params.recordId));

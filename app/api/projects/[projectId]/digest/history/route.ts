@@ -1,6 +1,6 @@
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { getDigestHistory } from "@/lib/digest/access";
 
 type Params = { projectId: string };
 
-export const GET = apiRoute<Params>({}, async ({ user, params }) => ({ history: await getDigestHistory(user, params.projectId) }));
+export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ user, params }) => ({ history: await getDigestHistory(user, params.projectId) }));

@@ -1,10 +1,11 @@
-import { apiRoute, parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { digestDateSchema, previewDigest } from "@/lib/digest/access";
 
 type Params = { projectId: string };
 
 /** The digest of ?date= as HTML (?format=json adds the subject and the text part). */
-export const GET = apiRoute<Params>({}, async ({ req, user, params }) => {
+export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ req, user, params }) => {
   const date = parseOrThrow(digestDateSchema, req.nextUrl.searchParams.get("date") ?? "");
   const message = await previewDigest(user, params.projectId, date);
   if (req.nextUrl.searchParams.get("format") === "json") {

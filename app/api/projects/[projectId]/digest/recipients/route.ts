@@ -1,17 +1,17 @@
 import { NextResponse } from "next/server";
 import type { z } from "zod";
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { getDigestView, rescheduleSoon } from "@/lib/digest/access";
 import { addRecipient, addRecipientSchema } from "@/lib/digest/recipients";
 
 type Params = { projectId: string };
 
-export const GET = apiRoute<Params>({}, async ({ user, params }) => {
+export const GET = projectRoute<Params>({ action: "project.read" }, async ({ user, params }) => {
   const view = await getDigestView(user, params.projectId);
   return { recipients: view.recipients, digestHour: view.project.digestHour, timeZone: view.project.timeZone };
 });
 
-export const POST = apiRoute<Params, z.output<typeof addRecipientSchema>>({ body: addRecipientSchema }, async ({ user, params, body }) => {
+export const POST = projectRoute<Params, z.output<typeof addRecipientSchema>>({ action: "digest.manage", body: addRecipientSchema }, async ({ user, params, body }) => {
   const recipient = await addRecipient(user, params.projectId, body);
   rescheduleSoon(params.projectId);
   return NextResponse.json(recipient, { status: 201 });

@@ -1,10 +1,10 @@
 import type { z } from "zod";
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { sendDigestNow, sendNowSchema } from "@/lib/digest/access";
 
 type Params = { projectId: string };
 
 /** "Send now" from the office: sends the day's digest to whoever has not had it yet. */
-export const POST = apiRoute<Params, z.output<typeof sendNowSchema>>({ body: sendNowSchema }, ({ user, params, body }) =>
+export const POST = projectRoute<Params, z.output<typeof sendNowSchema>>({ action: "digest.manage", body: sendNowSchema }, ({ user, params, body }) =>
   sendDigestNow(user, params.projectId, body.date),
 );

@@ -1,12 +1,12 @@
 import type { z } from "zod";
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { rescheduleSoon } from "@/lib/digest/access";
 import { projectHourSchema, setProjectDigestHour } from "@/lib/digest/recipients";
 
 type Params = { projectId: string };
 
 /** The project's digest hour (project time zone), the default for every recipient. */
-export const PUT = apiRoute<Params, z.output<typeof projectHourSchema>>({ body: projectHourSchema }, async ({ user, params, body }) => {
+export const PUT = projectRoute<Params, z.output<typeof projectHourSchema>>({ action: "digest.manage", body: projectHourSchema }, async ({ user, params, body }) => {
   await setProjectDigestHour(user, params.projectId, body.digestHour);
   rescheduleSoon(params.projectId);
   return { digestHour: body.digestHour };

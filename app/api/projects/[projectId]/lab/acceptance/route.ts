@@ -1,7 +1,7 @@
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { getProjectAcceptance } from "@/lib/lab/queries";
 import { queryObject } from "@/lib/records/request";
 
-export const GET = apiRoute<{ projectId: string }>({}, ({ req, user, params }) =>
+export const GET = projectRoute<{ projectId: string }>({ action: "project.read" }, ({ req, user, params }) =>
   getProjectAcceptance(user, params.projectId, queryObject(req)),
 );

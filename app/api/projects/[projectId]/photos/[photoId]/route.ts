@@ -1,12 +1,12 @@
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { photoViewUrl, photoUploadSchema, requestPhotoUpload, type PhotoUploadInput } from "@/lib/photos/upload";
 
 type Params = { projectId: string; photoId: string };
 
 /** A short-lived link to the stored photo. */
-export const GET = apiRoute<Params>({}, ({ user, params }) => photoViewUrl(user, params.projectId, params.photoId));
+export const GET = projectRoute<Params>({ action: "project.read" }, ({ user, params }) => photoViewUrl(user, params.projectId, params.photoId));
 
 /** Register the photo and get a presigned PUT for its bytes. */
-export const POST = apiRoute<Params, PhotoUploadInput>({ body: photoUploadSchema }, ({ user, params, body }) =>
+export const POST = projectRoute<Params, PhotoUploadInput>({ action: "photo.add", body: photoUploadSchema }, ({ user, params, body }) =>
   requestPhotoUpload(user, params.projectId, params.photoId, body),
 );

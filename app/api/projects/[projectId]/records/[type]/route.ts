@@ -1,18 +1,18 @@
 import { NextResponse } from "next/server";
 import { z } from "zod";
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { listRecords } from "@/lib/records/read";
 import { queryObject, requestContext } from "@/lib/records/request";
 import { createRecord } from "@/lib/records/write";
 
 type Params = { projectId: string; type: string };
 
-export const GET = apiRoute<Params>({}, ({ req, user, params }) =>
+export const GET = projectRoute<Params>({ action: "project.read" }, ({ req, user, params }) =>
   listRecords(requestContext(req, user), params.type, params.projectId, queryObject(req)),
 );
 
 // The body is validated in lib by the record type's own schema.
-export const POST = apiRoute<Params, unknown>({ body: z.unknown() }, async ({ req, user, params, body }) => {
+export const POST = projectRoute<Params, unknown>({ action: "project.read", body: z.unknown() }, async ({ req, user, params, body }) => {
   const { record, created } = await createRecord(requestContext(req, user), params.type, params.projectId, body);
   return NextResponse.json(record, { status: created ? 201 : 200 });
 });

@@ -1,6 +1,6 @@
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { completePhotoUpload } from "@/lib/photos/upload";
 
-export const POST = apiRoute<{ projectId: string; photoId: string }>({}, ({ user, params }) =>
+export const POST = projectRoute<{ projectId: string; photoId: string }>({ action: "photo.add" }, ({ user, params }) =>
   completePhotoUpload(user, params.projectId, params.photoId),
 );

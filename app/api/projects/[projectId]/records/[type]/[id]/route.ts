@@ -1,12 +1,12 @@
 import { z } from "zod";
-import { apiRoute } from "@/lib/api/handler";
+import { projectRoute } from "@/lib/api/project-route";
 import { getRecord } from "@/lib/records/read";
 import { queryObject, requestContext } from "@/lib/records/request";
 import { deleteRecord, updateRecord } from "@/lib/records/write";
 
 type Params = { projectId: string; type: string; id: string };
 
-export const GET = apiRoute<Params>({}, ({ req, user, params }) => {
+export const GET = projectRoute<Params>({ action: "project.read" }, ({ req, user, params }) => {
   const { includeDeleted } = queryObject(req);
   return getRecord(requestContext(req, user), params.type, params.projectId, params.id, {
     includeDeleted: includeDeleted === "1" || includeDeleted === "true",
@@ -14,12 +14,12 @@ export const GET = apiRoute<Params>({}, ({ req, user, params }) => {
 });
 
 // Body { baseVersion, patch }, validated in lib by the record type's own schema.
-export const PATCH = apiRoute<Params, unknown>({ body: z.unknown() }, ({ req, user, params, body }) =>
+export const PATCH = projectRoute<Params, unknown>({ action: "project.read", body: z.unknown() }, ({ req, user, params, body }) =>
   updateRecord(requestContext(req, user), params.type, params.projectId, params.id, body),
 );
 
 // Body { baseVersion }, or ?baseVersion=N for clients that send no body with DELETE.
-export const DELETE = apiRoute<Params, unknown>({ body: z.unknown() }, ({ req, user, params, body }) => {
+export const DELETE = projectRoute<Params, unknown>({ action: "project.read", body: z.unknown() }, ({ req, user, params, body }) => {
   const fromQuery = req.nextUrl.searchParams.get("baseVersion");
   const input = body ?? (fromQuery === null ? {} : { baseVersion: Number(fromQuery) });
   return deleteRecord(requestContext(req, user), params.type, params.projectId, params.id, input);

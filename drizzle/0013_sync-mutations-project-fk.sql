@@ -1,0 +1,2 @@
+ALTER TABLE "sync_mutations" ALTER COLUMN "project_id" DROP NOT NULL;--> statement-breakpoint
+ALTER TABLE "sync_mutations" ADD CONSTRAINT "sync_mutations_project_id_projects_id_fk" FOREIGN KEY ("project_id") REFERENCES "public"."projects"("id") ON DELETE cascade ON UPDATE no action;

@@ -1,0 +1,85 @@
+import { and, eq } from "drizzle-orm";
+import { NextResponse, type NextRequest } from "next/server";
+import { z, type ZodType } from "zod";
+import { db } from "@/db";
+import { memberships, projects } from "@/db/schema";
+import { can, type Action } from "@/lib/auth/can";
+import type { SessionUser } from "@/lib/auth/options";
+import type { ProjectRole } from "@/lib/auth/roles";
+import { requireUser } from "@/lib/auth/session";
+import { AppError, forbidden, invalidInput } from "@/lib/errors";
+import { errorResponse, readBody } from "./handler";
+import { checkOrigin } from "./request-guard";
+
+export type Project = typeof projects.$inferSelect;
+
+export type ProjectRouteCtx<P, B> = {
+  req: NextRequest;
+  user: SessionUser;
+  /** The user's role on the project; null only for an administrator on a project.manage route. */
+  role: ProjectRole | null;
+  project: Project;
+  params: P;
+  body: B;
+};
+
+/** Path ids are UUIDs: `projectId`, `id` and every parameter whose name ends in `Id`. */
+const isIdParam = (name: string) => name === "id" || name.endsWith("Id");
+
+/** Malformed → 400 naming the parameter (before any query, so never a database error as 500). */
+export function parsePathIds<P extends Record<string, string>>(raw: P): P {
+  const fields: Record<string, string> = {};
+  for (const [name, value] of Object.entries(raw)) {
+    if (isIdParam(name) && !z.uuid().safeParse(value).success) fields[name] = `The path parameter ${name} is not a valid id.`;
+  }
+  const first = Object.values(fields)[0];
+  if (first) throw invalidInput(first, fields);
+  return raw;
+}
+
+/** One answer for a project that does not exist and one the user does not belong to: no existence oracle. */
+const projectNotFound = () => new AppError("not_found", "Project not found.");
+
+/** The project and the user's role on it, in one query. */
+export async function projectAccess(user: SessionUser, projectId: string, action: Action) {
+  const [row] = await db
+    .select({ project: projects, role: memberships.role })
+    .from(projects)
+    .leftJoin(memberships, and(eq(memberships.projectId, projects.id), eq(memberships.userId, user.id)))
+    .where(eq(projects.id, projectId))
+    .limit(1);
+  if (!row) throw projectNotFound();
+  const role = row.role ?? null;
+  if (!can(user, action, role)) {
+    if (role === null) throw projectNotFound();
+    throw forbidden("Your role on this project does not allow that.");
+  }
+  return { project: row.project, role };
+}
+
+/**
+ * The door of every route under /api/projects/[projectId]: origin check → authenticate → path ids
+ * (400) → project and role, once (404 for missing or foreign) → can(action) (403) → body (size
+ * capped, then the schema) → lib, with { user, role, project }.
+ * `action` is the least a caller must hold; lib applies the finer rule of a record type or a move
+ * (which write action, which transition) from lib/auth/can.ts.
+ */
+export function projectRoute<P extends { projectId: string }, B = undefined>(
+  options: { action: Action; body?: ZodType<B>; maxBodyBytes?: number },
+  handler: (ctx: ProjectRouteCtx<P, B>) => Promise<unknown>,
+) {
+  return async (req: NextRequest, context: { params: Promise<P> }) => {
+    try {
+      checkOrigin(req);
+      const user = await requireUser(req);
+      const params = parsePathIds((await context.params) ?? ({} as P));
+      const { project, role } = await projectAccess(user, params.projectId, options.action);
+      const body = await readBody(req, options);
+      const result = await handler({ req, user, role, project, params, body });
+      if (result instanceof Response) return result;
+      return NextResponse.json(result ?? { ok: true });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
