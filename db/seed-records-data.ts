@@ -4,6 +4,7 @@
 // high evaporation rate, a cold night under blankets, a late truck with water added at the chute,
 // a slump out of tolerance, a rejected load, a held placement and a low 28-day strength test.
 import { fToC, galToL, inToMm, lbFt3ToKgM3, mphToKmh, psiToMPa, yd3ToM3 } from "@/lib/concrete/units";
+import { wallClockInstants } from "@/lib/time/zone";
 import type { RecordType } from "@/lib/records/registry";
 import { DEMO_IDS } from "./seed";
 import { maturityDemoRecords } from "./seed-maturity-data";
@@ -23,21 +24,13 @@ export type DemoRecord = {
 /** Fixed ids: 5eed0000-0000-4000-8000-<n in hex>. */
 export const demoId = (n: number) => `5eed0000-0000-4000-8000-${n.toString(16).padStart(12, "0")}`;
 
-/** A wall-clock time on the site (America/Chicago) as an instant. */
+/** A wall-clock time on the site (America/Chicago) as an instant (the first, where clocks go back). */
 export function chicago(day: string, time: string): Date {
-  const guess = new Date(`${day}T${time}:00Z`);
-  const parts = new Intl.DateTimeFormat("en-US", {
-    timeZone: "America/Chicago",
-    hourCycle: "h23",
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-  }).formatToParts(guess);
-  const part = (type: string) => Number(parts.find((p) => p.type === type)!.value);
-  const shownAsUtc = Date.UTC(part("year"), part("month") - 1, part("day"), part("hour"), part("minute"));
-  return new Date(guess.getTime() - (shownAsUtc - guess.getTime()));
+  const [year, month, date] = day.split("-").map(Number);
+  const [hour, minute] = time.split(":").map(Number);
+  const { instants } = wallClockInstants({ year, month, day: date, hour, minute, second: 0 }, "America/Chicago");
+  if (instants.length === 0) throw new RangeError(`${day} ${time} does not exist in Chicago (clocks went forward)`);
+  return new Date(instants[0]);
 }
 
 const hoursBefore = (date: Date, hours: number) => new Date(date.getTime() - hours * 3_600_000);

@@ -1,6 +1,6 @@
 // The data one digest is built from: a project and one project-local date, as load.ts reads it.
 // Values are SI as stored; the builder formats them in the project's unit system.
-import type { CheckInput } from "@/lib/checks";
+import type { CheckInput, CheckMix } from "@/lib/checks";
 import type { UnitSystem } from "@/lib/concrete/units";
 import type { PlacementState } from "@/lib/records/enums";
 
@@ -18,19 +18,8 @@ export type DigestProject = {
   specEditions: string;
 };
 
-export type DigestMix = {
-  code: string;
-  fcMPa: number;
-  fcAgeDays: number;
-  slumpTargetMm: number | null;
-  slumpType: "target" | "maximum";
-  slumpToleranceMm: number | null;
-  airTargetPct: number | null;
-  airTolerancePct: number | null;
-  maxConcreteTempC: number | null;
-  siteWaterAllowedLPerM3: number;
-  lowBleed: boolean;
-};
+/** The mix as the rulebook reads it (lib/checks): one description of a mix for every surface. */
+export type DigestMix = CheckMix;
 
 export type DigestPlacement = {
   id: string;

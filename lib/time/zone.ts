@@ -78,19 +78,10 @@ export function zonedTimeToInstant(date: string, hour: number, timeZone: string)
   if (!isLocalDate(date)) throw new RangeError(`Not a calendar date: ${date}`);
   if (!Number.isInteger(hour) || hour < 0 || hour > 23) throw new RangeError(`Not an hour of the day: ${hour}`);
   const [y, m, d] = date.split("-").map(Number);
-  const wall = Date.UTC(y, m - 1, d, hour);
-  // The offsets in force a day either side cover any single change of offset around this hour.
-  const before = offsetMs(new Date(wall - DAY_MS), timeZone);
-  const after = offsetMs(new Date(wall + DAY_MS), timeZone);
-  const matches = [...new Set([before, after])]
-    .map((offset) => wall - offset)
-    .filter((t) => {
-      const p = zonedParts(new Date(t), timeZone);
-      return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) === wall;
-    })
-    .sort((a, b) => a - b);
+  const { instants } = wallClockInstants({ year: y, month: m, day: d, hour, minute: 0, second: 0 }, timeZone);
   // No match: the hour does not exist that day; the offset before the change moves it forward.
-  return new Date(matches[0] ?? wall - before);
+  const wall = Date.UTC(y, m - 1, d, hour);
+  return new Date(instants[0] ?? wall - offsetMs(new Date(wall - DAY_MS), timeZone));
 }
 
 /** The instants [start, end) of a project-local calendar day (23 or 25 hours on a change day). */
