@@ -56,7 +56,11 @@ describe("Larkspur Commons, 2026-11-17: the hot, windy deck placement", () => {
   it("shows the trucks with the rejected load, the cylinders made and the 7-day breaks received", () => {
     expect(message.summary.trucks).toMatchObject({ accepted: 3, rejected: 1, late: 0, waterAdded: null, volume: "30.0 yd³" });
     expect(message.text).toContain("Rejected: Concrete at 97 °F on arrival");
-    expect(message.summary.specimens).toEqual(["Set LC-D2-A: 5 cylinders 4 × 8 in, cast 2:15 PM (Level 2 deck); tests at 7 and 28 days"]);
+    expect(message.summary.specimens).toEqual([
+      "Set LC-D2-A: 5 cylinders 4 × 8 in, cast 2:15 PM (Level 2 deck); tests at 7 and 28 days",
+      // The maturity calibration set of the same mix, broken at 1, 2, 3 and 7 days (db/seed-maturity-data.ts).
+      "Set LC-D2-CAL: 8 cylinders 4 × 8 in, cast 2:20 PM (Level 2 deck); tests at 1, 2, 3 and 7 days",
+    ]);
     expect(message.summary.breaks.map((b) => b.low)).toEqual([false]);
     // Two of three 100 mm cylinders: not yet a strength test (ACI 318 counts three of that size).
     expect(message.summary.breaks[0].text).toMatch(/^Set LC-SW1-A \(Shear walls SW-1 to SW-4, level 1 to 2\), 7 days: .*not yet a strength test \(2 of 3 cylinders\)/);

@@ -6,6 +6,7 @@ import { toCheckInput } from "@/lib/checks";
 import { addDays, localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestMix, DigestPlacement } from "@/lib/digest/types";
 import { computeBreak, computeWeather } from "@/lib/records/compute";
+import type { RecordType } from "@/lib/records/registry";
 
 type Values = Record<string, unknown>;
 const v = (r: DemoRecord) => r.values as Values & { id: string };
@@ -26,7 +27,9 @@ export function demoDay(projectId: string, date: string, overrides: Partial<Dige
     coldWeatherDefinition: "aci306r-current",
     ...overrides,
   };
-  const all = new Map(demoRecords());
+  // A type may come more than once (the maturity records add specimen sets and breaks of their own).
+  const all = new Map<RecordType, DemoRecord[]>();
+  for (const [type, rows] of demoRecords()) all.set(type, [...(all.get(type) ?? []), ...rows]);
   const mine = (type: Parameters<typeof all.get>[0]) => (all.get(type) ?? []).filter((r) => r.projectId === projectId);
   const { start, end } = localDayRange(date, project.timeZone);
   const inDay = (value: unknown) => value instanceof Date && value >= start && value < end;
