@@ -12,7 +12,7 @@ const { logger } = await import("../lib/log.ts");
 
 const worker = await startDigestWorker({ pollingIntervalSeconds: settings.digest.pollSeconds });
 const housekeeping = await startHousekeepingWorker();
-logger.info({ queues: ["project-digest", "housekeeping"] }, "worker running; Ctrl-C to stop");
+logger.info({ queues: ["project-digest", "housekeeping"] }, "digest worker running, with housekeeping; Ctrl-C to stop");
 
 let stopping = false;
 async function shutdown(signal: string) {
