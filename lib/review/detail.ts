@@ -7,6 +7,7 @@ import { can } from "@/lib/auth/can";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { attention, evaluate, toCheckInput } from "@/lib/checks";
+import { dayFindings, loadCheckDay } from "@/lib/findings/load";
 import { localDate } from "@/lib/time/zone";
 import { notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
@@ -48,8 +49,11 @@ export async function loadPlacementReview(user: SessionUser, projectId: string, 
   // The rulebook on every record of this placement, whatever day it was made (lib/checks).
   const setIds = snapshot.children["specimen-sets"].map((s) => s.id as string);
   const breaksOfSets = setIds.length ? await db.select().from(breaks).where(and(eq(breaks.projectId, projectId), inArray(breaks.specimenSetId, setIds))) : [];
-  const warnings = attention(
-    evaluate(
+  // The day's own findings (cold or hot weather) on its planned date, as the review table counts them.
+  const dayLevel = dayFindings(await loadCheckDay(db, project, date), date).filter((f) => f.subject.type === "day");
+  const warnings = attention([
+    ...dayLevel,
+    ...evaluate(
       toCheckInput({
         project,
         mixes: mix ? [mix] : [],
@@ -62,7 +66,7 @@ export async function loadPlacementReview(user: SessionUser, projectId: string, 
         breaks: breaksOfSets,
       }),
     ),
-  );
+  ]);
   const signed = placement.state === "signed";
   return {
     role,
