@@ -1,6 +1,7 @@
 // Two instances of one build behind the round-robin proxy (PLAYWRIGHT_PAIR=1, scripts/serve-pair.mjs):
 // nothing in the app may assume one process. Each check talks HTTP to the proxy or to one instance
 // directly, and reads PostgreSQL to see what was applied.
+import { SYNC_SCHEMA_VERSION } from "@/lib/sync/protocol";
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash, randomUUID } from "node:crypto";
 import { hash } from "@node-rs/argon2";
@@ -142,7 +143,7 @@ test("one device's pushes landing on alternating instances apply once and in ord
   const { tag, projectId, cookie } = await superintendentOfNewProject();
   const clientId = randomUUID();
   const push = async (base: string, mutations: ReturnType<typeof placementCreates>) => {
-    const res = await fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify({ clientId, schemaVersion: 2, mutations }) });
+    const res = await fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify({ clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations }) });
     return { status: res.status, json: (await res.json()) as { lastMutationId?: number; results?: { id: number; result: string }[]; error?: { reason?: string; expectedId?: number } } };
   };
   const all = placementCreates(tag, projectId, 1, 30);
@@ -173,7 +174,7 @@ test("SIGTERM during a push: the device's retry on the other instance applies ea
   const { tag, projectId, cookie } = await superintendentOfNewProject();
   const clientId = randomUUID();
   const mutations = placementCreates(tag, projectId, 1, 100);
-  const body = JSON.stringify({ clientId, schemaVersion: 2, mutations });
+  const body = JSON.stringify({ clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations });
   const push = (base: string) => fetch(`${base}/api/sync/push`, { method: "POST", headers: { "content-type": "application/json", cookie }, body });
 
   const doomed = await startDoomed();

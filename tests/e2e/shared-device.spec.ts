@@ -74,10 +74,14 @@ test("shared device: erase, another person, offline window and device PIN", asyn
   await page.screenshot({ path: ".data/screenshots/erase-dialog-phone.png" });
   await page.getByTestId("erase-accept").check();
   await page.getByTestId("erase-confirm").click();
-  await expect.poll(() => userDatabases(page)).not.toContain(`placewright-user-${samId}`);
+  // Erasing signs out and leaves for the sign-in screen: read the databases once that page is there.
+  await page.waitForURL(/\/(signin|offline)/);
+  await page.waitForLoadState();
+  await expect.poll(() => userDatabases(page).catch(() => ["(page still loading)"])).not.toContain(`placewright-user-${samId}`);
 
   // B (Ines, on the same project) signs in on the same browser profile: nothing of A's is there.
   await context.setOffline(false);
+  await page.waitForLoadState();
   await signIn(page, DEMO.ines);
   await today.open();
   await today.expectUser(/Ines/);

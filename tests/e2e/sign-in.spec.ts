@@ -118,7 +118,7 @@ test.describe("sign-in and roles", () => {
   test("signing out returns to the sign-in screen and pages need a session again", async ({ page }) => {
     await signIn(page, DEMO.sam);
     await page.getByTestId("user-menu").click();
-    await page.getByRole("menuitem", { name: "Sign out" }).click();
+    await page.getByRole("menuitem", { name: "Sign out", exact: true }).click();
     await expect(page).toHaveURL(/\/signin/);
     await page.goto("/today");
     await expect(page).toHaveURL(/\/signin/);

@@ -2,6 +2,7 @@
 // subdomain. Attack: state-changing requests carrying a signed-in cookie but another site's Origin,
 // a cross-site Sec-Fetch-Site, or a form content type. Each is refused and writes nothing.
 // [OWASP CSRF Prevention Cheat Sheet: "Verifying origin with standard headers"; Fetch Metadata]
+import { SYNC_SCHEMA_VERSION } from "@/lib/sync/protocol";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as createRoute } from "@/app/api/projects/[projectId]/records/[type]/route";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
@@ -28,7 +29,7 @@ describe("state-changing routes check where the request comes from", () => {
     const before = await tableCounts();
     const routes = [
       attack(createRoute, { user: s.team.office, params: { projectId: s.project.id, type: "mix-designs" }, headers, body: body() }),
-      attack(pushRoute, { user: s.team.office, headers, body: JSON.stringify({ clientId: crypto.randomUUID(), schemaVersion: 2, mutations: [] }) }),
+      attack(pushRoute, { user: s.team.office, headers, body: JSON.stringify({ clientId: crypto.randomUUID(), schemaVersion: SYNC_SCHEMA_VERSION, mutations: [] }) }),
       attack(adminProjects, { user: s.admin, headers, body: JSON.stringify({ name: "Evil", code: "EVIL-1", timeZone: "UTC", unitSystem: "SI" }) }),
       attack(acceptRoute, { headers, body: JSON.stringify({ token: "x".repeat(43), password: "long-enough-password" }) }),
     ];
