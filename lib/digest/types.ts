@@ -1,6 +1,6 @@
 // The data one digest is built from: a project and one project-local date, as load.ts reads it.
 // Values are SI as stored; the builder formats them in the project's unit system.
-import type { CheckInput, CheckMix } from "@/lib/checks";
+import type { CheckDelivery, CheckFieldTest, CheckInput, CheckMix, CheckWeather } from "@/lib/checks";
 import type { UnitSystem } from "@/lib/concrete/units";
 import type { PlacementState } from "@/lib/records/enums";
 
@@ -36,44 +36,17 @@ export type DigestPlacement = {
   mix: DigestMix | null;
 };
 
-export type DigestDelivery = {
-  id: string;
-  placementId: string;
-  ticketNumber: string;
-  truck: string;
-  volumeM3: number;
-  batchedAt: Date;
-  arrivedAt: Date;
-  dischargeFinishedAt: Date | null;
-  revolutions: number | null;
-  waterAddedL: number | null;
-  waterFirstAt: Date | null;
-  waterLastAt: Date | null;
+/** A truck ticket as the rulebook reads it, with who added water and why a load was rejected. */
+export type DigestDelivery = Omit<CheckDelivery, "dischargeStartedAt"> & {
   waterAddedBy: string | null;
   waterAuthorisedBy: string | null;
-  status: "accepted" | "rejected";
   rejectReason: string | null;
 };
 
-export type DigestFieldTest = {
-  id: string;
-  placementId: string;
-  deliveryId: string | null;
-  sampledAt: Date;
-  slumpMm: number | null;
-  airPct: number | null;
-  concreteTempC: number | null;
-};
+export type DigestFieldTest = CheckFieldTest;
 
-export type DigestWeather = {
-  placementId: string | null;
-  observedAt: Date;
-  airTempC: number;
-  relativeHumidityPct: number;
-  windKmh: number;
-  concreteTempC: number | null;
-  evaporationKgM2H: number | null;
-};
+/** A weather reading as the rulebook reads it, with the evaporation rate the server stored. */
+export type DigestWeather = Omit<CheckWeather, "id"> & { evaporationKgM2H: number | null };
 
 export type DigestSpecimenSet = {
   id: string;
