@@ -183,9 +183,17 @@ test("SIGTERM during a push: the device's retry on the other instance applies ea
     async (res) => ({ status: res.status, json: (await res.json()) as { results: { id: number; result: string; version?: number }[] } }),
     (error: Error) => ({ status: 0, json: null, error }),
   );
-  // SIGTERM once the first mutations of the batch are in the database: the push is in flight.
+  // SIGTERM once the push's transaction has started writing (it has a transaction id) and before it
+  // commits: the whole push is one transaction, so nothing of it is visible until then.
   const appliedSoFar = () => withDb(async (db) => Number((await db.query("select count(*) from sync_mutations where client_id = $1", [clientId])).rows[0].count));
-  await expect.poll(appliedSoFar, { timeout: 60_000, intervals: [20] }).toBeGreaterThan(0);
+  const writing = () =>
+    withDb(async (db) =>
+      Number(
+        (await db.query("select count(*) from pg_stat_activity where datname = current_database() and pid <> pg_backend_pid() and backend_xid is not null and xact_start is not null"))
+          .rows[0].count,
+      ),
+    );
+  await expect.poll(writing, { timeout: 60_000, intervals: [10] }).toBeGreaterThan(0);
   doomed.child.kill("SIGTERM");
   const atSigterm = await appliedSoFar();
   const answered = await first;
