@@ -32,8 +32,24 @@ async function createBoss(): Promise<PgBoss> {
   boss.on("error", (err) => logger.error({ err }, "digest queue error"));
   await boss.start();
   // "short": at most one waiting job per singleton key, so a project+day is queued once.
-  await boss.createQueue(DIGEST_QUEUE, { name: DIGEST_QUEUE, policy: "short", ...DIGEST_RETRY, expireInSeconds: 900 });
+  await createQueueOnce(boss, DIGEST_QUEUE, { name: DIGEST_QUEUE, policy: "short", ...DIGEST_RETRY, expireInSeconds: 900 });
   return boss;
+}
+
+/**
+ * Creates a queue that several instances may create at the same moment: pg-boss's create can then
+ * deadlock (40P01) or meet the other's row (23505); the queue exists either way, so try again.
+ */
+export async function createQueueOnce(boss: PgBoss, name: string, options: Parameters<PgBoss["createQueue"]>[1]): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await boss.createQueue(name, options);
+    } catch (error) {
+      const code = (error as { code?: string }).code;
+      if (attempt >= 5 || (code !== "40P01" && code !== "23505")) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200 * attempt));
+    }
+  }
 }
 
 export function getBoss(): Promise<PgBoss> {

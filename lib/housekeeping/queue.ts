@@ -2,7 +2,7 @@
 // one waiting job at a time ("short" policy + singleton key); each run queues the next one, so a
 // crashed run or a restart never leaves it unscheduled, and several instances never double it.
 import type { Job } from "pg-boss";
-import { getBoss } from "@/lib/digest/queue";
+import { createQueueOnce, getBoss } from "@/lib/digest/queue";
 import { runHousekeeping } from "./prune";
 
 export const HOUSEKEEPING_QUEUE = "housekeeping";
@@ -15,7 +15,7 @@ async function queueNext(delayMs: number): Promise<string | null> {
 
 export async function startHousekeepingWorker(): Promise<{ stop: () => Promise<void> }> {
   const boss = await getBoss();
-  await boss.createQueue(HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: "short", expireInSeconds: 900 });
+  await createQueueOnce(boss, HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: "short", expireInSeconds: 900 });
   const workId = await boss.work(HOUSEKEEPING_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async (jobs: Job[]) => {
     if (!jobs.length) return;
     await queueNext(HOUSEKEEPING_EVERY_MS);
