@@ -7,7 +7,10 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit";
 import { AppError, notFound } from "@/lib/errors";
 import { findUserByEmail } from "@/lib/users/queries";
+import { parseOrThrow } from "@/lib/api/handler";
+import { refreshProject } from "@/lib/findings/store";
 import type { ProjectInput } from "./schemas";
+import { projectSpecSchema, type ProjectSpec } from "./spec";
 
 export async function createProject(actor: SessionUser, input: ProjectInput) {
   authorizeAdmin(actor, "admin.projects");
@@ -88,4 +91,41 @@ export async function listUsers(actor: SessionUser) {
     .from(users)
     .orderBy(asc(users.name))
     .then((rows) => rows.map((r) => ({ ...r, hasPassword: Boolean(r.hasPassword), disabled: r.disabledAt !== null })));
+}
+
+/** The project specification's values as stored (SI). */
+export const projectSpec = (project: typeof projects.$inferSelect): ProjectSpec => ({
+  evaporationHighKgM2H: project.evaporationHighKgM2H,
+  maxConcreteTempC: project.maxConcreteTempC,
+  dischargeLimitMinutes: project.dischargeLimitMinutes,
+  revolutionLimit: project.revolutionLimit,
+  coldWeatherDefinition: project.coldWeatherDefinition,
+  specEditions: project.specEditions,
+  maturityMethod: project.maturityMethod,
+  maturityDatumC: project.maturityDatumC,
+  maturityActivationEnergyJPerMol: project.maturityActivationEnergyJPerMol,
+  maturityTargetMPa: project.maturityTargetMPa,
+});
+
+/**
+ * Changes the project specification's values (the route door has checked project.manage). Every
+ * stored finding of the project is judged again with them in the same transaction, so no surface
+ * shows a verdict from the old values; the audit entry keeps both.
+ */
+export async function updateProjectSpec(actor: SessionUser, project: typeof projects.$inferSelect, input: unknown) {
+  const change = parseOrThrow(projectSpecSchema(project.unitSystem), input);
+  return db.transaction(async (tx) => {
+    const [updated] = await tx.update(projects).set({ ...change, updatedAt: new Date() }).where(eq(projects.id, project.id)).returning();
+    await writeAudit(tx, {
+      projectId: project.id,
+      userId: actor.id,
+      recordType: "project",
+      recordId: project.id,
+      action: "update",
+      before: Object.fromEntries(Object.keys(change).map((k) => [k, projectSpec(project)[k as keyof ProjectSpec]])),
+      after: change,
+    });
+    await refreshProject(tx, project.id);
+    return projectSpec(updated);
+  });
 }
