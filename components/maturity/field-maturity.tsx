@@ -8,7 +8,7 @@ import { Button } from "@/components/ui/button";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import type { SyncDb } from "@/lib/sync/client";
-import { buildMaturityView } from "./maturity-model";
+import { buildMaturityView } from "@/lib/maturity/view";
 import { MaturitySummary, targetInputOf, targetMPaOf } from "./maturity-summary";
 import { SensorForm, SensorRow } from "./sensor-forms";
 

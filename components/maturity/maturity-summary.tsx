@@ -3,7 +3,7 @@
 import dynamic from "next/dynamic";
 import { Notice } from "@/components/ui/notice";
 import { formatStrength, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
-import { MATURITY_CAUTIONS, chartSeries, estimateText, targetText, type MaturityView } from "./maturity-model";
+import { MATURITY_CAUTIONS, chartSeries, estimateText, targetText, type MaturityView } from "@/lib/maturity/view";
 
 // recharts is heavy: the chart loads on demand, in the browser only.
 const MaturityChart = dynamic(() => import("./maturity-chart").then((m) => m.MaturityChart), {

@@ -2,7 +2,7 @@
 
 import { useMemo, useState } from "react";
 import type { UnitSystem } from "@/lib/concrete";
-import { buildMaturityView } from "./maturity-model";
+import { buildMaturityView } from "@/lib/maturity/view";
 import { MaturitySummary, targetInputOf, targetMPaOf } from "./maturity-summary";
 
 type Row = Record<string, unknown>;

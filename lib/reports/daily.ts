@@ -13,11 +13,13 @@ import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { GOVERNS, citation } from "@/lib/checks";
 import { loadDigestDay } from "@/lib/digest/load";
-import { isLocalDate } from "@/lib/time/zone";
+import { isLocalDate, localDayRange } from "@/lib/time/zone";
+import { maturityOfPeriod } from "@/lib/maturity/records";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
 import { assertUuid } from "@/lib/records/guards";
 import { DELIVERY_STATUS_WORDS, warningWord, wordFor } from "@/lib/ui/vocabulary";
+import { drawMaturitySection } from "./maturity-section";
 import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE, toneColour } from "./pdf-layout";
 
 export const reportDateSchema = z
@@ -58,7 +60,8 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", year: "numeric", hour: "numeric", minute: "2-digit" }).format(d);
   const placementIds = day.placements.map((p) => p.id);
 
-  const [lists, items, dayPhotos, [diaryRow]] = await Promise.all([
+  const { start: dayStart, end: dayEnd } = localDayRange(date, project.timeZone);
+  const [lists, items, dayPhotos, [diaryRow], maturity] = await Promise.all([
     placementIds.length
       ? db.select().from(checklists).where(and(eq(checklists.projectId, projectId), inArray(checklists.placementId, placementIds), isNull(checklists.deletedAt))).orderBy(asc(checklists.createdAt))
       : [],
@@ -78,6 +81,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
           .orderBy(asc(photos.takenAt))
       : [],
     db.select({ id: diaryEntries.id }).from(diaryEntries).where(and(eq(diaryEntries.projectId, projectId), eq(diaryEntries.date, date), isNull(diaryEntries.deletedAt))),
+    maturityOfPeriod(db, projectId, dayStart, dayEnd),
   ]);
   const signedIds = [...placementIds, ...(diaryRow ? [diaryRow.id] : [])];
   const signatures = signedIds.length
@@ -191,6 +195,9 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     for (const s of summary.specimens) l.text(s);
     for (const b of summary.breaks) l.text(b.text, { color: b.low ? DANGER : undefined, bold: b.low });
   }
+
+  // In-place strength at the end of the day (or now, for today's report).
+  drawMaturitySection(l, maturity, new Date(Math.min(Date.now(), dayEnd.getTime())));
 
   // Checklists
   l.heading("Checklists");

@@ -19,6 +19,8 @@ import * as reportRoute from "@/app/api/projects/[projectId]/reports/daily/route
 import { loadDigestDay } from "@/lib/digest/load";
 import { localDayRange } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
+import { readMaturityRecords } from "@/lib/maturity/records";
+import { MATURITY_CAUTIONS, buildMaturityView, estimateText, targetText } from "@/lib/maturity/view";
 import { callRoute, createUser, sessionCookie, type TestUser } from "./helpers";
 
 const LARKSPUR = DEMO_IDS.projects.larkspur;
@@ -188,5 +190,53 @@ describe("PDF daily report", () => {
     expect(anon.status).toBe(401);
     const notUuid = await callRoute(reportRoute.GET, { user: office, url: `/api/projects/nope/reports/daily?date=${DAY}`, params: { projectId: "nope" } });
     expect(notUuid.status).toBe(400);
+  });
+});
+
+describe("PDF daily report: in-place strength by the maturity method", () => {
+  const MATURITY_DAY = "2026-11-19"; // the demo deck's third day of logging
+
+  it("shows each sensor's maturity at the end of the day, the same estimate as the office page, and the C1074 cautions", async () => {
+    const res = await getReport(office, MATURITY_DAY);
+    expect(res.status).toBe(200);
+    const { text } = await pdfText(new Uint8Array(await res.arrayBuffer()));
+    expect(text).toContain("In-place strength by the maturity method (1)");
+    expect(text).toContain("Level 2 deck");
+
+    const { end } = localDayRange(MATURITY_DAY, "America/Chicago");
+    const [deck] = await db.select().from(placements).where(and(eq(placements.projectId, LARKSPUR), eq(placements.element, "Level 2 deck")));
+    const records = await readMaturityRecords(db, LARKSPUR, deck.id, deck.mixId, end);
+    // ASTM C1074 temperature-time factor, summed here independently of lib/concrete: each interval
+    // at the mean of its two readings, datum 0 °C (the standard's default), in °C·h.
+    for (const sensor of records.sensors) {
+      const readings = records.batches.filter((b) => b.sensorId === sensor.id).flatMap((b) => b.readings).sort((a, b) => a[0].localeCompare(b[0]));
+      let factor = 0;
+      for (let i = 1; i < readings.length; i++) {
+        const hours = (Date.parse(readings[i][0]) - Date.parse(readings[i - 1][0])) / 3_600_000;
+        factor += Math.max(0, (readings[i][1] + readings[i - 1][1]) / 2) * hours;
+      }
+      expect(readings.length).toBeGreaterThan(10);
+      expect(text).toContain(`${sensor.name} ${sensor.location} ${readings.length}`);
+      expect(text).toContain(`${Math.round(factor)}`);
+    }
+
+    // The office page's view of the same records at the same instant says the same.
+    const [project] = await db.select().from(projects).where(eq(projects.id, LARKSPUR));
+    const view = buildMaturityView({
+      project,
+      placement: { ...deck, plannedStart: deck.plannedStart.toISOString() },
+      mixCode: "LC-5000-D",
+      ...records,
+      targetMPa: project.maturityTargetMPa,
+      now: end,
+    });
+    expect(text).toContain(flat(`Estimated in-place strength at 2026-11-20 00:00: ${estimateText(view, "IP")}`));
+    expect(text).toContain(flat(`Target: ${targetText(view, "America/Chicago")}`));
+    for (const caution of MATURITY_CAUTIONS) expect(text).toContain(flat(caution));
+  });
+
+  it("leaves the section out on a day without a temperature record", async () => {
+    const { text } = await pdfText(new Uint8Array(await (await getReport(office, "2026-11-10")).arrayBuffer()));
+    expect(text).not.toContain("maturity method");
   });
 });

@@ -1,6 +1,6 @@
 import { describe, it, expect } from "vitest";
 
-import { buildMaturityView, estimateText, targetText } from "@/components/maturity/maturity-model";
+import { buildMaturityView, estimateText, targetText } from "@/lib/maturity/view";
 import { psiToMPa } from "@/lib/concrete/units";
 import { DEMO_IDS } from "@/db/seed";
 import { demoRecords } from "@/db/seed-records-data";

@@ -1,6 +1,6 @@
 import { describe, it, expect } from "vitest";
 
-import { buildMaturityView, chartSeries, estimateText, settingsOf, targetText } from "@/components/maturity/maturity-model";
+import { buildMaturityView, chartSeries, estimateText, settingsOf, targetText } from "@/lib/maturity/view";
 import { targetMPaOf } from "@/components/maturity/maturity-summary";
 
 const SENSOR = "00000000-0000-4000-8000-0000000000a1";

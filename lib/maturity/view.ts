@@ -1,4 +1,4 @@
-// Pure helpers behind the maturity panel (field and office): records as stored → the assessment from
+// The maturity view of one placement (field panel, office page and PDF): records as stored → the assessment from
 // lib/concrete, the findings from lib/checks, and the words and chart series a screen shows.
 // No React here, so the field and the office show the same figures and it is unit-tested.
 import {
