@@ -17,7 +17,7 @@ export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field(
   const inputId = id ?? autoId;
   const describedBy = error ? `${inputId}-error` : hint ? `${inputId}-hint` : undefined;
   return (
-    <div className={clsx("flex flex-col gap-1", className)}>
+    <div className={clsx("flex min-w-0 flex-col gap-1", className)}>
       <label htmlFor={inputId} className="text-sm font-semibold text-ink-800">
         {label}
       </label>
@@ -28,7 +28,7 @@ export const Field = forwardRef<HTMLInputElement, FieldProps>(function Field(
           aria-invalid={error ? true : undefined}
           aria-describedby={describedBy}
           className={clsx(
-            "min-h-touch w-full rounded-lg border bg-white px-3 text-base text-ink-950 placeholder:text-ink-400",
+            "min-h-touch w-full min-w-0 rounded-lg border bg-white px-3 text-base text-ink-950 placeholder:text-ink-400",
             "focus:outline-2 focus:outline-offset-1 focus:outline-lichen-600",
             unit && "rounded-r-none",
             error ? "border-danger-600" : "border-ink-300",

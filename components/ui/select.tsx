@@ -10,7 +10,7 @@ export const Select = forwardRef<HTMLSelectElement, SelectProps>(function Select
   const autoId = useId();
   const selectId = id ?? autoId;
   return (
-    <div className={clsx("flex flex-col gap-1", className)}>
+    <div className={clsx("flex min-w-0 flex-col gap-1", className)}>
       <label htmlFor={selectId} className="text-sm font-semibold text-ink-800">
         {label}
       </label>
