@@ -5,6 +5,7 @@ import { CalendarDays, FlaskConical, FolderKanban, Gauge, HardHat, ShieldCheck, 
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { LogoMark } from "@/components/brand/logo-mark";
+import { SyncProvider } from "@/lib/sync/client/react";
 import type { UserProject } from "@/lib/users/queries";
 import { ContrastToggle } from "./contrast-toggle";
 import { ProjectSwitcher } from "./project-switcher";
@@ -37,6 +38,7 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
   const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
 
   return (
+    <SyncProvider identity={user}>
     <div className="flex min-h-dvh flex-col">
       <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
         <div className="mx-auto flex max-w-7xl items-center gap-3 px-3 py-2 lg:px-6">
@@ -73,5 +75,6 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
       {/* Phone: the main places sit under the thumb. */}
       <BottomNav label="Main" items={nav.filter((item) => !DESK_ONLY.has(item.href))} isActive={isActive} className="md:hidden" />
     </div>
+    </SyncProvider>
   );
 }

@@ -91,3 +91,12 @@ test("the digest's day link shows only that day's placements", async ({ page }) 
   await page.getByRole("link", { name: "Show every placement" }).click();
   await expect(page.getByText("Podium slab, east half")).toBeVisible();
 });
+
+test("office screens show the sync state, not only online or offline", async ({ page }) => {
+  await signIn(page, DEMO.olu);
+  await page.goto("/review");
+  // The shell mounts the sync provider: after the first pull the control says the device is up to date.
+  await expect(page.getByTestId("sync-status")).toContainText("All saved", { timeout: 30_000 });
+  await page.goto("/lab");
+  await expect(page.getByTestId("sync-status")).toContainText("All saved", { timeout: 30_000 });
+});
