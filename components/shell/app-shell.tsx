@@ -39,42 +39,42 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
 
   return (
     <SyncProvider identity={user}>
-    <div className="flex min-h-dvh flex-col">
-      <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
-        <div className="mx-auto flex max-w-7xl items-center gap-3 px-3 py-2 lg:px-6">
-          <Link href="/today" className="flex items-center gap-2" aria-label="Placewright, today">
-            <LogoMark className="h-9 w-9" />
-            <span className="hidden text-lg font-bold tracking-tight sm:inline">Placewright</span>
-          </Link>
-          <ProjectSwitcher projects={projects} />
-          <nav aria-label="Main" className="ml-2 hidden items-center gap-1 md:flex">
-            {nav.map(({ href, label }) => (
-              <Link
-                key={href}
-                href={href}
-                aria-current={isActive(href) ? "page" : undefined}
-                className={clsx(
-                  "rounded-md px-3 py-2 text-sm font-semibold",
-                  isActive(href) ? "bg-white/15 text-white" : "text-ink-200 hover:bg-white/10 hover:text-white",
-                )}
-              >
-                {label}
-              </Link>
-            ))}
-          </nav>
-          <div className="ml-auto flex items-center gap-1">
-            <SyncStatus />
-            <ContrastToggle />
-            <UserMenu user={user} />
+      <div className="flex min-h-dvh flex-col">
+        <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
+          <div className="mx-auto flex max-w-7xl items-center gap-3 px-3 py-2 lg:px-6">
+            <Link href="/today" className="flex items-center gap-2" aria-label="Placewright, today">
+              <LogoMark className="h-9 w-9" />
+              <span className="hidden text-lg font-bold tracking-tight sm:inline">Placewright</span>
+            </Link>
+            <ProjectSwitcher projects={projects} />
+            <nav aria-label="Main" className="ml-2 hidden items-center gap-1 md:flex">
+              {nav.map(({ href, label }) => (
+                <Link
+                  key={href}
+                  href={href}
+                  aria-current={isActive(href) ? "page" : undefined}
+                  className={clsx(
+                    "rounded-md px-3 py-2 text-sm font-semibold",
+                    isActive(href) ? "bg-white/15 text-white" : "text-ink-200 hover:bg-white/10 hover:text-white",
+                  )}
+                >
+                  {label}
+                </Link>
+              ))}
+            </nav>
+            <div className="ml-auto flex items-center gap-1">
+              <SyncStatus />
+              <ContrastToggle />
+              <UserMenu user={user} />
+            </div>
           </div>
-        </div>
-      </header>
+        </header>
 
-      <main className="mx-auto w-full max-w-7xl flex-1 px-3 pb-28 pt-4 md:pb-10 lg:px-6">{children}</main>
+        <main className="mx-auto w-full max-w-7xl flex-1 px-3 pb-28 pt-4 md:pb-10 lg:px-6">{children}</main>
 
-      {/* Phone: the main places sit under the thumb. */}
-      <BottomNav label="Main" items={nav.filter((item) => !DESK_ONLY.has(item.href))} isActive={isActive} className="md:hidden" />
-    </div>
+        {/* Phone: the main places sit under the thumb. */}
+        <BottomNav label="Main" items={nav.filter((item) => !DESK_ONLY.has(item.href))} isActive={isActive} className="md:hidden" />
+      </div>
     </SyncProvider>
   );
 }
