@@ -32,12 +32,12 @@ if (!/test|bench/i.test(databaseName) && !argv.includes("--force")) {
 process.env.DATABASE_URL = url;
 
 const { closeDb, db } = await import("../db/index.ts");
+const { deleteBenchRows } = await import("./bench/cleanup.ts");
 const { memberships, projects, users } = await import("../db/schema/index.ts");
 const { SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
 const { pullChanges } = await import("../lib/sync/server/pull.ts");
 const { RECORD_TYPES, getRecordDef } = await import("../lib/records/registry.ts");
 const { getTableName } = await import("drizzle-orm");
-const { eq } = await import("drizzle-orm");
 
 const tag = randomUUID().slice(0, 8).toUpperCase();
 const [user] = await db.insert(users).values({ email: `bench-${tag.toLowerCase()}@example.test`, name: `Bench ${tag}`, isAdmin: false }).returning();
@@ -130,7 +130,6 @@ try {
   console.log(`pull ÷ raw ratio ${(rawSeconds / pullSeconds).toFixed(2)} (1.00 = as fast as the raw read)`);
 } finally {
   await plain.end().catch(() => undefined);
-  await db.delete(projects).where(eq(projects.id, project.id));
-  await db.delete(users).where(eq(users.id, user.id));
+  await deleteBenchRows(db, [project.id], [user.id]);
   await closeDb();
 }

@@ -38,11 +38,11 @@ if (!/test|bench/i.test(databaseName) && !force) {
 process.env.DATABASE_URL = url;
 
 const { closeDb, db } = await import("../db/index.ts");
+const { deleteBenchRows } = await import("./bench/cleanup.ts");
 const { memberships, projects, users } = await import("../db/schema/index.ts");
 const { MAX_MUTATIONS_PER_PUSH, SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
 type Mutation = import("../lib/sync/protocol.ts").Mutation;
 const { pushMutations } = await import("../lib/sync/server/push.ts");
-const { inArray, eq } = await import("drizzle-orm");
 
 const BATCH = MAX_MUTATIONS_PER_PUSH;
 const T0 = Date.parse("2026-11-16T08:00:00-06:00");
@@ -204,7 +204,6 @@ try {
   // Clean up: projects cascade to memberships, records, audit entries, conflicts and counters;
   // the user cascades to its sync clients and their stored mutations.
   await plain.end().catch(() => undefined);
-  await db.delete(projects).where(inArray(projects.id, [syncProject.id, plainProject.id]));
-  await db.delete(users).where(eq(users.id, user.id));
+  await deleteBenchRows(db, [syncProject.id, plainProject.id], [user.id]);
   await closeDb();
 }

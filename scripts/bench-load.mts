@@ -1,0 +1,234 @@
+// npm run bench:load [-- --devices=200 --seconds=60 --connections=50] [--force]
+// The sync routes under load on two app instances (scripts/serve-pair.mjs: a round-robin proxy in
+// front of two `serve.mjs` processes) sharing one PostgreSQL, beside a baseline measured in the same
+// run, with autocannon. Needs a production build (`npm run build`) and the app's environment
+// (DATABASE_URL of a test or bench database, NEXTAUTH_SECRET, the fakes' URLs), as scripts/test.sh sets it.
+// Three phases, a share of --seconds each:
+// 1. baseline: GET /api/health (one query) with --connections connections;
+// 2. empty incremental pull: POST /api/sync/pull from --devices signed-in devices whose cursor is
+//    current, so there is nothing new: the cost of asking;
+// 3. devices at work: each device in turn pushes 20 new deliveries (POST /api/sync/push) and pulls,
+//    push and pull traffic side by side.
+// It prints requests/s, errors (non-2xx, socket errors, timeouts) and p50/p95/p99 per route, measured
+// from each response's own time, and the ratio of the empty pull's rate to the health route's.
+// Everything it created is deleted at the end. It refuses a database whose name has neither "test"
+// nor "bench" in it unless --force is given.
+import { spawn } from "node:child_process";
+import { randomUUID } from "node:crypto";
+import net from "node:net";
+import path from "node:path";
+import autocannon from "autocannon";
+import { encode } from "next-auth/jwt";
+
+const argv = process.argv.slice(2);
+const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
+const devicesCount = Number(option("devices") ?? 200);
+const seconds = Number(option("seconds") ?? 60);
+const connections = Number(option("connections") ?? 50);
+if (![devicesCount, seconds, connections].every((n) => Number.isInteger(n) && n >= 1) || devicesCount < connections) {
+  console.error("--devices, --seconds and --connections must be whole numbers of 1 or more, with at least as many devices as connections");
+  process.exit(2);
+}
+const url = process.env.DATABASE_URL;
+const secret = process.env.NEXTAUTH_SECRET;
+if (!url || !secret) {
+  console.error("bench-load needs DATABASE_URL and NEXTAUTH_SECRET (the app's environment; see scripts/test.sh)");
+  process.exit(2);
+}
+const databaseName = decodeURIComponent(new URL(url).pathname.replace(/^\//, ""));
+if (!/test|bench/i.test(databaseName) && !argv.includes("--force")) {
+  console.error(`bench-load writes to database "${databaseName}", whose name has neither "test" nor "bench". Use a throwaway database, or pass --force.`);
+  process.exit(2);
+}
+
+const { closeDb, db } = await import("../db/index.ts");
+const { deleteBenchRows } = await import("./bench/cleanup.ts");
+const { memberships, projects, users } = await import("../db/schema/index.ts");
+const { createRecord } = await import("../lib/records/write.ts");
+const { openSession } = await import("../lib/auth/user-sessions.ts");
+const { SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
+
+// ── Set-up: one project, one placement to pour into, and the signed-in devices ──
+const tag = randomUUID().slice(0, 8).toUpperCase();
+const [project] = await db.insert(projects).values({ name: `Bench load ${tag}`, code: `BL-${tag}`, timeZone: "America/Chicago", unitSystem: "SI" }).returning();
+const people = await db
+  .insert(users)
+  .values(Array.from({ length: devicesCount }, (_, i) => ({ email: `bench-${tag.toLowerCase()}-${i}@example.test`, name: `Bench ${tag} ${i}`, isAdmin: false })))
+  .returning();
+await db.insert(memberships).values(people.map((u) => ({ userId: u.id, projectId: project.id, role: "superintendent" as const })));
+// The placement the trucks pour into, through the write path (its change number and audit entry).
+const { record: placement } = await createRecord({ user: { id: people[0].id, email: people[0].email, name: people[0].name, isAdmin: false } }, "placements", project.id, {
+  id: randomUUID(),
+  element: "Bench slab",
+  level: "L1",
+  grid: "A-D/1-4",
+  elementType: "elevated-slab",
+  leastDimensionMm: 250,
+  plannedVolumeM3: 60,
+  plannedStart: new Date().toISOString(),
+});
+
+type Device = { clientId: string; cookie: string; cursor: Record<string, number> | null; nextMutationId: number };
+const devices: Device[] = [];
+for (const u of people) {
+  const sid = await openSession(u.id, "bench-load");
+  const token = await encode({ token: { sub: u.id, email: u.email, name: u.name, isAdmin: false, sid }, secret });
+  devices.push({ clientId: randomUUID(), cookie: `next-auth.session-token=${token}`, cursor: null, nextMutationId: 1 });
+}
+
+// ── Two instances behind the proxy ──
+const freePort = () =>
+  new Promise<number>((resolve) => {
+    const s = net.createServer().listen(0, "127.0.0.1", () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+const [port, portA, portB] = [await freePort(), await freePort(), await freePort()];
+const base = `http://127.0.0.1:${port}`;
+const pair = spawn(process.execPath, [path.join(import.meta.dirname, "serve-pair.mjs"), "-H", "127.0.0.1", "-p", String(port), "--ports", `${portA},${portB}`], {
+  env: { ...process.env, DIGEST_WORKER: "off", APP_ORIGIN: base, NEXTAUTH_URL: base, LOG_LEVEL: "warn" },
+  stdio: ["ignore", "ignore", "inherit"],
+});
+async function waitReady() {
+  for (let i = 0; i < 240; i++) {
+    const ok = await Promise.all([portA, portB].map((p) => fetch(`http://127.0.0.1:${p}/api/health`).then((r) => r.ok, () => false)));
+    if (ok.every(Boolean)) return;
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  throw new Error("the two instances did not become ready within 2 minutes (is there a build? npm run build)");
+}
+
+const headers = (d: Device) => ({ "content-type": "application/json", cookie: d.cookie, origin: base });
+const pullBody = (d: Device) => JSON.stringify({ clientId: d.clientId, schemaVersion: SYNC_SCHEMA_VERSION, cursor: d.cursor });
+function pushBody(d: Device) {
+  const mutations = Array.from({ length: 20 }, () => {
+    const id = randomUUID();
+    const at = Date.now();
+    return {
+      id: d.nextMutationId++,
+      name: "create",
+      recordType: "deliveries",
+      projectId: project.id,
+      recordId: id,
+      args: {
+        id,
+        placementId: placement.id,
+        ticketNumber: `BL-${id.slice(0, 8)}`,
+        truck: "B-17",
+        volumeM3: 8,
+        batchedAt: new Date(at - 50 * 60_000).toISOString(),
+        arrivedAt: new Date(at - 20 * 60_000).toISOString(),
+      },
+    };
+  });
+  return JSON.stringify({ clientId: d.clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations });
+}
+
+type Figures = { route: string; requests: number; perSecond: number; errors: number; p50: number; p95: number; p99: number };
+const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
+
+type Request = { method: "GET" | "POST"; path: string; headers?: Record<string, string>; body?: string; device?: Device };
+
+/**
+ * One autocannon run; `next` gives each request (round-robin over devices). A push whose answer
+ * rejects a change counts as an error; a pull moves its device's cursor, as a device does.
+ */
+function run(route: string, duration: number, next: () => Request) {
+  return new Promise<Figures>((resolve, reject) => {
+    const times: number[] = [];
+    let errors = 0;
+    const instance = autocannon(
+      {
+        url: base,
+        connections,
+        duration,
+        timeout: 10,
+        requests: [
+          {
+            setupRequest: (req, context) => {
+              const { device, ...request } = next();
+              (context as { device?: Device }).device = device;
+              return { ...req, ...request };
+            },
+            onResponse: (status, body, context) => {
+              const device = (context as { device?: Device }).device;
+              if (status !== 200 || !device) return;
+              const answer = JSON.parse(body) as { cursor?: Record<string, number>; results?: { result: string }[] };
+              if (answer.cursor) device.cursor = answer.cursor;
+              errors += answer.results?.filter((r) => r.result !== "applied").length ? 1 : 0;
+            },
+          },
+        ],
+      },
+      (error, result) => {
+        if (error) return reject(error);
+        const sorted = times.sort((a, b) => a - b);
+        resolve({
+          route,
+          requests: sorted.length,
+          perSecond: sorted.length / duration,
+          errors: errors + result.errors + result.timeouts,
+          p50: percentile(sorted, 50),
+          p95: percentile(sorted, 95),
+          p99: percentile(sorted, 99),
+        });
+      },
+    );
+    instance.on("response", (_client, statusCode, _bytes, responseTime) => {
+      times.push(responseTime);
+      if (statusCode < 200 || statusCode >= 300) errors += 1;
+    });
+  });
+}
+
+let exitCode = 0;
+try {
+  await waitReady();
+  // Every device's first pull, so its cursor is current (not timed).
+  for (const d of devices) {
+    const res = await fetch(`${base}/api/sync/pull`, { method: "POST", headers: headers(d), body: pullBody(d) });
+    if (!res.ok) throw new Error(`first pull answered ${res.status}: ${await res.text()}`);
+    d.cursor = ((await res.json()) as { cursor: Record<string, number> }).cursor;
+  }
+  const phase = Math.max(1, Math.round(seconds / 4));
+  let turn = 0;
+  const nextDevice = () => devices[turn++ % devices.length];
+
+  const health = await run("GET /api/health (baseline)", phase, () => ({ method: "GET", path: "/api/health" }));
+  const emptyPull = await run("POST /api/sync/pull, nothing new", phase, () => {
+    const d = nextDevice();
+    return { method: "POST", path: "/api/sync/pull", headers: headers(d), body: pullBody(d), device: d };
+  });
+  // Devices at work: push and pull side by side, each device's requests far apart (devices ≥ connections).
+  let pushTurn = 0;
+  let pullTurn = devices.length >> 1;
+  const [push, pull] = await Promise.all([
+    run("POST /api/sync/push (20 changes)", phase * 2, () => {
+      const d = devices[pushTurn++ % devices.length];
+      return { method: "POST", path: "/api/sync/push", headers: headers(d), body: pushBody(d), device: d };
+    }),
+    run("POST /api/sync/pull, while pushing", phase * 2, () => {
+      const d = devices[pullTurn++ % devices.length];
+      return { method: "POST", path: "/api/sync/pull", headers: headers(d), body: pullBody(d), device: d };
+    }),
+  ]);
+
+  const rows = [health, emptyPull, push, pull];
+  console.log(`\nbench:load · ${devicesCount} devices · ${connections} connections per run · two instances behind a round-robin proxy · one PostgreSQL`);
+  console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"req/s".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)}`);
+  for (const r of rows) {
+    console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.perSecond.toFixed(1).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)}`);
+  }
+  console.log(`\nempty incremental pull ÷ health route (requests/s): ${(emptyPull.perSecond / health.perSecond).toFixed(2)} (target ≥ 0.5)`);
+  console.log(`errors in all: ${rows.reduce((n, r) => n + r.errors, 0)} (target 0); p99 pull ${pull.p99} ms (target ≤ 150), push ${push.p99} ms (target ≤ 300)`);
+} catch (error) {
+  console.error(error);
+  exitCode = 1;
+} finally {
+  pair.kill("SIGTERM");
+  await new Promise((r) => pair.once("exit", r));
+  await deleteBenchRows(db, [project.id], people.map((u) => u.id));
+  await closeDb();
+}
+process.exit(exitCode);
