@@ -1,4 +1,4 @@
-import { securityHeaders, storageOrigin } from "./lib/http/security-headers.mjs";
+import { securityHeaders } from "./lib/http/security-headers.mjs";
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
@@ -8,7 +8,7 @@ const nextConfig = {
   serverExternalPackages: ["@node-rs/argon2", "pg", "pg-boss", "nodemailer", "sharp"],
   async headers() {
     return [
-      ...securityHeaders({ storageOrigin: storageOrigin(), dev: process.env.NODE_ENV !== "production" }),
+      ...securityHeaders(),
       {
         source: "/sw.js",
         headers: [
