@@ -1,14 +1,14 @@
-import { securityHeaders, storageOrigin } from "./lib/http/security-headers.mjs";
+import { securityHeaders } from "./lib/http/security-headers.mjs";
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
   // Server-only packages with native or dynamic requires stay outside the bundle.
-  serverExternalPackages: ["@node-rs/argon2", "pg", "pg-boss", "nodemailer"],
+  serverExternalPackages: ["@node-rs/argon2", "pg", "pg-boss", "nodemailer", "sharp"],
   async headers() {
     return [
-      ...securityHeaders({ storageOrigin: storageOrigin(), dev: process.env.NODE_ENV !== "production" }),
+      ...securityHeaders(),
       {
         source: "/sw.js",
         headers: [

@@ -48,7 +48,8 @@ export default defineConfig({
     reuseExistingServer: false,
     timeout: 180_000,
     // The digest worker stays off while tests drive the app (integration tests cover it).
-    env: { ...(process.env as Record<string, string>), DIGEST_WORKER: "off" },
+    // The served app connects as the role that owns nothing (scripts/app-role.mts) when one is set.
+    env: { ...(process.env as Record<string, string>), DATABASE_URL: process.env.APP_DATABASE_URL ?? process.env.DATABASE_URL ?? "", DIGEST_WORKER: "off" },
     stdout: "ignore",
     stderr: "pipe",
   },

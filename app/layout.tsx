@@ -3,6 +3,8 @@ import { Providers } from "@/components/providers/providers";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
 import { paletteHex } from "@/lib/ui/palette";
+// Its hash is in every page's Content-Security-Policy (proxy.ts), so it runs without a nonce.
+import { CONTRAST_SCRIPT } from "@/lib/http/security-headers.mjs";
 
 export const metadata: Metadata = {
   title: { default: "Placewright", template: "%s · Placewright" },
@@ -17,14 +19,12 @@ export const viewport: Viewport = {
   initialScale: 1,
 };
 
-// Applies the saved daylight (high-contrast) mode before first paint, so the page never flashes.
-const contrastScript = `try{if(localStorage.getItem("pw-contrast")==="daylight")document.documentElement.dataset.contrast="daylight"}catch(e){}`;
 
 export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: contrastScript }} />
+        <script dangerouslySetInnerHTML={{ __html: CONTRAST_SCRIPT }} />
       </head>
       <body className="min-h-dvh font-sans antialiased">
         <Providers>{children}</Providers>

@@ -2,10 +2,11 @@
 // Static (prerendered) pages are the offline shells: their HTML is precached under their route, and
 // their RSC payloads (.rsc and .segments/) are copied to public/__offline/ and precached too, so the
 // service worker can answer the router's soft navigations offline (sw/rsc.ts).
-import { cpSync, existsSync, mkdirSync, readdirSync, rmSync, statSync } from "node:fs";
+import { cpSync, existsSync, mkdirSync, readFileSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { build } from "esbuild";
 import { injectManifest } from "workbox-build";
+import { STATIC_SCRIPT_HASHES_FILE, inlineScriptHashes } from "../lib/http/security-headers.mjs";
 
 const root = path.resolve(import.meta.dirname, "..");
 const appDir = path.join(root, ".next/server/app");
@@ -39,6 +40,9 @@ for (const page of pages) {
   if (existsSync(`${page.stem}.segments`)) cpSync(`${page.stem}.segments`, `${target}.segments`, { recursive: true });
 }
 const shells = pages.map((p) => p.route);
+// The prerendered pages carry no nonce: proxy.ts gives each the hashes of its own inline scripts.
+const hashes = Object.fromEntries(pages.map((p) => [p.route, inlineScriptHashes(readFileSync(p.html, "utf8"))]));
+writeFileSync(path.join(root, ".next", STATIC_SCRIPT_HASHES_FILE), JSON.stringify(hashes));
 
 await build({
   entryPoints: [path.join(root, "sw/sw.ts")],

@@ -56,6 +56,10 @@ log "Applying migrations"
 (cd "$ROOT" && npx tsx scripts/migrate.mts) || die "Migrations failed: see the output above."
 log "Seeding the demo scenario"
 (cd "$ROOT" && npx tsx scripts/seed.mts) || die "Seeding failed: see the output above."
+# The app connects as a role that owns nothing (cannot disable triggers or drop tables); the
+# migrations and the seed above ran as the owner.
+export APP_DATABASE_URL="${APP_DATABASE_URL:-postgres://placewright_app@127.0.0.1:$PG_PORT/placewright}"
+(cd "$ROOT" && npx tsx scripts/app-role.mts) || die "Setting up the app's database role failed: see the output above."
 
 if [ "${SKIP_BUILD:-0}" != "1" ]; then
   log "Building (next build + service worker)"
@@ -78,6 +82,7 @@ cat <<MSG
 MSG
 
 cd "$ROOT"
+export DATABASE_URL="$APP_DATABASE_URL"
 # PAIR=1 (`npm run start:pair`): two instances on the next two ports behind a round-robin proxy on
 # APP_PORT, both on this database, bucket and mailbox (scripts/serve-pair.mjs).
 if [ "${PAIR:-0}" = "1" ]; then

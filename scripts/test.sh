@@ -29,6 +29,8 @@ mkdir -p "$RUN_DIR"
 ( set -e; pg_up test-pg "$PG_PORT" no; pg_ensure_db "$PG_PORT" placewright_test ) || exit 1
 
 export DATABASE_URL="postgres://placewright@127.0.0.1:$PG_PORT/placewright_test"
+# The served app (Playwright's web server) connects as a role that owns nothing; tests and scripts use the owner.
+export APP_DATABASE_URL="postgres://placewright_app@127.0.0.1:$PG_PORT/placewright_test"
 export NEXTAUTH_URL="http://localhost:$APP_PORT" APP_ORIGIN="http://localhost:$APP_PORT"
 export NEXTAUTH_SECRET="test-secret-not-for-production-0123456789"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT" MAILBOX_URL="http://127.0.0.1:$MAILBOX_PORT"
@@ -49,6 +51,7 @@ step() {
 step "migrations match the schema" bash scripts/check-migrations.sh
 step "migrate" npx tsx scripts/migrate.mts
 step "seed" npx tsx scripts/seed.mts
+step "app database role" npx tsx scripts/app-role.mts
 step "typecheck" npx tsc --noEmit
 step "lint" npx eslint . --max-warnings=0
 log "unit and integration tests (Vitest)"

@@ -25,6 +25,8 @@ export const digestRecipients = pgTable(
     /** On a day with no activity: true sends the one-line "No placements today", false sends nothing. */
     sendEmptyDays: boolean("send_empty_days").notNull().default(true),
     unsubscribedAt: instantColumn("unsubscribed_at"),
+    /** Signed into each unsubscribe link; a new link replaces it, so older links stop working. */
+    unsubscribeNonce: uuid("unsubscribe_nonce").notNull().defaultRandom(),
     addedBy: uuid("added_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAtColumn(),
     updatedAt: updatedAtColumn(),

@@ -10,7 +10,7 @@ import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput, notFound } from "@/lib/errors";
 import { getRole } from "@/lib/users/queries";
 import { FIRST_DIGEST_HOUR, LAST_DIGEST_HOUR, hourLabel } from "./hours";
-import { verifyUnsubscribe } from "./unsubscribe";
+import { verifyUnsubscribe, type UnsubscribeClaim } from "./unsubscribe";
 
 export { unsubscribeUrl, verifyUnsubscribe } from "./unsubscribe";
 
@@ -36,20 +36,11 @@ export const updateRecipientSchema = z
 
 export const projectHourSchema = z.object({ digestHour: hourSchema });
 
-/** Adds a member row for every owner who has none yet, and links an added address that is an owner's (idempotent). */
-export async function syncOwnerRecipients(projectId: string, tx: Executor = db): Promise<void> {
-  await tx.execute(sql`
-    insert into digest_recipients (project_id, email, user_id, source)
-    select m.project_id, lower(u.email), u.id, 'member'
-    from memberships m join users u on u.id = m.user_id
-    where m.project_id = ${projectId} and m.role = 'owner' and u.disabled_at is null
-    on conflict (project_id, email) do update set user_id = excluded.user_id
-      where digest_recipients.user_id is null`);
-}
-
-/** Every recipient row of the project, with whether the digest currently goes to it. */
+/**
+ * Every recipient row of the project, with whether the digest currently goes to it. Read only: an
+ * owner's row is written with the membership (drizzle/0017), never by looking at the list.
+ */
 export async function listRecipientRows(projectId: string, tx: Executor = db): Promise<RecipientView[]> {
-  await syncOwnerRecipients(projectId, tx);
   const rows = await tx
     .select({
       r: digestRecipients,
@@ -141,6 +132,19 @@ export async function setProjectDigestHour(user: SessionUser, projectId: string,
   });
 }
 
+export const REPLACED_LINK_MESSAGE = "This unsubscribe link was replaced by the one in a newer digest e-mail. Use the link from the most recent digest.";
+
+/** A fresh link claim for the recipient: a new nonce, so every earlier link of theirs stops working. */
+export async function issueUnsubscribeClaim(recipient: Pick<DigestRecipient, "id" | "projectId" | "email">): Promise<UnsubscribeClaim> {
+  const [row] = await db
+    .update(digestRecipients)
+    .set({ unsubscribeNonce: sql`gen_random_uuid()` })
+    .where(eq(digestRecipients.id, recipient.id))
+    .returning({ nonce: digestRecipients.unsubscribeNonce });
+  if (!row) throw notFound("Digest subscription");
+  return { recipientId: recipient.id, projectId: recipient.projectId, email: recipient.email, nonce: row.nonce };
+}
+
 export type UnsubscribeResult = { projectId: string; projectName: string; email: string; alreadyUnsubscribed: boolean };
 
 /** Looks up what a link would unsubscribe, without changing anything (the confirmation page). */
@@ -153,6 +157,8 @@ export async function describeUnsubscribe(token: string | null | undefined): Pro
     .innerJoin(projects, eq(projects.id, digestRecipients.projectId))
     .where(and(eq(digestRecipients.id, claim.recipientId), eq(digestRecipients.projectId, claim.projectId), eq(digestRecipients.email, claim.email)));
   if (!row) throw notFound("Digest subscription");
+  // A newer digest carries a newer link; this one was replaced (drizzle/0016).
+  if (row.r.unsubscribeNonce !== claim.nonce) throw invalidInput(REPLACED_LINK_MESSAGE);
   return { projectId: row.r.projectId, projectName: row.projectName, email: row.r.email, alreadyUnsubscribed: row.r.unsubscribedAt !== null };
 }
 
@@ -164,7 +170,7 @@ export async function unsubscribeWithToken(token: string | null | undefined): Pr
     const [after] = await tx
       .update(digestRecipients)
       .set({ unsubscribedAt: new Date(), updatedAt: new Date() })
-      .where(and(eq(digestRecipients.id, claim.recipientId), isNull(digestRecipients.unsubscribedAt)))
+      .where(and(eq(digestRecipients.id, claim.recipientId), eq(digestRecipients.unsubscribeNonce, claim.nonce), isNull(digestRecipients.unsubscribedAt)))
       .returning();
     if (after) {
       await writeAudit(tx, { projectId: after.projectId, userId: after.userId, recordType: "digest_recipients", recordId: after.id, action: "unsubscribe", after, note: "Unsubscribe link" });

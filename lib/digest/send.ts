@@ -9,7 +9,8 @@ import { invalidInput, notFound } from "@/lib/errors";
 import { appOrigin, getTransport, mailFrom } from "@/lib/mail/transport";
 import { buildDigest, digestLinks } from "./content";
 import { loadDigestDay } from "./load";
-import { activeRecipients } from "./recipients";
+import { activeRecipients, issueUnsubscribeClaim } from "./recipients";
+import { summarizeDay } from "./summary";
 import { isLocalDate, zonedTimeToInstant } from "@/lib/time/zone";
 import { oneClickUnsubscribeUrl, unsubscribeUrl } from "./unsubscribe";
 
@@ -64,15 +65,14 @@ export async function sendDigest(projectId: string, date: string, options: SendO
   const day = await loadDigestDay(projectId, date);
   const report: SendReport = { projectId, date, sent: [], alreadySent: [], skippedEmpty: [], notDue: [] };
   const failures: DigestSendError["failures"] = [];
+  const { isEmpty } = summarizeDay(day);
 
   for (const r of await activeRecipients(projectId)) {
     if (options.dueBy && zonedTimeToInstant(date, r.hourOverride ?? project.digestHour, project.timeZone) > options.dueBy) {
       report.notDue.push(r.email);
       continue;
     }
-    const who = { recipientId: r.id, projectId, email: r.email };
-    const message = buildDigest(day, digestLinks(origin, projectId, date, unsubscribeUrl(who, origin)));
-    if (message.isEmpty && !r.sendEmptyDays) {
+    if (isEmpty && !r.sendEmptyDays) {
       report.skippedEmpty.push(r.email);
       continue;
     }
@@ -81,6 +81,9 @@ export async function sendDigest(projectId: string, date: string, options: SendO
       report.alreadySent.push(r.email);
       continue;
     }
+    // Only a message that is really sent carries a new link (and retires the older ones).
+    const who = await issueUnsubscribeClaim(r);
+    const message = buildDigest(day, digestLinks(origin, projectId, date, unsubscribeUrl(who, origin)));
     try {
       const info = await transport.sendMail({
         from: mailFrom(),

@@ -13,9 +13,14 @@ async function queueNext(delayMs: number): Promise<string | null> {
   return boss.send(HOUSEKEEPING_QUEUE, {}, { singletonKey: "housekeeping", startAfter: new Date(Date.now() + delayMs), retryLimit: 3, retryDelay: 300 });
 }
 
+/** Creates the queue (once); run by the owner's setup too, so the app's role needs no DDL. */
+export async function ensureHousekeepingQueue(boss: Awaited<ReturnType<typeof getBoss>>): Promise<void> {
+  await createQueueOnce(boss, HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: "short", expireInSeconds: 900 });
+}
+
 export async function startHousekeepingWorker(): Promise<{ stop: () => Promise<void> }> {
   const boss = await getBoss();
-  await createQueueOnce(boss, HOUSEKEEPING_QUEUE, { name: HOUSEKEEPING_QUEUE, policy: "short", expireInSeconds: 900 });
+  await ensureHousekeepingQueue(boss);
   const workId = await boss.work(HOUSEKEEPING_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async (jobs: Job[]) => {
     if (!jobs.length) return;
     await queueNext(HOUSEKEEPING_EVERY_MS);

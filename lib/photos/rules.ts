@@ -18,6 +18,15 @@ export function photoKey(projectId: string, photoId: string, contentType: PhotoT
   return `projects/${projectId}/photos/${photoId}.${EXTENSION[contentType]}`;
 }
 
+/**
+ * Where the verified bytes live once "complete" accepted them. The device only ever receives a
+ * presigned PUT for photoKey; this key is written by the server alone, from the bytes it checked,
+ * so a PUT link that is still valid cannot change a stored (or signed) photo.
+ */
+export function storedPhotoKey(projectId: string, photoId: string, sha256: string, contentType: PhotoType): string {
+  return `projects/${projectId}/photos/${photoId}/${sha256}.${EXTENSION[contentType]}`;
+}
+
 export const TYPE_MESSAGE = "Only JPEG, PNG or WebP photos can be added. Convert the file or take the photo again.";
 
 /** A sentence for the person, or null when the file is acceptable. */

@@ -1,6 +1,6 @@
 // S3-compatible storage through the AWS SDK, configured only by the environment, so the local fake
 // (s3rver, started by our scripts) and a real service are used the same way.
-import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { config } from "@/lib/config";
 
@@ -33,4 +33,13 @@ export async function headObject(key: string): Promise<{ size: number; contentTy
 export async function readObject(key: string): Promise<Buffer> {
   const res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
   return Buffer.from(await res.Body!.transformToByteArray());
+}
+
+/** Writes bytes the server has checked (the device never writes through this). */
+export async function writeObject(key: string, bytes: Buffer, contentType: string): Promise<void> {
+  await s3().send(new PutObjectCommand({ Bucket: bucket(), Key: key, Body: bytes, ContentType: contentType }));
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  await s3().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
 }

@@ -1,5 +1,7 @@
 // The photo lane (SYNC.md "Photos"): metadata first, bytes by presigned PUT, then "complete", where
-// the server checks that the stored object has the declared size, type and SHA-256.
+// the server checks that the stored object has the declared size, type, magic bytes and SHA-256, and
+// copies the bytes it checked to a key no device can write (storedPhotoKey), so a presigned PUT that
+// is still valid cannot change a photo after it is stored or signed.
 import { createHash } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { z } from "zod";
@@ -15,8 +17,10 @@ import { assertUuid } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
 import { createRecord, inTransaction } from "@/lib/records/write";
 import { photoFields } from "@/lib/records/schemas/photo";
-import { ATTACHABLE, photoKey, photoProblem, photoProblemField, type PhotoType } from "./rules";
-import { headObject, presignGet, presignPut, readObject } from "./storage";
+import { logger } from "@/lib/log";
+import { sniffPhotoType } from "./image-header";
+import { ATTACHABLE, photoKey, photoProblem, photoProblemField, storedPhotoKey, type PhotoType } from "./rules";
+import { deleteObject, headObject, presignGet, presignPut, readObject, writeObject } from "./storage";
 
 export { ATTACHABLE };
 
@@ -81,17 +85,28 @@ export async function completePhotoUpload(user: SessionUser, projectId: string, 
   if (!head) throw conflict("The photo's bytes have not arrived yet. Upload them, then try again.", { reason: "missing" });
   if (head.size !== photo.sizeBytes) throw conflict(`The stored file is ${head.size} bytes, not the ${photo.sizeBytes} declared.`, { reason: "size" });
   if (head.contentType !== photo.contentType) throw conflict(`The stored file is ${head.contentType}, not ${photo.contentType}.`, { reason: "type" });
-  const digest = createHash("sha256").update(await readObject(key)).digest("hex");
+  const bytes = await readObject(key);
+  const digest = createHash("sha256").update(bytes).digest("hex");
   if (digest !== photo.sha256) throw conflict("The stored file does not match the photo's fingerprint (SHA-256). Upload it again.", { reason: "hash" });
-  await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
+  if (sniffPhotoType(bytes) !== photo.contentType) {
+    throw conflict(`The uploaded file is not a ${photo.contentType.replace("image/", "").toUpperCase()} image: its first bytes say otherwise. Take or choose the photo again.`, { reason: "type" });
+  }
+  // The checked bytes themselves (not a server-side copy of the upload key, which could be rewritten
+  // between the check and the copy) go to the key only the server writes.
+  const storedKey = storedPhotoKey(projectId, photoId, photo.sha256, photo.contentType as PhotoType);
+  await writeObject(storedKey, bytes, photo.contentType);
+  const stored = await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
     const changeSeq = await nextChangeSeq(tx, projectId);
     const [after] = await tx
       .update(photos)
-      .set({ storedAt: new Date(), version: photo.version + 1, changeSeq, updatedAt: new Date(), updatedBy: user.id })
+      .set({ storedAt: new Date(), storageKey: storedKey, version: photo.version + 1, changeSeq, updatedAt: new Date(), updatedBy: user.id })
       .where(and(eq(photos.id, photoId), eq(photos.version, photo.version)))
       .returning();
     if (after) await writeAudit(tx, { projectId, userId: user.id, recordType: "photo", recordId: photoId, action: "stored", before: photo, after });
+    return Boolean(after);
   });
+  // After commit: the upload copy is no longer read by anything.
+  if (stored && key !== storedKey) await deleteObject(key).catch((error) => logger.warn({ err: error, photoId }, "upload copy of a stored photo not deleted"));
   return { stored: true, photoId };
 }
 

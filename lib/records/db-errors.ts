@@ -12,6 +12,9 @@ export const signedConflict = () => conflict(SIGNED_MESSAGE, { reason: "signed" 
 export const SIGNED_VISIT_MESSAGE = "This visit report is signed; add an amendment instead, or record new findings on a new visit.";
 export const signedVisitConflict = () => conflict(SIGNED_VISIT_MESSAGE, { reason: "signed" });
 
+export const MIX_FROZEN_MESSAGE =
+  "A signed placement was judged against this mix, so it can no longer be changed or removed. Add the revised design as a new mix with its own code and choose it for the coming placements.";
+
 type PgError = { code?: string; constraint?: string };
 
 function pgError(error: unknown): PgError | null {
@@ -25,6 +28,8 @@ export function mapDbError(error: unknown, def?: RecordDef): unknown {
   const pg = pgError(error);
   if (!pg) return error;
   if (pg.code === SIGNED_SQLSTATE) {
+    // drizzle/0015: the mix of a signed placement.
+    if (def?.type === "mix-designs") return conflict(MIX_FROZEN_MESSAGE, { reason: "signed" });
     if (def?.frozenBy === "record") return conflict(PHOTO_SIGNED_MESSAGE, { reason: "signed" });
     return def?.frozenBy === "visit" || def?.frozenBy === "siteVisitId" ? signedVisitConflict() : signedConflict();
   }

@@ -18,6 +18,7 @@ import { maturityOfPeriod } from "@/lib/maturity/records";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
 import { assertUuid } from "@/lib/records/guards";
+import { MAX_PHOTO_PIXELS, MAX_REPORT_PHOTOS, MAX_SIGNATURE_PIXELS, thumbnail } from "./thumbnails";
 import { DELIVERY_STATUS_WORDS, warningWord, wordFor } from "@/lib/ui/vocabulary";
 import { drawMaturitySection } from "./maturity-section";
 import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE, toneColour } from "./pdf-layout";
@@ -30,15 +31,11 @@ const CHECKLIST_TITLES: Record<string, string> = { readiness: "Readiness", "hot-
 const ANSWERS: Record<string, string> = { yes: "Yes", no: "No", na: "N/A" };
 const THUMB = { width: 120, height: 90, perRow: 4 };
 
-/** Decodes a data URL or stored bytes into an image pdf-lib can draw; anything else is skipped. */
-async function embedImage(l: Layout, bytes: Buffer, contentType: string): Promise<PDFImage | null> {
-  try {
-    if (/png/i.test(contentType)) return await l.doc.embedPng(bytes);
-    if (/jpe?g/i.test(contentType)) return await l.doc.embedJpg(bytes);
-  } catch {
-    // A damaged image is left out of the report rather than failing it.
-  }
-  return null;
+/** A bounded thumbnail embedded in the PDF (lib/reports/thumbnails.ts), or why there is none. */
+async function embedThumbnail(l: Layout, bytes: Uint8Array, opts: Parameters<typeof thumbnail>[1]): Promise<PDFImage | string> {
+  const thumb = await thumbnail(bytes, opts);
+  if (!thumb.ok) return thumb.reason;
+  return thumb.format === "jpeg" ? l.doc.embedJpg(thumb.bytes) : l.doc.embedPng(thumb.bytes);
 }
 
 function dataUrlBytes(url: string | null): { bytes: Buffer; type: string } | null {
@@ -224,21 +221,21 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     l.text(`Delays: ${d.delays.length ? d.delays.join("; ") : "none"}`, { gap: 2 });
   }
 
-  // Photos: thumbnails of the stored JPEG/PNG photos; others are listed by caption.
+  // Photos: bounded thumbnails of the stored photos, at most MAX_REPORT_PHOTOS; others are listed by caption.
   l.heading(`Photos (${summary.photos.length})`);
   if (!summary.photos.length) l.text("No stored photos for this date.", { color: MUTED });
   let col = 0;
   const skipped: string[] = [];
-  for (const p of dayPhotos) {
-    let img: PDFImage | null = null;
+  for (const p of dayPhotos.slice(0, MAX_REPORT_PHOTOS)) {
+    let img: PDFImage | string;
     try {
-      img = await embedImage(l, await readObject(p.storageKey!), p.contentType);
+      img = await embedThumbnail(l, await readObject(p.storageKey!), { maxPixels: MAX_PHOTO_PIXELS, widthPx: 360, heightPx: 270, format: "jpeg" });
     } catch {
-      img = null; // the object store is unreachable or the object is gone: list the photo instead
+      img = "the stored file could not be read"; // the object store is unreachable or the object is gone
     }
     const label = summary.photos.find((s) => s.id === p.id)?.label ?? p.caption;
-    if (!img) {
-      skipped.push(label);
+    if (typeof img === "string") {
+      skipped.push(`${label} (no thumbnail: ${img})`);
       continue;
     }
     if (col === 0) l.need(THUMB.height + 24);
@@ -259,7 +256,10 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     }
   }
   if (col) l.y -= THUMB.height + 16;
-  for (const s of skipped) l.text(`${s} (no thumbnail: not a stored JPEG or PNG)`, { color: MUTED });
+  for (const s of skipped) l.text(s, { color: MUTED });
+  if (dayPhotos.length > MAX_REPORT_PHOTOS) {
+    l.text(`${dayPhotos.length - MAX_REPORT_PHOTOS} more photos are not drawn here; open the placement's photos in the app.`, { color: MUTED });
+  }
 
   // Signatures
   l.heading("Signatures");
@@ -271,12 +271,13 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     l.text(`${what} · ${ROLE_LABELS[s.role]} · ${s.typedName}${s.signerName && s.signerName !== s.typedName ? ` (${s.signerName})` : ""}`, { bold: true, gap: 1 });
     l.text(`Signed ${dateTime(s.signedAt)} · signature check code ${s.hash.slice(0, 16)}`, { size: 7, color: MUTED, gap: 2 });
     const drawn = dataUrlBytes(s.image);
-    const img = drawn ? await embedImage(l, drawn.bytes, drawn.type) : null;
-    if (img) {
+    const img = drawn ? await embedThumbnail(l, drawn.bytes, { maxPixels: MAX_SIGNATURE_PIXELS, widthPx: 420, heightPx: 120, format: "png" }) : null;
+    if (img && typeof img !== "string") {
       const scale = Math.min(140 / img.width, 40 / img.height);
       l.page.drawImage(img, { x: PAGE.width - PAGE.margin - img.width * scale, y: top - img.height * scale, width: img.width * scale, height: img.height * scale });
       l.y = Math.min(l.y, top - img.height * scale) - 6;
-    } else l.y -= 4;
+    } else if (typeof img === "string") l.text(`Signature image not drawn: ${img}.`, { size: 7, color: MUTED, gap: 4 });
+    else l.y -= 4;
   }
 
   l.footers(`${project.name} · daily report ${date}`);

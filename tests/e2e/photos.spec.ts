@@ -156,7 +156,7 @@ test("a photo attached offline to a delivery survives a reload, uploads when onl
       { timeout: 60_000 },
     )
     .not.toBeNull();
-  expect(record!.storageKey).toBe(`projects/${projectId}/photos/${photoId}.jpg`);
+  expect(record!.storageKey).toMatch(new RegExp(`^projects/${projectId}/photos/${photoId}/[0-9a-f]{64}\\.jpg$`)); // the server's key, not the upload key
   const head = await storage().send(new HeadObjectCommand({ Bucket: process.env.S3_BUCKET ?? "placewright-photos", Key: record!.storageKey! }));
   expect(head.ContentType).toBe("image/jpeg");
   expect(head.ContentLength).toBe(record!.sizeBytes);

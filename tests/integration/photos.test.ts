@@ -164,13 +164,15 @@ describe("photos through sync", () => {
     expect(presign.json.key).toBe(seen?.storageKey);
     expect((await fetch(presign.json.uploadUrl, { method: "PUT", headers: presign.json.headers, body: file.bytes })).status).toBe(200);
     expect((await callRoute(completeRoute, { user: s.team.superintendent, params })).json).toEqual({ stored: true, photoId });
-    const head = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: presign.json.key }));
-    expect(head.ContentLength).toBe(file.bytes.length);
 
     const next = await pull(s.team.office, office, first.cursor);
     const stored = photoOf(next, photoId);
     expect(stored?.storedAt).not.toBeNull();
     expect(stored?.version).toBe(2);
+    // Stored under the server's own key (the upload key's PUT link cannot reach it).
+    expect(stored?.storageKey).toBe(`projects/${s.project.id}/photos/${photoId}/${file.sha256}.jpg`);
+    const head = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: String(stored?.storageKey) }));
+    expect(head.ContentLength).toBe(file.bytes.length);
 
     // The same create again (a lost answer) is applied once; registering another hash is a 409.
     const replay = await push(s.team.superintendent, randomUUID(), [createPhoto(1, photoId, file)]);

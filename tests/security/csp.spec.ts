@@ -51,6 +51,8 @@ test("headers are set; a script from another origin does not run; the app refuse
   expect(headers["content-security-policy"]).toContain("frame-ancestors 'none'");
   expect(headers["content-security-policy"]).toContain("object-src 'none'");
   expect(headers["content-security-policy"]).not.toContain("unsafe-eval");
+  const scriptSrc = headers["content-security-policy"].split(";").find((d) => d.trim().startsWith("script-src"))!;
+  expect(scriptSrc).not.toContain("unsafe-inline");
   expect(headers["x-content-type-options"]).toBe("nosniff");
   expect(headers["referrer-policy"]).toBe("strict-origin-when-cross-origin");
   expect(headers["permissions-policy"]).toContain("camera=()");
@@ -70,10 +72,38 @@ test("headers are set; a script from another origin does not run; the app refuse
   expect(ran).toBe(false);
   await expect.poll(() => violations(page)).toContainEqual(expect.stringMatching(/^script-src.* https:\/\/evil\.example\/steal\.js$/));
 
+  // An injected inline script (what a stored XSS would add) does not run: scripts need the
+  // page's nonce or the hash of a script the build made. [CSP Level 3 "script-src", 'unsafe-inline' absent]
+  const inlineRan = await page.evaluate(async () => {
+    const w = window as unknown as { __evilInline?: boolean };
+    const s = document.createElement("script");
+    s.textContent = "window.__evilInline = true";
+    document.head.appendChild(s);
+    await new Promise((r) => setTimeout(r, 100));
+    return Boolean(w.__evilInline);
+  });
+  expect(inlineRan).toBe(false);
+  await expect.poll(() => violations(page)).toContainEqual(expect.stringMatching(/^script-src.* inline$/));
+
   // A page of another origin framing the app: the frame stays empty.
   await page.setContent(`<iframe id="f" src="${new URL("/signin", page.url()).href}"></iframe>`);
   await page.waitForTimeout(1_000);
   const framed = page.frames().find((f) => f.url().includes("/signin"));
   const heading = framed ? await framed.locator("h1").count().catch(() => 0) : 0;
   expect(heading).toBe(0);
+});
+
+test("a page rendered per request has a fresh nonce; a prerendered offline shell lists its script hashes", async ({ page, request }) => {
+  await signIn(page, DEMO.sam);
+  const nonceOf = async () => {
+    const res = await page.request.get("/today");
+    return res.headers()["content-security-policy"].match(/'nonce-([^']+)'/)?.[1];
+  };
+  const [a, b] = [await nonceOf(), await nonceOf()];
+  expect(a).toBeTruthy();
+  expect(a).not.toBe(b);
+  const shell = await request.get("/tools/evaporation");
+  const policy = shell.headers()["content-security-policy"];
+  expect(policy).not.toMatch(/nonce-/);
+  expect(policy).toMatch(/'sha256-[A-Za-z0-9+/=]+'/);
 });

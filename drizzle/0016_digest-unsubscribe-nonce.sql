@@ -1,0 +1,1 @@
+ALTER TABLE "digest_recipients" ADD COLUMN "unsubscribe_nonce" uuid DEFAULT gen_random_uuid() NOT NULL;
