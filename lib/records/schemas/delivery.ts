@@ -1,19 +1,19 @@
 import { z } from "zod";
 import { DELIVERY_STATUSES } from "@/lib/records/enums";
-import { choice, clientId, instant, measure, optionalText, ordered, recordId, requiredText, wholeNumber } from "./fields";
+import { choice, clientId, pastInstant, measure, optionalText, ordered, recordId, requiredText, wholeNumber } from "./fields";
 
 export const deliveryFields = {
   ticketNumber: requiredText("Ticket number", 40),
   truck: optionalText("Truck", 40),
   volumeM3: measure("Volume", 0, 20, "m³"),
-  batchedAt: instant("Batch time"),
-  arrivedAt: instant("Arrival time"),
-  dischargeStartedAt: instant("Discharge start").nullable(),
-  dischargeFinishedAt: instant("Discharge end").nullable(),
+  batchedAt: pastInstant("Batch time"),
+  arrivedAt: pastInstant("Arrival time"),
+  dischargeStartedAt: pastInstant("Discharge start").nullable(),
+  dischargeFinishedAt: pastInstant("Discharge end").nullable(),
   revolutions: wholeNumber("Drum revolutions", 0, 2_000).nullable(),
   waterAddedL: measure("Water added", 0, 2_000, "L").nullable(),
-  waterFirstAt: instant("Time of the first water").nullable(),
-  waterLastAt: instant("Time of the last water").nullable(),
+  waterFirstAt: pastInstant("Time of the first water").nullable(),
+  waterLastAt: pastInstant("Time of the last water").nullable(),
   waterAddedBy: optionalText("Water added by", 120).nullable(),
   waterAuthorisedBy: optionalText("Water authorised by", 120).nullable(),
   admixtureNote: optionalText("Admixture note", 1_000).nullable(),

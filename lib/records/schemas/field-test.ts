@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { clientId, instant, measure, optionalText, recordId, temperatureC } from "./fields";
+import { clientId, pastInstant, measure, optionalText, recordId, temperatureC } from "./fields";
 
 export const fieldTestFields = {
   deliveryId: recordId("Delivery").nullable(),
-  sampledAt: instant("Sampling time"),
+  sampledAt: pastInstant("Sampling time"),
   slumpMm: measure("Slump", 0, 300, "mm").nullable(),
   slumpFlowMm: measure("Slump flow", 0, 1_000, "mm").nullable(),
   airPct: measure("Air content", 0, 20, "%").nullable(),

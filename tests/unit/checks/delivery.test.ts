@@ -31,6 +31,16 @@ describe("discharge time (ASTM C94 §10.7)", () => {
     expect(evaluate(input({ deliveries: [d] }), { now: t("10:47") }).map((f) => f.rule)).toEqual(["discharge-elapsed"]);
   });
 
+  it("a night pour: batched 23:05, discharged 00:50 the next day is 105 min, late against 90 [computed: 55 + 50 min]", () => {
+    const late = dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: new Date("2026-07-15T00:50:00-05:00") }), project())!;
+    expect(late).toMatchObject({ rule: "discharge-time", severity: "warning", applied: { value: 105, limit: 90, unit: "min" } });
+    // Batched 23:05, finished 00:30: 85 min, in time.
+    expect(dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: new Date("2026-07-15T00:30:00-05:00") }), project())).toBeNull();
+    // Still discharging at 00:50: 105 min elapsed since batching, not a negative figure.
+    const running = dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: null }), project(), new Date("2026-07-15T00:50:00-05:00"))!;
+    expect(running.applied.value).toBe(105);
+  });
+
   it("a rejected load is not judged", () => {
     expect(dischargeFinding(delivery({ status: "rejected", batchedAt: t("10:00"), dischargeFinishedAt: t("12:00") }), project())).toBeNull();
   });

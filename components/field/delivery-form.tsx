@@ -1,0 +1,238 @@
+"use client";
+
+import { useState } from "react";
+import { Controller, useForm, useWatch } from "react-hook-form";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import type { UnitSystem } from "@/lib/concrete";
+import { createLocal, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { useSyncDb } from "@/lib/sync/client/react";
+import { useDirtyGuard } from "@/lib/ui/dirty-forms";
+import { DELIVERY_STATUS_WORDS } from "@/lib/ui/vocabulary";
+import { NowInput, formatDay, fromSI, str, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { DeliveryChecks } from "./delivery-checks";
+import { clockOf, resolveTicketTimes, type TicketTimeName } from "./delivery-times";
+import { DRAFT_ID, draftFindings } from "./findings-model";
+import { FormFooter } from "./form-footer";
+import type { FieldFindings } from "./use-findings";
+
+type Values = {
+  ticketNumber: string;
+  truck: string;
+  volume: string;
+  batchDate: string;
+  batchedAt: string;
+  arrivedAt: string;
+  dischargeStartedAt: string;
+  dischargeFinishedAt: string;
+  revolutions: string;
+  water: string;
+  waterFirstAt: string;
+  waterLastAt: string;
+  waterAddedBy: string;
+  waterAuthorisedBy: string;
+  admixtureNote: string;
+  status: "accepted" | "rejected";
+  rejectReason: string;
+};
+
+const FIELD_OF: Record<string, keyof Values> = { volumeM3: "volume", waterAddedL: "water" };
+
+function valuesOf(d: LocalRecord | null, units: UnitSystem, timeZone: string): Values {
+  const { clock, date } = clockOf(d ?? {}, timeZone);
+  return {
+    ticketNumber: str(d?.ticketNumber),
+    truck: str(d?.truck),
+    volume: d ? fromSI("volume", d.volumeM3, units) : "",
+    batchDate: date ?? "",
+    ...clock,
+    revolutions: typeof d?.revolutions === "number" ? String(d.revolutions) : "",
+    water: d ? fromSI("waterVolume", d.waterAddedL, units, 1) : "",
+    waterAddedBy: str(d?.waterAddedBy),
+    waterAuthorisedBy: str(d?.waterAuthorisedBy),
+    admixtureNote: str(d?.admixtureNote),
+    status: d?.status === "rejected" ? "rejected" : "accepted",
+    rejectReason: str(d?.rejectReason),
+  };
+}
+
+const wholeOrNull = (text: string) => (text.trim() === "" ? null : Number(text.trim()));
+
+export function DeliveryForm({
+  placement,
+  project,
+  existing,
+  checks,
+  onDone,
+}: {
+  placement: LocalRecord;
+  project: ProjectRow;
+  existing: LocalRecord | null;
+  checks: FieldFindings | undefined;
+  onDone: () => void;
+}) {
+  const db = useSyncDb();
+  const units = unitSystemOf(project);
+  const timeZone = project.timeZone;
+  const [failure, setFailure] = useState<string | null>(null);
+  const { register, control, handleSubmit, setError, formState } = useForm<Values>({ defaultValues: valuesOf(existing, units, timeZone) });
+  useDirtyGuard(existing ? `delivery-${existing.id}` : "delivery-new", formState.isDirty);
+  const errors = formState.errors;
+  const v = useWatch({ control }) as Values;
+  const times = resolveTicketTimes(v, timeZone, new Date(), v.batchDate || null);
+  const batchedAt = times.at.batchedAt;
+  const draft = {
+    id: existing?.id ?? DRAFT_ID,
+    placementId: placement.id,
+    ticketNumber: v.ticketNumber.trim(),
+    truck: v.truck.trim(),
+    volumeM3: toSI("volume", v.volume, units) ?? 0,
+    batchedAt,
+    arrivedAt: times.at.arrivedAt ?? batchedAt,
+    dischargeStartedAt: times.at.dischargeStartedAt,
+    dischargeFinishedAt: times.at.dischargeFinishedAt,
+    revolutions: wholeOrNull(v.revolutions),
+    waterAddedL: toSI("waterVolume", v.water, units),
+    waterFirstAt: times.at.waterFirstAt,
+    waterLastAt: times.at.waterLastAt,
+    status: v.status,
+  };
+  const live = checks && batchedAt ? draftFindings(checks.records, "deliveries", draft, new Date()) : [];
+
+  const onSubmit = handleSubmit(async (f) => {
+    setFailure(null);
+    const at = resolveTicketTimes(f, timeZone, new Date(), f.batchDate || null).at;
+    const values: Record<string, unknown> = {
+      ticketNumber: f.ticketNumber.trim(),
+      truck: f.truck.trim() || undefined,
+      volumeM3: toSI("volume", f.volume, units) ?? undefined,
+      batchedAt: at.batchedAt ?? undefined,
+      arrivedAt: at.arrivedAt ?? undefined,
+      dischargeStartedAt: at.dischargeStartedAt,
+      dischargeFinishedAt: at.dischargeFinishedAt,
+      revolutions: wholeOrNull(f.revolutions),
+      waterAddedL: toSI("waterVolume", f.water, units),
+      waterFirstAt: at.waterFirstAt,
+      waterLastAt: at.waterLastAt,
+      waterAddedBy: f.waterAddedBy.trim() || null,
+      waterAuthorisedBy: f.waterAuthorisedBy.trim() || null,
+      admixtureNote: f.admixtureNote.trim() || null,
+      status: f.status,
+      rejectReason: f.status === "rejected" ? f.rejectReason.trim() || null : null,
+    };
+    try {
+      if (existing) {
+        // Only what changed, so a field edited elsewhere meanwhile is not overwritten.
+        const patch = Object.fromEntries(
+          Object.entries(values).filter(([key, value]) => {
+            const before = existing[key] ?? null;
+            const after = value ?? null;
+            if (typeof before === "string" && typeof after === "string" && !Number.isNaN(Date.parse(before)) && /T/.test(before)) {
+              return Date.parse(before) !== Date.parse(after);
+            }
+            if (typeof before === "number" && typeof after === "number") return Math.abs(before - after) > 1e-6;
+            return before !== after && !(before === "" && after === null);
+          }),
+        );
+        if (Object.keys(patch).length > 0) await updateLocal(db, "deliveries", existing.id, patch);
+      } else {
+        await createLocal(db, "deliveries", placement.projectId, { placementId: placement.id, ...values });
+      }
+      onDone();
+    } catch (error) {
+      const { message, fields } = writeErrorOf(error);
+      for (const [key, text] of Object.entries(fields)) setError(FIELD_OF[key] ?? (key as keyof Values), { message: text });
+      setFailure(message);
+    }
+  });
+
+  const time = (name: TicketTimeName, label: string) => {
+    const date = times.dates[name];
+    const nextDay = date && date !== times.date;
+    return (
+      <Controller
+        control={control}
+        name={name}
+        render={({ field }) => (
+          <NowInput
+            label={label}
+            value={String(field.value)}
+            onChange={field.onChange}
+            error={errors[name]?.message}
+            testId={`delivery-${name}`}
+            timeZone={timeZone}
+            hint={
+              date ? (
+                <p className={nextDay ? "text-sm font-semibold text-ink-900" : "text-sm text-muted"} data-testid={`delivery-${name}-date`} data-date={date}>
+                  {formatDay(date)}
+                  {nextDay ? " · next day" : ""}
+                </p>
+              ) : null
+            }
+          />
+        )}
+      />
+    );
+  };
+
+  return (
+    <form onSubmit={onSubmit} className="mt-3 grid gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="delivery-form" noValidate>
+      <Field label="Ticket number" inputMode="numeric" error={errors.ticketNumber?.message} data-testid="delivery-ticket" {...register("ticketNumber")} />
+      <Field label="Truck" error={errors.truck?.message} data-testid="delivery-truck" {...register("truck")} />
+      <Field label="Volume" inputMode="decimal" unit={unitLabel("volume", units)} error={errors.volume?.message} data-testid="delivery-volume" {...register("volume")} />
+      <Controller
+        control={control}
+        name="batchDate"
+        render={({ field }) => (
+          <Field
+            label="Batch date"
+            type="date"
+            hint="The date printed beside the batch time"
+            data-testid="delivery-batch-date"
+            name={field.name}
+            value={field.value || times.date}
+            onChange={(e) => field.onChange(e.target.value)}
+            onBlur={field.onBlur}
+          />
+        )}
+      />
+      {time("batchedAt", "Batched")}
+      {time("arrivedAt", "Arrived")}
+      {time("dischargeStartedAt", "Discharge start")}
+      {time("dischargeFinishedAt", "Discharge end")}
+      {times.crossesMidnight ? (
+        <Notice tone="info" title="This truck crossed midnight" className="sm:col-span-2" testId="delivery-midnight">
+          A time earlier than the one before it is on the next day: batched {formatDay(times.dates.batchedAt ?? times.date)}, the later times on{" "}
+          {formatDay([...Object.values(times.dates)].sort().at(-1) ?? times.date)}. Change the batch date if that is wrong.
+        </Notice>
+      ) : null}
+      <Field label="Drum revolutions" inputMode="numeric" hint="From the ticket or the drum counter" error={errors.revolutions?.message} data-testid="delivery-revolutions" {...register("revolutions")} />
+      <Field label="Water added at site" inputMode="decimal" unit={unitLabel("waterVolume", units)} error={errors.water?.message} data-testid="delivery-water" {...register("water")} />
+      {v.water && Number(v.water) > 0 ? (
+        <>
+          {time("waterFirstAt", "First water")}
+          {time("waterLastAt", "Last water")}
+          <Field label="Water added by" error={errors.waterAddedBy?.message} data-testid="delivery-water-by" {...register("waterAddedBy")} />
+          <Field label="Water authorised by" error={errors.waterAuthorisedBy?.message} data-testid="delivery-water-authorised" {...register("waterAuthorisedBy")} />
+        </>
+      ) : null}
+      <Field label="Admixture added at site" placeholder="product and amount" className="sm:col-span-2" {...register("admixtureNote")} />
+      <fieldset className="sm:col-span-2">
+        <legend className="text-sm font-semibold text-ink-800">Load</legend>
+        <div className="mt-1 grid grid-cols-2 gap-2">
+          {(["accepted", "rejected"] as const).map((s) => (
+            <label key={s} className="flex min-h-touch items-center gap-2 rounded-lg border border-ink-300 px-3 font-semibold has-[:checked]:border-lichen-700 has-[:checked]:bg-lichen-50">
+              <input type="radio" value={s} className="h-5 w-5" data-testid={`delivery-status-${s}`} {...register("status")} />
+              {DELIVERY_STATUS_WORDS[s].label}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      {v.status === "rejected" ? <Field label="Why it was rejected" className="sm:col-span-2" error={errors.rejectReason?.message} {...register("rejectReason")} /> : null}
+      <div className="sm:col-span-2">
+        <DeliveryChecks found={live} times={{ batchedAt, dischargeFinishedAt: draft.dischargeFinishedAt, status: v.status }} project={project} testId="delivery-live-checks" />
+      </div>
+      <FormFooter failure={failure} saveLabel={existing ? "Save changes" : "Save truck"} saveTestId="delivery-save" submitting={formState.isSubmitting} onCancel={onDone} />
+    </form>
+  );
+}
