@@ -61,6 +61,7 @@ export function Deliveries({ placement, project, checks }: { placement: LocalRec
                   #{i + 1} · Ticket <span data-testid="delivery-ticket-number">{str(d.ticketNumber)}</span>
                 </span>
                 {d.truck ? <span className="text-muted">truck {str(d.truck)}</span> : null}
+                {d.mixCode ? <span className="text-muted" data-testid="delivery-mix">mix {str(d.mixCode)}</span> : null}
                 <span className="text-muted" data-testid="delivery-batch-day">
                   {formatDay(dayOf(d.batchedAt))}
                 </span>
@@ -74,6 +75,7 @@ export function Deliveries({ placement, project, checks }: { placement: LocalRec
               <p className="mt-1 text-base">
                 {num(d.volumeM3) !== undefined ? formatVolume(num(d.volumeM3)!, units) : "—"} · batched {when(d.batchedAt)} · arrived {when(d.arrivedAt)}
                 {d.dischargeFinishedAt ? ` · discharged by ${when(d.dischargeFinishedAt)}` : ""}
+                {typeof d.revolutions === "number" ? ` · ${d.revolutions} revolutions` : ""}
               </p>
               {num(d.waterAddedL) ? (
                 <p className="text-sm">

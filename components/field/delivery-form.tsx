@@ -20,6 +20,7 @@ type Values = {
   ticketNumber: string;
   truck: string;
   volume: string;
+  mixCode: string;
   batchDate: string;
   batchedAt: string;
   arrivedAt: string;
@@ -44,6 +45,7 @@ function valuesOf(d: LocalRecord | null, units: UnitSystem, timeZone: string): V
     ticketNumber: str(d?.ticketNumber),
     truck: str(d?.truck),
     volume: d ? fromSI("volume", d.volumeM3, units) : "",
+    mixCode: str(d?.mixCode),
     batchDate: date ?? "",
     ...clock,
     revolutions: typeof d?.revolutions === "number" ? String(d.revolutions) : "",
@@ -87,6 +89,7 @@ export function DeliveryForm({
     ticketNumber: v.ticketNumber.trim(),
     truck: v.truck.trim(),
     volumeM3: toSI("volume", v.volume, units) ?? 0,
+    mixCode: v.mixCode.trim() || null,
     batchedAt,
     arrivedAt: times.at.arrivedAt ?? batchedAt,
     dischargeStartedAt: times.at.dischargeStartedAt,
@@ -106,6 +109,7 @@ export function DeliveryForm({
       ticketNumber: f.ticketNumber.trim(),
       truck: f.truck.trim() || undefined,
       volumeM3: toSI("volume", f.volume, units) ?? undefined,
+      mixCode: f.mixCode.trim() || null,
       batchedAt: at.batchedAt ?? undefined,
       arrivedAt: at.arrivedAt ?? undefined,
       dischargeStartedAt: at.dischargeStartedAt,
@@ -180,6 +184,7 @@ export function DeliveryForm({
       <Field label="Ticket number" inputMode="numeric" error={errors.ticketNumber?.message} data-testid="delivery-ticket" {...register("ticketNumber")} />
       <Field label="Truck" error={errors.truck?.message} data-testid="delivery-truck" {...register("truck")} />
       <Field label="Volume" inputMode="decimal" unit={unitLabel("volume", units)} error={errors.volume?.message} data-testid="delivery-volume" {...register("volume")} />
+      <Field label="Mix on the ticket" hint="Checked against the placement's mix" error={errors.mixCode?.message} data-testid="delivery-mix-code" {...register("mixCode")} />
       <Controller
         control={control}
         name="batchDate"

@@ -6,6 +6,7 @@ export const deliveryFields = {
   ticketNumber: requiredText("Ticket number", 40),
   truck: optionalText("Truck", 40),
   volumeM3: measure("Volume", 0, 20, "m³"),
+  mixCode: optionalText("Mix code on the ticket", 40).nullable(),
   batchedAt: pastInstant("Batch time"),
   arrivedAt: pastInstant("Arrival time"),
   dischargeStartedAt: pastInstant("Discharge start").nullable(),
@@ -63,6 +64,7 @@ export const deliveryCreateSchema = z
   .object({ id: clientId, placementId: recordId("Placement"), ...deliveryFields })
   .partial({
     truck: true,
+    mixCode: true,
     dischargeStartedAt: true,
     dischargeFinishedAt: true,
     revolutions: true,

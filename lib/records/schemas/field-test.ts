@@ -11,6 +11,7 @@ export const fieldTestFields = {
   airTempC: temperatureC("Air temperature").nullable(),
   densityKgM3: measure("Density", 500, 4_000, "kg/m³").nullable(),
   notes: optionalText("Notes", 2_000).nullable(),
+  testedBy: optionalText("Tested by", 120).nullable(),
 };
 
 const RESULTS = ["slumpMm", "slumpFlowMm", "airPct", "concreteTempC", "densityKgM3"] as const;
@@ -26,6 +27,7 @@ export const fieldTestCreateSchema = z
     airTempC: true,
     densityKgM3: true,
     notes: true,
+    testedBy: true,
   })
   .superRefine((v, ctx) => {
     if (RESULTS.every((key) => v[key] === undefined || v[key] === null)) {

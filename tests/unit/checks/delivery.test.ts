@@ -2,7 +2,7 @@
 // within 90 min; site water within 15 min of the first portion; revolutions only when ordered, C94-17a).
 import { describe, expect, it } from "vitest";
 import { evaluate } from "@/lib/checks";
-import { dischargeFinding, revolutionsFinding, siteWaterFinding } from "@/lib/checks/delivery";
+import { dischargeFinding, mixCodeFinding, revolutionsFinding, siteWaterFinding } from "@/lib/checks/delivery";
 import { delivery, input, mix, project } from "./fixtures";
 
 const t = (hhmm: string) => new Date(`2026-07-14T${hhmm}:00Z`);
@@ -71,5 +71,22 @@ describe("water added at site (ASTM C94, current wording)", () => {
     const f = siteWaterFinding(delivery({ waterAddedL: 37.85411784 }), allowance, project({ unitSystem: "IP" }))!;
     expect(f.applied.unit).toBe("gal");
     expect(f.applied.value).toBeCloseTo(10, 9);
+  });
+});
+
+describe("the mix code on the ticket (ASTM C94 §14 delivery ticket; checked against the placement's mix [common practice])", () => {
+  const planned = mix({ code: "LC-4000-A" });
+  it("the placement's mix, however it is written, is no finding; another mix is a warning naming both", () => {
+    expect(mixCodeFinding(delivery({ mixCode: "LC-4000-A" }), planned)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "lc 4000a" }), planned)).toBeNull();
+    const wrong = mixCodeFinding(delivery({ mixCode: "LC-5000-B" }), planned)!;
+    expect(wrong).toMatchObject({ rule: "mix-code", severity: "warning", subject: { type: "delivery", id: "d1" } });
+    expect(wrong.title).toBe("Wrong mix on the ticket: ticket BR-1042 (truck 31) says LC-5000-B, the placement's mix is LC-4000-A");
+    expect(evaluate(input({ deliveries: [delivery({ mixCode: "LC-5000-B" })] })).map((f) => f.rule)).toContain("mix-code");
+  });
+  it("no code entered, no mix planned, or a rejected load: nothing to judge", () => {
+    expect(mixCodeFinding(delivery({ mixCode: null }), planned)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "LC-5000-B" }), null)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "LC-5000-B", status: "rejected" }), planned)).toBeNull();
   });
 });
