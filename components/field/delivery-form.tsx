@@ -4,61 +4,20 @@ import { useState } from "react";
 import { Controller, useForm, useWatch } from "react-hook-form";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import type { UnitSystem } from "@/lib/concrete";
+import type { Finding } from "@/lib/checks";
+import { truckNeedsReason } from "@/lib/placements/workflow";
 import { createLocal, updateLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { DELIVERY_STATUS_WORDS } from "@/lib/ui/vocabulary";
-import { NowInput, formatDay, fromSI, str, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { NowInput, formatDay, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { DeliveryChecks } from "./delivery-checks";
-import { clockOf, resolveTicketTimes, type TicketTimeName } from "./delivery-times";
-import { DRAFT_ID, draftFindings } from "./findings-model";
+import { AcceptOrReject, NotClearedQuestion } from "./delivery-decisions";
+import { changedFields, resolveTicketTimes, type TicketTimeName } from "./delivery-times";
+import { DRAFT_ID, draftFindings, findingsFor } from "./findings-model";
 import { FormFooter } from "./form-footer";
+import { FIELD_OF, valuesOf, wholeOrNull, type Values } from "./delivery-form-values";
 import type { FieldFindings } from "./use-findings";
-
-type Values = {
-  ticketNumber: string;
-  truck: string;
-  volume: string;
-  mixCode: string;
-  batchDate: string;
-  batchedAt: string;
-  arrivedAt: string;
-  dischargeStartedAt: string;
-  dischargeFinishedAt: string;
-  revolutions: string;
-  water: string;
-  waterFirstAt: string;
-  waterLastAt: string;
-  waterAddedBy: string;
-  waterAuthorisedBy: string;
-  admixtureNote: string;
-  status: "accepted" | "rejected";
-  rejectReason: string;
-};
-
-const FIELD_OF: Record<string, keyof Values> = { volumeM3: "volume", waterAddedL: "water" };
-
-function valuesOf(d: LocalRecord | null, units: UnitSystem, timeZone: string): Values {
-  const { clock, date } = clockOf(d ?? {}, timeZone);
-  return {
-    ticketNumber: str(d?.ticketNumber),
-    truck: str(d?.truck),
-    volume: d ? fromSI("volume", d.volumeM3, units) : "",
-    mixCode: str(d?.mixCode),
-    batchDate: date ?? "",
-    ...clock,
-    revolutions: typeof d?.revolutions === "number" ? String(d.revolutions) : "",
-    water: d ? fromSI("waterVolume", d.waterAddedL, units, 1) : "",
-    waterAddedBy: str(d?.waterAddedBy),
-    waterAuthorisedBy: str(d?.waterAuthorisedBy),
-    admixtureNote: str(d?.admixtureNote),
-    status: d?.status === "rejected" ? "rejected" : "accepted",
-    rejectReason: str(d?.rejectReason),
-  };
-}
-
-const wholeOrNull = (text: string) => (text.trim() === "" ? null : Number(text.trim()));
 
 export function DeliveryForm({
   placement,
@@ -77,7 +36,7 @@ export function DeliveryForm({
   const units = unitSystemOf(project);
   const timeZone = project.timeZone;
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, control, handleSubmit, setError, formState } = useForm<Values>({ defaultValues: valuesOf(existing, units, timeZone) });
+  const { register, control, handleSubmit, setError, setValue, setFocus, formState } = useForm<Values>({ defaultValues: valuesOf(existing, units, timeZone) });
   useDirtyGuard(existing ? `delivery-${existing.id}` : "delivery-new", formState.isDirty);
   const errors = formState.errors;
   const v = useWatch({ control }) as Values;
@@ -101,8 +60,11 @@ export function DeliveryForm({
     status: v.status,
   };
   const live = checks && batchedAt ? draftFindings(checks.records, "deliveries", draft, new Date()) : [];
+  // A new truck on work the inspector has not cleared needs a reason; a flagged load needs a decision.
+  const needsReason = !existing && truckNeedsReason(placement.state);
+  const [decision, setDecision] = useState<Finding[] | null>(null);
 
-  const onSubmit = handleSubmit(async (f) => {
+  const save = async (f: Values) => {
     setFailure(null);
     const at = resolveTicketTimes(f, timeZone, new Date(), f.batchDate || null).at;
     const values: Record<string, unknown> = {
@@ -123,21 +85,11 @@ export function DeliveryForm({
       admixtureNote: f.admixtureNote.trim() || null,
       status: f.status,
       rejectReason: f.status === "rejected" ? f.rejectReason.trim() || null : null,
+      ...(needsReason ? { notClearedReason: f.notClearedReason.trim() } : {}),
     };
     try {
       if (existing) {
-        // Only what changed, so a field edited elsewhere meanwhile is not overwritten.
-        const patch = Object.fromEntries(
-          Object.entries(values).filter(([key, value]) => {
-            const before = existing[key] ?? null;
-            const after = value ?? null;
-            if (typeof before === "string" && typeof after === "string" && !Number.isNaN(Date.parse(before)) && /T/.test(before)) {
-              return Date.parse(before) !== Date.parse(after);
-            }
-            if (typeof before === "number" && typeof after === "number") return Math.abs(before - after) > 1e-6;
-            return before !== after && !(before === "" && after === null);
-          }),
-        );
+        const patch = changedFields(existing, values);
         if (Object.keys(patch).length > 0) await updateLocal(db, "deliveries", existing.id, patch);
       } else {
         await createLocal(db, "deliveries", placement.projectId, { placementId: placement.id, ...values });
@@ -148,7 +100,23 @@ export function DeliveryForm({
       for (const [key, text] of Object.entries(fields)) setError(FIELD_OF[key] ?? (key as keyof Values), { message: text });
       setFailure(message);
     }
+  };
+
+  const onSubmit = handleSubmit(async (f) => {
+    if (needsReason && !f.notClearedReason.trim()) {
+      setError("notClearedReason", { message: "Say why concrete is going onto this placement before it is cleared" });
+      return;
+    }
+    // Warnings the stored truck did not have yet (an edit of an accepted late truck is not asked again).
+    const known = new Set(existing ? findingsFor(checks?.findings ?? [], "delivery", existing.id).map((x) => x.rule) : []);
+    const warnings = live.filter((x) => x.severity === "warning" && !known.has(x.rule));
+    if (f.status === "accepted" && warnings.length > 0) {
+      setDecision(warnings);
+      return;
+    }
+    await save(f);
   });
+  const acceptAnyway = handleSubmit(save);
 
   const time = (name: TicketTimeName, label: string) => {
     const date = times.dates[name];
@@ -233,10 +201,27 @@ export function DeliveryForm({
           ))}
         </div>
       </fieldset>
-      {v.status === "rejected" ? <Field label="Why it was rejected" className="sm:col-span-2" error={errors.rejectReason?.message} {...register("rejectReason")} /> : null}
+      {v.status === "rejected" ? (
+        <Field label="Why it was rejected" className="sm:col-span-2" error={errors.rejectReason?.message} data-testid="delivery-reject-reason" {...register("rejectReason")} />
+      ) : null}
+      {needsReason ? <NotClearedQuestion placement={placement} input={register("notClearedReason")} error={errors.notClearedReason?.message} /> : null}
       <div className="sm:col-span-2">
         <DeliveryChecks found={live} times={{ batchedAt, dischargeFinishedAt: draft.dischargeFinishedAt, status: v.status }} project={project} testId="delivery-live-checks" />
       </div>
+      {decision ? (
+        <AcceptOrReject
+          findings={decision}
+          onAccept={() => {
+            setDecision(null);
+            void acceptAnyway();
+          }}
+          onReject={() => {
+            setDecision(null);
+            setValue("status", "rejected", { shouldDirty: true });
+            setTimeout(() => setFocus("rejectReason"), 0);
+          }}
+        />
+      ) : null}
       <FormFooter failure={failure} saveLabel={existing ? "Save changes" : "Save truck"} saveTestId="delivery-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>
   );

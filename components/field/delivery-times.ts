@@ -49,3 +49,18 @@ export function clockOf(row: Record<string, unknown>, timeZone: string): { clock
   const batched = typeof row.batchedAt === "string" ? new Date(row.batchedAt) : null;
   return { clock, date: batched && !Number.isNaN(batched.getTime()) ? localDate(batched, timeZone) : null };
 }
+
+/** Only what changed on an edit, so a field edited elsewhere meanwhile is not overwritten. */
+export function changedFields(existing: Record<string, unknown>, values: Record<string, unknown>): Record<string, unknown> {
+  return Object.fromEntries(
+    Object.entries(values).filter(([key, value]) => {
+      const before = existing[key] ?? null;
+      const after = value ?? null;
+      if (typeof before === "string" && typeof after === "string" && !Number.isNaN(Date.parse(before)) && /T/.test(before)) {
+        return Date.parse(before) !== Date.parse(after);
+      }
+      if (typeof before === "number" && typeof after === "number") return Math.abs(before - after) > 1e-6;
+      return before !== after && !(before === "" && after === null);
+    }),
+  );
+}

@@ -32,6 +32,8 @@ export const deliveries = pgTable(
     admixtureNote: text("admixture_note"),
     status: deliveryStatus("status").notNull().default("accepted"),
     rejectReason: text("reject_reason"),
+    /** Why a truck went onto a placement that was not cleared or being placed (kept with the record and its audit entry). */
+    notClearedReason: text("not_cleared_reason"),
   },
   (t) => [...syncedConstraints("deliveries", t), index("deliveries_placement_idx").on(t.placementId)],
 );

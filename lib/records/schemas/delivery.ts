@@ -20,6 +20,7 @@ export const deliveryFields = {
   admixtureNote: optionalText("Admixture note", 1_000).nullable(),
   status: choice("Status", DELIVERY_STATUSES),
   rejectReason: optionalText("Reason for rejecting", 1_000).nullable(),
+  notClearedReason: optionalText("Reason for concrete on a placement that is not cleared", 1_000).nullable(),
 };
 
 type DeliveryShape = {
@@ -76,6 +77,7 @@ export const deliveryCreateSchema = z
     admixtureNote: true,
     status: true,
     rejectReason: true,
+    notClearedReason: true,
   })
   .superRefine(checkDelivery);
 

@@ -1,2 +1,0 @@
-ALTER TABLE "deliveries" ADD COLUMN "mix_code" varchar(40);--> statement-breakpoint
-ALTER TABLE "field_tests" ADD COLUMN "tested_by" varchar(120);
