@@ -3,8 +3,9 @@
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { FindingList } from "@/components/findings/finding-notice";
+import { nominalCylinderText } from "@/components/lab/format";
 import { Field } from "@/components/ui/field";
-import { concreteYield, formatLength, formatVolume } from "@/lib/concrete";
+import { concreteYield, formatVolume, type UnitSystem } from "@/lib/concrete";
 import { CYLINDER_DIAMETERS_MM } from "@/lib/records/enums";
 import { createLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { writeTx } from "@/lib/sync/client/mutate";
@@ -21,6 +22,9 @@ function defaultTestAges(mix: LocalRecord | null): string {
   const design = num(mix?.fcAgeDays) ?? 28;
   return [...new Set([7, design])].sort((a, b) => a - b).join(", ");
 }
+
+// ASTM C31: cylinders twice as long as their diameter; inch-pound jobs mould 4 × 8 in and 6 × 12 in.
+const cylinderLengthMm = (diameterMm: number, units: UnitSystem) => (units === "IP" ? (diameterMm >= 150 ? 304.8 : 203.2) : diameterMm * 2);
 
 /** "7, 28" → [7, 28]; anything that is not a number is kept as NaN so the schema names the field. */
 const parseAges = (text: string) => text.split(/[,\s]+/).filter(Boolean).map((x) => Number(x));
@@ -131,8 +135,7 @@ export function FieldTestForm({
           deliveryId: f.deliveryId || null,
           setCode: f.setCode.trim(),
           cylinderDiameterMm: diameterMm,
-          // ASTM C31: cylinders twice as long as their diameter (4 × 8 in, 6 × 12 in).
-          cylinderLengthMm: diameterMm * 2,
+          cylinderLengthMm: cylinderLengthMm(diameterMm, units),
           count: cylinders,
           castAt: sampledAt,
           testAgesDays: parseAges(f.testAges),
@@ -195,7 +198,7 @@ export function FieldTestForm({
           <select data-testid="field-test-cylinder-size" className="min-h-touch rounded-lg border border-ink-300 bg-white px-3 text-base font-normal" {...register("cylinderDiameterMm")}>
             {CYLINDER_DIAMETERS_MM.map((d) => (
               <option key={d} value={d}>
-                {formatLength(d, units)} × {formatLength(d * 2, units)}
+                {nominalCylinderText(d, cylinderLengthMm(d, units), units)}
               </option>
             ))}
           </select>

@@ -175,11 +175,12 @@ export function chainWallTimes(date: string, times: (string | null | undefined)[
 
 /**
  * The day a new ticket's first time is read on, when the person has not chosen one: today in the
- * zone, unless that puts a time of the chain after `now` (a night pour logged at 00:50 whose truck
+ * zone, unless that puts the first time after `now` (a night pour logged at 00:50 whose truck
  * was batched at 23:05), in which case the day before.
  */
 export function chainStartDate(times: (string | null | undefined)[], timeZone: string, now: Date): string {
   const today = localDate(now, timeZone);
-  const chain = chainWallTimes(today, times, timeZone).filter((t): t is Date => t !== null);
-  return chain.some((t) => t.getTime() > now.getTime()) ? addDays(today, -1) : today;
+  // Only the first time decides: a later time still in the future is a mistake to refuse, not a date to guess.
+  const first = chainWallTimes(today, times, timeZone).find((t): t is Date => t !== null);
+  return first && first.getTime() > now.getTime() ? addDays(today, -1) : today;
 }
