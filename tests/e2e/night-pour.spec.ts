@@ -6,7 +6,6 @@
 import { mkdirSync } from "node:fs";
 import { expect, test, type Browser, type Page } from "@playwright/test";
 import { TodayPage } from "./field-pages";
-import { InspectionPage } from "./inspection-pages";
 import { DEMO, signIn } from "./support";
 
 const PHONE = { width: 390, height: 844 };
@@ -104,33 +103,4 @@ test("a night pour crossing midnight is saved with its dates; a truck on a plann
   await wide.getByTestId("delivery-batchedAt").fill("23:05");
   await wide.getByTestId("delivery-dischargeFinishedAt").fill("00:50");
   await shot(wide, "form-desktop");
-});
-
-test("a hold on a placement with trucks says how much concrete is there, in the project's units", async ({ browser }) => {
-  test.setTimeout(240_000);
-  const stamp = Date.now().toString(36).toUpperCase();
-  const samPage = await fieldPage(browser, DEMO.sam);
-  const today = new TodayPage(samPage);
-  await today.open();
-  await today.waitAllSaved();
-  const id = await today.planPlacement({ project: PROJECT, element: `Held wall ${stamp}`, least: "10", volume: "30", mixCode: "LC-4000-A" });
-  const sam = new InspectionPage(samPage);
-  await sam.addTruck({ ticket: `H1-${stamp}`, volume: "10" });
-  await sam.addTruck({ ticket: `H2-${stamp}`, volume: "8" });
-  await sam.startReadiness();
-  await sam.answerAllYes();
-  await samPage.getByTestId("transition-ready").click();
-  await expect(sam.state()).toHaveText("Ready for inspection");
-  await sam.waitAllSaved();
-
-  // 10 + 8 yd³ accepted: the hold form and the banner say 18 yd³ is already there.
-  const ines = new InspectionPage(await fieldPage(browser, DEMO.ines));
-  await ines.waitForState(id, "Ready for inspection");
-  await ines.page.getByTestId("transition-held").click();
-  await expect(ines.page.getByTestId("placement-transitions").getByTestId("concrete-in-place")).toContainText("18 yd³ from 2 trucks");
-  await ines.page.getByTestId("hold-reason").fill("Trucks went on before the inspection; cover not verified");
-  await ines.page.getByRole("button", { name: "Hold the placement" }).click();
-  await expect(ines.state()).toHaveText("Held");
-  await expect(ines.page.getByTestId("hold-banner").getByTestId("concrete-in-place")).toContainText("Already on this placement: 18 yd³ from 2 trucks");
-  await shot(ines.page, "hold-phone");
 });
