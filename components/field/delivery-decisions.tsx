@@ -18,9 +18,10 @@ export function NotClearedQuestion({ placement, input, error }: { placement: Loc
   return (
     <Notice tone="caution" title="This placement is not cleared to place" className="sm:col-span-2" testId="delivery-not-cleared">
       <p className="flex flex-wrap items-center gap-2">
-        It is <StateBadge kind="placement" code={state} testId="delivery-placement-state" />. Concrete goes on
-        once the inspector has pressed “{PLACEMENT_MOVE_WORDS.cleared.button}”.
+        <span>Its state:</span>
+        <StateBadge kind="placement" code={state} testId="delivery-placement-state" />
       </p>
+      <p className="mt-1">Concrete goes on once the inspector has pressed “{PLACEMENT_MOVE_WORDS.cleared.button}”.</p>
       <Field
         label="Why is this truck going on now?"
         className="mt-2"

@@ -175,7 +175,7 @@ export function DeliveryForm({
       {time("dischargeFinishedAt", "Discharge end")}
       {times.crossesMidnight ? (
         <Notice tone="info" title="This truck crossed midnight" className="sm:col-span-2" testId="delivery-midnight">
-          A time earlier than the one before it is on the next day: batched {formatDay(times.dates.batchedAt ?? times.date)}, the later times on{" "}
+          A time earlier than the one before it is on the next day: batched {formatDay(times.dates.batchedAt ?? times.date)}, the times after midnight on{" "}
           {formatDay([...Object.values(times.dates)].sort().at(-1) ?? times.date)}. Change the batch date if that is wrong.
         </Notice>
       ) : null}
