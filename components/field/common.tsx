@@ -12,6 +12,7 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from "@/lib/concrete";
 import { isLocalWriteError, listProjects, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useOptionalSyncDb } from "@/lib/sync/client/react";
+import { addDays as addLocalDays, isTimeZone, localDate, localDateTime, localDateTimeToInstant } from "@/lib/time/zone";
 
 export type FieldContextValue = { selectedProjectId: string | null; selectProject: (id: string | null) => void };
 export const FieldContext = createContext<FieldContextValue>({ selectedProjectId: null, selectProject: () => {} });
@@ -37,20 +38,12 @@ export function mayWrite(project: ProjectRow | undefined, action: Action): boole
 
 export const unitSystemOf = (project: ProjectRow | undefined): UnitSystem => (project?.unitSystem === "IP" ? "IP" : "SI");
 
-/** "YYYY-MM-DD" of an instant in a time zone. */
+/** "YYYY-MM-DD" of an instant in a time zone (lib/time/zone: the one home of project-local time). */
 export function dateInZone(instant: Date, timeZone: string): string {
-  try {
-    return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(instant);
-  } catch {
-    return instant.toISOString().slice(0, 10);
-  }
+  return isTimeZone(timeZone) ? localDate(instant, timeZone) : instant.toISOString().slice(0, 10);
 }
 
-export function addDays(isoDate: string, days: number): string {
-  const d = new Date(`${isoDate}T12:00:00Z`);
-  d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
-}
+export const addDays = addLocalDays;
 
 export function formatTime(value: unknown, timeZone?: string): string {
   if (typeof value !== "string" || !value) return "—";
@@ -74,35 +67,44 @@ export function formatDateTime(value: unknown, timeZone?: string): string {
   }
 }
 
-/** Value for an <input type="datetime-local"> from an instant (device time). */
-export function toLocalInput(value: Date | string | null | undefined): string {
+// Inputs show and read times on the project's wall clock (lib/time/zone), whatever zone the
+// device is set to; without a zone (screens not tied to a project) the device's clock is used.
+const zoneOf = (timeZone?: string) => (timeZone && isTimeZone(timeZone) ? timeZone : Intl.DateTimeFormat().resolvedOptions().timeZone);
+
+/** A project-local calendar date (YYYY-MM-DD) in words: "Wed, Dec 2". */
+export function formatDay(date: string): string {
+  const t = Date.parse(`${date}T12:00:00Z`);
+  if (Number.isNaN(t)) return date;
+  return new Intl.DateTimeFormat("en-US", { weekday: "short", month: "short", day: "numeric", timeZone: "UTC" }).format(t);
+}
+
+/** Value for an <input type="datetime-local"> from an instant, on the project's wall clock. */
+export function toLocalInput(value: Date | string | null | undefined, timeZone?: string): string {
   if (!value) return "";
   const d = typeof value === "string" ? new Date(value) : value;
   if (Number.isNaN(d.getTime())) return "";
-  const pad = (n: number) => String(n).padStart(2, "0");
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+  return localDateTime(d, zoneOf(timeZone));
 }
 
-/** Value for an <input type="time"> (device time). */
-export function toTimeInput(value: Date | string | null | undefined): string {
-  return toLocalInput(value).slice(11, 16);
+/** Value for an <input type="time"> on the project's wall clock. */
+export function toTimeInput(value: Date | string | null | undefined, timeZone?: string): string {
+  return toLocalInput(value, timeZone).slice(11, 16);
 }
 
-/** A datetime-local value → ISO instant, or null when empty. */
-export function fromLocalInput(value: string | undefined | null): string | null {
+/** A datetime-local value on the project's wall clock → ISO instant, or null when empty. */
+export function fromLocalInput(value: string | undefined | null, timeZone?: string): string | null {
   if (!value) return null;
-  const d = new Date(value);
-  return Number.isNaN(d.getTime()) ? null : d.toISOString();
+  return localDateTimeToInstant(value, zoneOf(timeZone))?.toISOString() ?? null;
 }
 
-/** A time typed on `baseDate` (YYYY-MM-DD, device time) → ISO instant, or null when empty. */
-export function fromTimeInput(time: string | undefined | null, baseDate: string): string | null {
+/** A time typed on `baseDate` (YYYY-MM-DD) on the project's wall clock → ISO instant, or null when empty. */
+export function fromTimeInput(time: string | undefined | null, baseDate: string, timeZone?: string): string | null {
   if (!time) return null;
-  return fromLocalInput(`${baseDate}T${time}`);
+  return fromLocalInput(`${baseDate}T${time}`, timeZone);
 }
 
-export function todayLocal(): string {
-  return toLocalInput(new Date()).slice(0, 10);
+export function todayLocal(timeZone?: string): string {
+  return localDate(new Date(), zoneOf(timeZone));
 }
 
 /** A typed number, or null when empty; NaN stays NaN so the schema names the field. */
@@ -185,7 +187,11 @@ export function NowInput({
   type = "time",
   error,
   testId,
+  timeZone,
+  hint,
 }: {
+  timeZone?: string;
+  hint?: React.ReactNode;
   label: string;
   value: string;
   onChange: (value: string) => void;
@@ -193,7 +199,7 @@ export function NowInput({
   error?: string;
   testId?: string;
 }) {
-  const now = () => onChange(type === "time" ? toTimeInput(new Date()) : toLocalInput(new Date()));
+  const now = () => onChange(type === "time" ? toTimeInput(new Date(), timeZone) : toLocalInput(new Date(), timeZone));
   return (
     <div className="flex flex-col gap-1">
       <label className="text-sm font-semibold text-ink-800">
@@ -220,6 +226,7 @@ export function NowInput({
           </button>
         </div>
       </label>
+      {hint ?? (type === "datetime-local" && timeZone ? <ZoneHint value={value} timeZone={timeZone} /> : null)}
       {error ? (
         <p className="text-sm font-medium text-danger-700" role="alert">
           {error}
@@ -227,4 +234,12 @@ export function NowInput({
       ) : null}
     </div>
   );
+}
+
+/** The instant a datetime-local value names on the project's clock, with the zone's abbreviation (CDT or CST on a change night). */
+function ZoneHint({ value, timeZone }: { value: string; timeZone: string }) {
+  const at = fromLocalInput(value, timeZone);
+  if (!at) return null;
+  const text = new Intl.DateTimeFormat("en-US", { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone, timeZoneName: "short" }).format(new Date(at));
+  return <p className="text-sm text-muted">{text} (project time)</p>;
 }

@@ -25,7 +25,7 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
   const { register, control, handleSubmit, setValue, setError, formState } = useForm<Values>({
-    defaultValues: { method: "Insulated blankets", readAt: toLocalInput(new Date()), temp: "", location: "", note: "" },
+    defaultValues: { method: "Insulated blankets", readAt: toLocalInput(new Date(), project.timeZone), temp: "", location: "", note: "" },
   });
   useDirtyGuard("curing-new", formState.isDirty);
   const errors = formState.errors;
@@ -36,7 +36,7 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
       await createLocal(db, "curing-readings", placement.projectId, {
         placementId: placement.id,
         method: f.method.trim(),
-        readAt: fromLocalInput(f.readAt) ?? "",
+        readAt: fromLocalInput(f.readAt, project.timeZone) ?? "",
         tempC: toSI("temperature", f.temp, units),
         location: f.location.trim() || undefined,
         note: f.note.trim() || null,
@@ -51,7 +51,7 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
   return (
     <form onSubmit={onSubmit} className="mt-3 grid gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="curing-form" noValidate>
       <Field label="Protection or curing method" error={errors.method?.message} {...register("method")} />
-      <NowInput label="Read at" type="datetime-local" value={readAt} onChange={(x) => setValue("readAt", x, { shouldDirty: true })} error={errors.readAt?.message} />
+      <NowInput label="Read at" type="datetime-local" value={readAt} onChange={(x) => setValue("readAt", x, { shouldDirty: true })} error={errors.readAt?.message} timeZone={project.timeZone} testId="curing-read-at" />
       <Field label="Concrete temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.temp?.message} data-testid="curing-temp" {...register("temp")} />
       <Field label="Location" placeholder="e.g. NE corner, under blanket" error={errors.location?.message} {...register("location")} />
       <Field label="Note" className="sm:col-span-2" {...register("note")} />

@@ -18,6 +18,7 @@ import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
+import { ConcreteInPlace } from "@/components/inspection/concrete-in-place";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { OpenFindings } from "@/components/findings/open-findings";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
@@ -88,6 +89,7 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
             void move("held", reason.trim());
           }}
         >
+          <ConcreteInPlace placement={placement} project={project} className="text-sm font-semibold text-ink-950" />
           <Field label="Reason for the hold" value={reason} onChange={(e) => setReason(e.target.value)} data-testid="hold-reason" />
           <div className="flex gap-2">
             <Button type="submit" disabled={!reason.trim()}>

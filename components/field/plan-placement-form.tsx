@@ -41,7 +41,7 @@ export function PlanPlacementForm({
   const mixes = useLiveQuery(() => listByProject(db, "mix-designs", project.id), [db, project.id]);
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<Values>({
-    defaultValues: { element: "", level: "", grid: "", elementType: "slab-on-ground", leastDimension: "", plannedVolume: "", mixId: "", plannedStart: toLocalInput(new Date()) },
+    defaultValues: { element: "", level: "", grid: "", elementType: "slab-on-ground", leastDimension: "", plannedVolume: "", mixId: "", plannedStart: toLocalInput(new Date(), project.timeZone) },
   });
   useDirtyGuard("plan-placement", formState.isDirty);
   const errors = formState.errors;
@@ -57,7 +57,7 @@ export function PlanPlacementForm({
         leastDimensionMm: toSI("length", v.leastDimension, units),
         plannedVolumeM3: toSI("volume", v.plannedVolume, units),
         mixId: v.mixId || null,
-        plannedStart: fromLocalInput(v.plannedStart) ?? "",
+        plannedStart: fromLocalInput(v.plannedStart, project.timeZone) ?? "",
       });
       onDone();
       router.push(`/field/placement?id=${id}`);

@@ -41,14 +41,14 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
   const { register, control, handleSubmit, setValue, setError, formState } = useForm<Values>({
-    defaultValues: { observedAt: toLocalInput(new Date()), airTemp: "", rh: "", wind: "", concreteTemp: "", sun: "sun" },
+    defaultValues: { observedAt: toLocalInput(new Date(), project.timeZone), airTemp: "", rh: "", wind: "", concreteTemp: "", sun: "sun" },
   });
   useDirtyGuard("weather-new", formState.isDirty);
   const errors = formState.errors;
   const v = useWatch({ control }) as Values;
   const draft = {
     placementId: placement.id,
-    observedAt: fromLocalInput(v.observedAt) ?? new Date().toISOString(),
+    observedAt: fromLocalInput(v.observedAt, project.timeZone) ?? new Date().toISOString(),
     airTempC: toSI("temperature", v.airTemp, units),
     relativeHumidityPct: parseNumber(v.rh),
     windKmh: toSI("speed", v.wind, units),
@@ -62,7 +62,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
     try {
       await createLocal(db, "weather-observations", placement.projectId, {
         placementId: placement.id,
-        observedAt: fromLocalInput(f.observedAt) ?? "",
+        observedAt: fromLocalInput(f.observedAt, project.timeZone) ?? "",
         airTempC: toSI("temperature", f.airTemp, units),
         relativeHumidityPct: parseNumber(f.rh),
         windKmh: toSI("speed", f.wind, units),
@@ -80,7 +80,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
 
   return (
     <form onSubmit={onSubmit} className="mt-3 grid gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="weather-form" noValidate>
-      <NowInput label="Observed" type="datetime-local" value={v.observedAt} onChange={(x) => setValue("observedAt", x, { shouldDirty: true })} error={errors.observedAt?.message} />
+      <NowInput label="Observed" type="datetime-local" value={v.observedAt} onChange={(x) => setValue("observedAt", x, { shouldDirty: true })} error={errors.observedAt?.message} timeZone={project.timeZone} testId="weather-observed-at" />
       <Field label="Air temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.airTemp?.message} data-testid="weather-air-temp" {...register("airTemp")} />
       <Field label="Relative humidity" inputMode="decimal" unit="%" error={errors.rh?.message} data-testid="weather-rh" {...register("rh")} />
       <Field label="Wind (average, not gusts)" inputMode="decimal" unit={unitLabel("speed", units)} error={errors.wind?.message} data-testid="weather-wind" {...register("wind")} />

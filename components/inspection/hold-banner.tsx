@@ -7,6 +7,7 @@ import { mayWrite, str } from "@/components/field/common";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { PLACEMENT_MOVE_WORDS, PLACEMENT_STATE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
+import { ConcreteInPlace } from "./concrete-in-place";
 
 export function HoldBanner({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
   if (placement.state !== "held") return null;
@@ -23,6 +24,7 @@ export function HoldBanner({ placement, project }: { placement: LocalRecord; pro
         <p className="mt-1 text-base font-semibold text-ink-950" data-testid="hold-reason-text">
           {str(placement.holdReason) || "No reason was given."}
         </p>
+        <ConcreteInPlace placement={placement} project={project} />
         <p className="mt-1 text-sm">
           {fixer
             ? `Fix what is named, update the readiness answers, then press “${PLACEMENT_MOVE_WORDS.ready.button}” again.`

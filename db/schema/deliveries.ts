@@ -17,6 +17,8 @@ export const deliveries = pgTable(
     ticketNumber: varchar("ticket_number", { length: 40 }).notNull(),
     truck: varchar("truck", { length: 40 }).notNull().default(""),
     volumeM3: doublePrecision("volume_m3").notNull(),
+    /** The mix code printed on the ticket, checked against the placement's mix (lib/checks). */
+    mixCode: varchar("mix_code", { length: 40 }),
     batchedAt: instantColumn("batched_at").notNull(),
     arrivedAt: instantColumn("arrived_at").notNull(),
     dischargeStartedAt: instantColumn("discharge_started_at"),
@@ -30,6 +32,8 @@ export const deliveries = pgTable(
     admixtureNote: text("admixture_note"),
     status: deliveryStatus("status").notNull().default("accepted"),
     rejectReason: text("reject_reason"),
+    /** Why a truck went onto a placement that was not cleared or being placed (kept with the record and its audit entry). */
+    notClearedReason: text("not_cleared_reason"),
   },
   (t) => [...syncedConstraints("deliveries", t), index("deliveries_placement_idx").on(t.placementId)],
 );

@@ -1,4 +1,4 @@
-import { doublePrecision, index, pgTable, text, uuid } from "drizzle-orm/pg-core";
+import { doublePrecision, index, pgTable, text, uuid, varchar } from "drizzle-orm/pg-core";
 import { instantColumn, syncedColumns } from "./columns";
 import { deliveries } from "./deliveries";
 import { placements } from "./placements";
@@ -21,6 +21,8 @@ export const fieldTests = pgTable(
     airTempC: doublePrecision("air_temp_c"),
     densityKgM3: doublePrecision("density_kg_m3"),
     notes: text("notes"),
+    /** Who ran the tests (a certified field technician, by name); the time is sampledAt. */
+    testedBy: varchar("tested_by", { length: 120 }),
   },
   (t) => [...syncedConstraints("field_tests", t), index("field_tests_placement_idx").on(t.placementId)],
 );

@@ -116,3 +116,26 @@ export function siteWaterFinding(d: CheckDelivery, mix: CheckMix | null, project
     governs: GOVERNS,
   };
 }
+
+/** Mix codes compare without case, spaces or dashes: "LC 4000-A" on a ticket is the mix LC-4000-A. */
+const sameMixCode = (a: string, b: string) => a.replace(/[\s-]/g, "").toUpperCase() === b.replace(/[\s-]/g, "").toUpperCase();
+
+// ASTM C94 §14 (delivery ticket): the ticket names the concrete delivered; the inspector checks it is
+// the mix ordered for this placement before it is placed [common practice].
+export function mixCodeFinding(d: CheckDelivery, mix: CheckMix | null): Finding | null {
+  if (d.status === "rejected" || !d.mixCode || !mix || sameMixCode(d.mixCode, mix.code)) return null;
+  return {
+    rule: "mix-code",
+    severity: "warning",
+    subject: { type: "delivery", id: d.id },
+    placementId: d.placementId,
+    at: d.arrivedAt.toISOString(),
+    title: `Wrong mix on the ticket: ${ticketName(d)} says ${d.mixCode}, the placement's mix is ${mix.code}`,
+    message:
+      `The ticket names mix ${d.mixCode}; this placement was planned with ${mix.code}. Confirm with the supplier and the ` +
+      "engineer of record before the load is placed; a load of the wrong mix is usually rejected.",
+    applied: { value: null, limit: null, unit: "" },
+    source: { document: "ASTM C94", clause: "§14 delivery ticket", basis: "practice" },
+    governs: GOVERNS,
+  };
+}

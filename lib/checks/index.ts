@@ -3,7 +3,7 @@
 // review table, the placement review page and the PDF) shows findings made here and nowhere else.
 import { localDate } from "@/lib/time/zone";
 import { coldWeatherFindings, curingFinding } from "./cold-weather";
-import { dischargeFinding, revolutionsFinding, siteWaterFinding } from "./delivery";
+import { dischargeFinding, mixCodeFinding, revolutionsFinding, siteWaterFinding } from "./delivery";
 import { fieldTestFindings, laterCheckTestPassed } from "./field-tests";
 import { strengthFindings } from "./strength";
 import { SEVERITIES, type CheckInput, type Finding, type Severity } from "./types";
@@ -30,7 +30,7 @@ export function evaluate(input: CheckInput, options: EvaluateOptions = {}): Find
     if (f) findings.push(f);
   }
   for (const d of input.deliveries) {
-    for (const f of [dischargeFinding(d, project, options.now), revolutionsFinding(d, project), siteWaterFinding(d, mixOf(d.placementId), project)]) {
+    for (const f of [dischargeFinding(d, project, options.now), revolutionsFinding(d, project), siteWaterFinding(d, mixOf(d.placementId), project), mixCodeFinding(d, mixOf(d.placementId))]) {
       if (f) findings.push(f);
     }
   }

@@ -77,6 +77,7 @@ export function toCheckInput(src: StoredRecords): CheckInput {
     ticketNumber: text(d.ticketNumber),
     truck: text(d.truck),
     volumeM3: Number(d.volumeM3),
+    mixCode: typeof d.mixCode === "string" && d.mixCode.trim() ? d.mixCode.trim() : null,
     batchedAt: date(d.batchedAt),
     arrivedAt: date(d.arrivedAt),
     dischargeStartedAt: dateOrNull(d.dischargeStartedAt),

@@ -32,6 +32,7 @@ export const RULES = [
   "discharge-elapsed",
   "revolutions",
   "site-water",
+  "mix-code",
   "slump",
   "air-content",
   "concrete-temperature",
@@ -121,6 +122,8 @@ export type CheckDelivery = {
   ticketNumber: string;
   truck: string;
   volumeM3: number;
+  /** The mix code printed on the ticket; null when not entered. */
+  mixCode: string | null;
   batchedAt: Date;
   arrivedAt: Date;
   dischargeStartedAt: Date | null;

@@ -31,7 +31,10 @@ export async function loadCheckDay(tx: Executor, project: Project, date: string)
   const live = <T extends { projectId: PgColumn; deletedAt: PgColumn }>(t: T) => and(eq(t.projectId, projectId), isNull(t.deletedAt))!;
 
   // One after another: inside a transaction the statements share one connection.
-  const dayDeliveries = await tx.select().from(deliveries).where(and(live(deliveries), inRange(deliveries.arrivedAt, day)));
+  // A truck's findings are dated by its discharge end or its last water, which a night pour puts on the
+  // day after its arrival: a truck belongs to every day one of those times falls on.
+  const truckTimes = [deliveries.arrivedAt, deliveries.dischargeFinishedAt, deliveries.waterFirstAt, deliveries.waterLastAt];
+  const dayDeliveries = await tx.select().from(deliveries).where(and(live(deliveries), or(...truckTimes.map((col) => inRange(col, day)))));
   const dayTests = await tx.select().from(fieldTests).where(and(live(fieldTests), inRange(fieldTests.sampledAt, day)));
   const dayWeather = await tx
     .select()

@@ -48,13 +48,14 @@ async function datesOfPlacements(tx: Executor, project: Project, placementIds: s
   const ids = `{${placementIds.join(",")}}`;
   const result = await tx.execute(sql`
     select planned_start as at from placements where id = any(${ids}::uuid[])
-    union all select arrived_at from deliveries where placement_id = any(${ids}::uuid[]) and deleted_at is null
+    union all select unnest(array[arrived_at, discharge_finished_at, water_first_at, water_last_at]) from deliveries
+      where placement_id = any(${ids}::uuid[]) and deleted_at is null
     union all select sampled_at from field_tests where placement_id = any(${ids}::uuid[]) and deleted_at is null
     union all select observed_at from weather_observations where placement_id = any(${ids}::uuid[]) and deleted_at is null
     union all select read_at from curing_readings where placement_id = any(${ids}::uuid[]) and deleted_at is null
     union all select b.tested_at from breaks b join specimen_sets s on s.id = b.specimen_set_id
       where s.placement_id = any(${ids}::uuid[]) and b.deleted_at is null`);
-  return (result.rows as { at: Date | string }[]).map((r) => localDate(new Date(r.at), tz));
+  return (result.rows as { at: Date | string | null }[]).filter((r) => r.at !== null).map((r) => localDate(new Date(r.at!), tz));
 }
 
 /**
@@ -64,7 +65,8 @@ async function datesOfPlacements(tx: Executor, project: Project, placementIds: s
 export async function datesAffected(tx: Executor, projectId: string, type: string, rows: Row[]): Promise<string[]> {
   const project = await loadProject(tx, projectId);
   const tz = project.timeZone;
-  const at = (field: string) => rows.map((r) => when(r[field])).filter((d): d is Date => d !== null).map((d) => localDate(d, tz));
+  const at = (...fields: string[]) =>
+    rows.flatMap((r) => fields.map((field) => when(r[field]))).filter((d): d is Date => d !== null).map((d) => localDate(d, tz));
   switch (type) {
     case "weather-observations": {
       const days = at("observedAt");
@@ -72,7 +74,8 @@ export async function datesAffected(tx: Executor, projectId: string, type: strin
       return project.coldWeatherDefinition === "aci306-1990" ? days.flatMap((d) => [d, addDays(d, 1), addDays(d, 2), addDays(d, 3)]) : days;
     }
     case "deliveries":
-      return at("arrivedAt");
+      // The days lib/findings/load.ts reads a truck on (a night pour's discharge is after midnight).
+      return at("arrivedAt", "dischargeFinishedAt", "waterFirstAt", "waterLastAt");
     case "field-tests":
       return at("sampledAt");
     case "curing-readings":

@@ -63,3 +63,9 @@ export function describeAllowed(state: PlacementState): string {
 export function describeForbidden(transition: Transition): string {
   return `Only the ${rolesFor(transition).join(" or the ")} can move a placement from “${placementStateLabel(transition.from)}” to “${placementStateLabel(transition.to)}”.`;
 }
+
+/** States in which concrete is expected: cleared by the inspector, or being placed. */
+export const TAKES_CONCRETE: readonly PlacementState[] = ["cleared", "placing"];
+
+/** Whether a truck on a placement in `state` needs a reason (it is not cleared or being placed). */
+export const truckNeedsReason = (state: unknown): boolean => !TAKES_CONCRETE.includes(state as PlacementState);

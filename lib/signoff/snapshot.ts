@@ -10,8 +10,12 @@ import { canonicalJson, sha256Hex } from "./canonical";
 const CHILD_TYPES: RecordType[] = ["deliveries", "field-tests", "specimen-sets", "weather-observations", "checklists", "curing-readings"];
 const BOOKKEEPING = new Set(["version", "changeSeq", "updatedAt", "updatedBy", "createdAt", "state", "holdReason", "signedAt", "signedBy"]);
 
+// Columns added after records were first signed: left out while empty, so a placement signed before
+// the column existed still hashes to what was signed (its rows read back with the column null).
+const ADDED_LATER = new Set(["mixCode", "testedBy", "notClearedReason"]);
+
 function content(row: Record<string, unknown>): Record<string, unknown> {
-  return Object.fromEntries(Object.entries(row).filter(([key]) => !BOOKKEEPING.has(key)));
+  return Object.fromEntries(Object.entries(row).filter(([key, value]) => !BOOKKEEPING.has(key) && !(ADDED_LATER.has(key) && value == null)));
 }
 
 async function rowsOf(tx: Executor, type: RecordType, field: string, ids: string[], projectId: string) {

@@ -108,3 +108,79 @@ export function wallClockInstants(wall: WallClock, timeZone: string): { instants
     .sort((a, b) => a - b);
   return { instants };
 }
+
+/** "HH:MM" on the wall clock in `timeZone` at `instant` (24-hour). */
+export function localTimeOfDay(instant: Date, timeZone: string): string {
+  const p = zonedParts(instant, timeZone);
+  return `${pad(p.hour)}:${pad(p.minute)}`;
+}
+
+/** "YYYY-MM-DDTHH:MM" (a datetime-local input's value) in `timeZone` at `instant`. */
+export function localDateTime(instant: Date, timeZone: string): string {
+  return `${localDate(instant, timeZone)}T${localTimeOfDay(instant, timeZone)}`;
+}
+
+function parseClock(time: string): { hour: number; minute: number } | null {
+  const m = /^(\d{2}):(\d{2})$/.exec(time);
+  if (!m) return null;
+  const hour = Number(m[1]);
+  const minute = Number(m[2]);
+  return hour <= 23 && minute <= 59 ? { hour, minute } : null;
+}
+
+/**
+ * Every instant at which the wall clock in `timeZone` shows `time` ("HH:MM") on `date`: one
+ * normally, two in the hour repeated when clocks go back; in the hour skipped when they go forward,
+ * the one instant the same number of minutes after the change (02:30 → 03:30 CDT in Chicago).
+ */
+export function wallTimeInstants(date: string, time: string, timeZone: string): Date[] {
+  const clock = parseClock(time);
+  if (!isLocalDate(date) || !clock) return [];
+  const [year, month, day] = date.split("-").map(Number);
+  const { instants } = wallClockInstants({ year, month, day, hour: clock.hour, minute: clock.minute, second: 0 }, timeZone);
+  if (instants.length) return instants.map((t) => new Date(t));
+  const wall = Date.UTC(year, month - 1, day, clock.hour, clock.minute);
+  return [new Date(wall - offsetMs(new Date(wall - DAY_MS), timeZone))];
+}
+
+/** A datetime-local value ("YYYY-MM-DDTHH:MM") read on the wall clock of `timeZone`; the first occurrence when it repeats. */
+export function localDateTimeToInstant(value: string, timeZone: string): Date | null {
+  const [date, time] = value.split("T");
+  return wallTimeInstants(date ?? "", (time ?? "").slice(0, 5), timeZone)[0] ?? null;
+}
+
+/**
+ * Clock times written in the order they happened (a truck ticket: batch, arrival, discharge start,
+ * end), read from `date` in `timeZone`. Each time is the first instant, on its day or a later one,
+ * that is not before the time before it: 23:05 then 00:50 is 00:50 the next day, and on the night
+ * clocks go back 01:50 CDT then 01:10 is 01:10 CST, the same night. Blank times stay null and do not
+ * move the chain.
+ */
+export function chainWallTimes(date: string, times: (string | null | undefined)[], timeZone: string): (Date | null)[] {
+  let previous: Date | null = null;
+  let day = date;
+  return times.map((time) => {
+    if (!time || !parseClock(time)) return null;
+    for (let step = 0; step < 2; step += 1) {
+      const found = wallTimeInstants(day, time, timeZone).find((t) => !previous || t.getTime() >= previous.getTime());
+      if (found) {
+        previous = found;
+        return found;
+      }
+      day = addDays(day, 1);
+    }
+    return null;
+  });
+}
+
+/**
+ * The day a new ticket's first time is read on, when the person has not chosen one: today in the
+ * zone, unless that puts the first time after `now` (a night pour logged at 00:50 whose truck
+ * was batched at 23:05), in which case the day before.
+ */
+export function chainStartDate(times: (string | null | undefined)[], timeZone: string, now: Date): string {
+  const today = localDate(now, timeZone);
+  // Only the first time decides: a later time still in the future is a mistake to refuse, not a date to guess.
+  const first = chainWallTimes(today, times, timeZone).find((t): t is Date => t !== null);
+  return first && first.getTime() > now.getTime() ? addDays(today, -1) : today;
+}

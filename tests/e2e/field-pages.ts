@@ -92,9 +92,19 @@ export class PlacementPage extends FieldShellPage {
       await expect(this.page.getByTestId("delivery-form").getByTestId("water-check")).toBeVisible();
     }
     await expect(this.page.getByTestId("delivery-form").getByTestId("discharge-check")).toContainText("ASTM C94");
-    await this.page.getByTestId("delivery-save").click();
-    await expect(this.page.getByTestId("delivery-form")).toHaveCount(0);
+    await this.saveTruck();
     await expect(this.page.locator(`[data-testid="delivery-row"][data-ticket="${v.ticket}"]`)).toBeVisible();
+  }
+
+  /** Saves the open truck form, answering its questions: why on work not cleared, and accept a flagged load. */
+  async saveTruck(reason = "Blinding under the slab; the inspector agreed on site") {
+    const why = this.page.getByTestId("delivery-not-cleared-reason");
+    if (await why.isVisible()) await why.fill(reason);
+    await this.page.getByTestId("delivery-save").click();
+    const accept = this.page.getByTestId("delivery-decision-accept");
+    await expect(this.page.getByTestId("delivery-form").and(this.page.locator(":not(:has([data-testid=delivery-decision]))"))).toHaveCount(0);
+    if (await accept.isVisible()) await accept.click();
+    await expect(this.page.getByTestId("delivery-form")).toHaveCount(0);
   }
 
   async editTicket(from: string, to: string) {

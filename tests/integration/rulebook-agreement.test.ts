@@ -18,7 +18,8 @@ import { buildDailyReport } from "@/lib/reports/daily";
 import type { PlacementReviewRow } from "@/lib/review/query";
 import { addMembership, callRoute, createProject, createUser, type TestUser } from "./helpers";
 
-const DATE = "2027-01-15";
+// A past day: readings and truck times in the future are refused by the record schemas.
+const DATE = "2026-01-15";
 // 10:00 in Chicago on DATE (CST, UTC−6).
 const T = (minutes: number) => new Date(Date.parse(`${DATE}T10:00:00-06:00`) + minutes * 60_000).toISOString();
 
@@ -53,6 +54,8 @@ const deliveryArb = fc.record({
   water: fc.constantFrom(null, 30, 100),
   waterSpan: fc.constantFrom(5, 20),
   rejected: fc.boolean(),
+  // The mix code on the ticket: none, the placement's mix (written another way), another mix.
+  mixCode: fc.constantFrom(null, "same", "other"),
 });
 const testArb = fc.record({
   slumpMm: fc.constantFrom(100, 126, 160),
@@ -108,7 +111,9 @@ async function writeDay(day: Day) {
   for (const [k, d] of day.deliveries.entries()) {
     const b = k * 20;
     const r = await write("superintendent", "deliveries", {
-      placementId, ticketNumber: `AG-${k}`, truck: String(30 + k), volumeM3: 8, batchedAt: T(b), arrivedAt: T(b + 25), dischargeStartedAt: T(b + 30),
+      placementId, ticketNumber: `AG-${k}`, truck: String(30 + k), volumeM3: 8,
+      mixCode: d.mixCode === null ? null : d.mixCode === "same" ? `ag ${project.code}` : "LC-5000-B",
+      batchedAt: T(b), arrivedAt: T(b + 25), dischargeStartedAt: T(b + 30),
       dischargeFinishedAt: d.finish === null ? null : T(b + d.finish), revolutions: d.revolutions,
       ...(d.water === null ? {} : { waterAddedL: d.water, waterFirstAt: T(b + 26), waterLastAt: T(b + 26 + d.waterSpan), waterAddedBy: "Driver", waterAuthorisedBy: "Sam" }),
       ...(d.rejected ? { status: "rejected", rejectReason: "Too hot" } : {}),
@@ -167,6 +172,7 @@ const normalise = (text: string) => text.replace(/\s+/g, " ");
 describe("one verdict on every surface", () => {
   it("the device, the stored findings, the digest, the review table and the PDF show the same findings", async () => {
     let warnedDays = 0;
+    let wrongMixes = 0;
     await fc.assert(
       fc.asyncProperty(dayArb, async (day) => {
         const { projectId, placementId } = await writeDay(day);
@@ -174,6 +180,7 @@ describe("one verdict on every surface", () => {
         const device = await deviceFindings(projectId);
         const expected = sorted(device.map(findingKey));
         if (expected.length) warnedDays++;
+        wrongMixes += device.filter((f) => f.rule === "mix-code").length;
 
         const stored = await db.select().from(checkFindings).where(eq(checkFindings.projectId, projectId));
         expect(sorted(stored.map((f) => findingKey({ rule: f.rule as Finding["rule"], severity: f.severity as Finding["severity"], subject: { type: f.subjectType, id: f.subjectId } as Finding["subject"] }))), "stored").toEqual(expected);
@@ -204,6 +211,8 @@ describe("one verdict on every surface", () => {
         // left day-level cold weather out of "has warnings"), and an inch-pound afternoon at 80/80 °F,
         // 50 %, 15 mph where the phone once used the SI form.
         examples: [
+          // A ticket naming another mix than the placement's: a warning on every surface.
+          [{ ...QUIET, deliveries: [{ finish: 60, revolutions: null, water: null, waterSpan: 5, rejected: false, mixCode: "other" as const }], weather: [{ airTempC: 10, relativeHumidityPct: 90, windKmh: 5, concreteTempC: null, onPlacement: false }] }],
           [{ ...QUIET, weather: [{ airTempC: -5, relativeHumidityPct: 90, windKmh: 5, concreteTempC: null, onPlacement: false }] }],
           [{ ...QUIET, project: { ...QUIET.project, unitSystem: "IP" as const }, weather: [{ airTempC: 26.667, relativeHumidityPct: 50, windKmh: 24.14, concreteTempC: 26.667, onPlacement: true }] }],
         ],
@@ -211,5 +220,6 @@ describe("one verdict on every surface", () => {
     );
     // The random days cover days with and without findings.
     expect(warnedDays).toBeGreaterThan(0);
+    expect(wrongMixes, "a wrong mix on a ticket was generated and found").toBeGreaterThan(0);
   }, 300_000);
 });

@@ -62,7 +62,7 @@ export function demoDay(projectId: string, date: string, overrides: Partial<Dige
   const nul = <T,>(x: unknown) => (x ?? null) as T | null;
   const deliveries = rows("deliveries", "arrivedAt").map((d) => ({
     id: d.id, placementId: d.placementId as string, ticketNumber: d.ticketNumber as string, truck: (d.truck as string) ?? "",
-    volumeM3: d.volumeM3 as number, batchedAt: d.batchedAt as Date, arrivedAt: d.arrivedAt as Date,
+    volumeM3: d.volumeM3 as number, mixCode: (d.mixCode as string | null) ?? null, batchedAt: d.batchedAt as Date, arrivedAt: d.arrivedAt as Date,
     dischargeFinishedAt: nul<Date>(d.dischargeFinishedAt), revolutions: nul<number>(d.revolutions), waterAddedL: nul<number>(d.waterAddedL),
     waterFirstAt: nul<Date>(d.waterFirstAt), waterLastAt: nul<Date>(d.waterLastAt), waterAddedBy: nul<string>(d.waterAddedBy),
     waterAuthorisedBy: nul<string>(d.waterAuthorisedBy), status: ((d.status as string) ?? "accepted") as "accepted" | "rejected",

@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { clientId, instant, optionalText, recordId, requiredText, temperatureC } from "./fields";
+import { clientId, pastInstant, optionalText, recordId, requiredText, temperatureC } from "./fields";
 
 export const curingFields = {
   method: requiredText("Curing method", 80),
-  readAt: instant("Reading time"),
+  readAt: pastInstant("Reading time"),
   tempC: temperatureC("Temperature"),
   location: optionalText("Location", 120),
   note: optionalText("Note", 1_000).nullable(),

@@ -1,24 +1,26 @@
 import { z } from "zod";
 import { DELIVERY_STATUSES } from "@/lib/records/enums";
-import { choice, clientId, instant, measure, optionalText, ordered, recordId, requiredText, wholeNumber } from "./fields";
+import { choice, clientId, pastInstant, measure, optionalText, ordered, recordId, requiredText, wholeNumber } from "./fields";
 
 export const deliveryFields = {
   ticketNumber: requiredText("Ticket number", 40),
   truck: optionalText("Truck", 40),
   volumeM3: measure("Volume", 0, 20, "m³"),
-  batchedAt: instant("Batch time"),
-  arrivedAt: instant("Arrival time"),
-  dischargeStartedAt: instant("Discharge start").nullable(),
-  dischargeFinishedAt: instant("Discharge end").nullable(),
+  mixCode: optionalText("Mix code on the ticket", 40).nullable(),
+  batchedAt: pastInstant("Batch time"),
+  arrivedAt: pastInstant("Arrival time"),
+  dischargeStartedAt: pastInstant("Discharge start").nullable(),
+  dischargeFinishedAt: pastInstant("Discharge end").nullable(),
   revolutions: wholeNumber("Drum revolutions", 0, 2_000).nullable(),
   waterAddedL: measure("Water added", 0, 2_000, "L").nullable(),
-  waterFirstAt: instant("Time of the first water").nullable(),
-  waterLastAt: instant("Time of the last water").nullable(),
+  waterFirstAt: pastInstant("Time of the first water").nullable(),
+  waterLastAt: pastInstant("Time of the last water").nullable(),
   waterAddedBy: optionalText("Water added by", 120).nullable(),
   waterAuthorisedBy: optionalText("Water authorised by", 120).nullable(),
   admixtureNote: optionalText("Admixture note", 1_000).nullable(),
   status: choice("Status", DELIVERY_STATUSES),
   rejectReason: optionalText("Reason for rejecting", 1_000).nullable(),
+  notClearedReason: optionalText("Reason for concrete on a placement that is not cleared", 1_000).nullable(),
 };
 
 type DeliveryShape = {
@@ -63,6 +65,7 @@ export const deliveryCreateSchema = z
   .object({ id: clientId, placementId: recordId("Placement"), ...deliveryFields })
   .partial({
     truck: true,
+    mixCode: true,
     dischargeStartedAt: true,
     dischargeFinishedAt: true,
     revolutions: true,
@@ -74,6 +77,7 @@ export const deliveryCreateSchema = z
     admixtureNote: true,
     status: true,
     rejectReason: true,
+    notClearedReason: true,
   })
   .superRefine(checkDelivery);
 

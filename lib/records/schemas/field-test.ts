@@ -1,9 +1,9 @@
 import { z } from "zod";
-import { clientId, instant, measure, optionalText, recordId, temperatureC } from "./fields";
+import { clientId, pastInstant, measure, optionalText, recordId, temperatureC } from "./fields";
 
 export const fieldTestFields = {
   deliveryId: recordId("Delivery").nullable(),
-  sampledAt: instant("Sampling time"),
+  sampledAt: pastInstant("Sampling time"),
   slumpMm: measure("Slump", 0, 300, "mm").nullable(),
   slumpFlowMm: measure("Slump flow", 0, 1_000, "mm").nullable(),
   airPct: measure("Air content", 0, 20, "%").nullable(),
@@ -11,6 +11,7 @@ export const fieldTestFields = {
   airTempC: temperatureC("Air temperature").nullable(),
   densityKgM3: measure("Density", 500, 4_000, "kg/m³").nullable(),
   notes: optionalText("Notes", 2_000).nullable(),
+  testedBy: optionalText("Tested by", 120).nullable(),
 };
 
 const RESULTS = ["slumpMm", "slumpFlowMm", "airPct", "concreteTempC", "densityKgM3"] as const;
@@ -26,6 +27,7 @@ export const fieldTestCreateSchema = z
     airTempC: true,
     densityKgM3: true,
     notes: true,
+    testedBy: true,
   })
   .superRefine((v, ctx) => {
     if (RESULTS.every((key) => v[key] === undefined || v[key] === null)) {

@@ -76,6 +76,21 @@ export function instant(label: string) {
     );
 }
 
+// A device's clock and the server's differ by a few minutes; a reading stamped "now" on one is
+// never refused by the other. Anything later than this is a time that has not happened yet.
+const CLOCK_SKEW_MS = 10 * 60_000;
+
+/**
+ * A moment that has already happened (a truck's discharge, a reading): a time in the future is
+ * refused, on the device when it is typed and on the server when it arrives, with the same words.
+ */
+export function pastInstant(label: string) {
+  return instant(label).refine(
+    (value) => value.getTime() <= Date.now() + CLOCK_SKEW_MS,
+    `${label} is in the future: enter a time that has already passed (on a night pour, check the date)`,
+  );
+}
+
 /** A calendar date in the project's time zone, e.g. a diary day. */
 export function calendarDate(label: string) {
   return z.iso.date({ error: missingOr(label, `${label} must be a calendar date like 2026-11-09`) });

@@ -1,10 +1,10 @@
 import { z } from "zod";
 import { SUN_EXPOSURES } from "@/lib/records/enums";
-import { choice, clientId, instant, measure, recordId, temperatureC } from "./fields";
+import { choice, clientId, pastInstant, measure, recordId, temperatureC } from "./fields";
 
 // The evaporation rate is never taken from the client: the server computes it (lib/concrete).
 export const weatherFields = {
-  observedAt: instant("Observation time"),
+  observedAt: pastInstant("Observation time"),
   airTempC: temperatureC("Air temperature"),
   relativeHumidityPct: measure("Relative humidity", 0, 100, "%"),
   windKmh: measure("Wind speed", 0, 200, "km/h"),

@@ -2,7 +2,7 @@
 // within 90 min; site water within 15 min of the first portion; revolutions only when ordered, C94-17a).
 import { describe, expect, it } from "vitest";
 import { evaluate } from "@/lib/checks";
-import { dischargeFinding, revolutionsFinding, siteWaterFinding } from "@/lib/checks/delivery";
+import { dischargeFinding, mixCodeFinding, revolutionsFinding, siteWaterFinding } from "@/lib/checks/delivery";
 import { delivery, input, mix, project } from "./fixtures";
 
 const t = (hhmm: string) => new Date(`2026-07-14T${hhmm}:00Z`);
@@ -29,6 +29,16 @@ describe("discharge time (ASTM C94 §10.7)", () => {
     expect(running).toMatchObject({ rule: "discharge-elapsed", severity: "info", title: "Discharging: 47 of 90 min since batching" });
     expect(dischargeFinding(d, project(), t("11:35"))!.message).toContain("has passed and the discharge is not finished");
     expect(evaluate(input({ deliveries: [d] }), { now: t("10:47") }).map((f) => f.rule)).toEqual(["discharge-elapsed"]);
+  });
+
+  it("a night pour: batched 23:05, discharged 00:50 the next day is 105 min, late against 90 [computed: 55 + 50 min]", () => {
+    const late = dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: new Date("2026-07-15T00:50:00-05:00") }), project())!;
+    expect(late).toMatchObject({ rule: "discharge-time", severity: "warning", applied: { value: 105, limit: 90, unit: "min" } });
+    // Batched 23:05, finished 00:30: 85 min, in time.
+    expect(dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: new Date("2026-07-15T00:30:00-05:00") }), project())).toBeNull();
+    // Still discharging at 00:50: 105 min elapsed since batching, not a negative figure.
+    const running = dischargeFinding(delivery({ batchedAt: new Date("2026-07-14T23:05:00-05:00"), dischargeFinishedAt: null }), project(), new Date("2026-07-15T00:50:00-05:00"))!;
+    expect(running.applied.value).toBe(105);
   });
 
   it("a rejected load is not judged", () => {
@@ -61,5 +71,22 @@ describe("water added at site (ASTM C94, current wording)", () => {
     const f = siteWaterFinding(delivery({ waterAddedL: 37.85411784 }), allowance, project({ unitSystem: "IP" }))!;
     expect(f.applied.unit).toBe("gal");
     expect(f.applied.value).toBeCloseTo(10, 9);
+  });
+});
+
+describe("the mix code on the ticket (ASTM C94 §14 delivery ticket; checked against the placement's mix [common practice])", () => {
+  const planned = mix({ code: "LC-4000-A" });
+  it("the placement's mix, however it is written, is no finding; another mix is a warning naming both", () => {
+    expect(mixCodeFinding(delivery({ mixCode: "LC-4000-A" }), planned)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "lc 4000a" }), planned)).toBeNull();
+    const wrong = mixCodeFinding(delivery({ mixCode: "LC-5000-B" }), planned)!;
+    expect(wrong).toMatchObject({ rule: "mix-code", severity: "warning", subject: { type: "delivery", id: "d1" } });
+    expect(wrong.title).toBe("Wrong mix on the ticket: ticket BR-1042 (truck 31) says LC-5000-B, the placement's mix is LC-4000-A");
+    expect(evaluate(input({ deliveries: [delivery({ mixCode: "LC-5000-B" })] })).map((f) => f.rule)).toContain("mix-code");
+  });
+  it("no code entered, no mix planned, or a rejected load: nothing to judge", () => {
+    expect(mixCodeFinding(delivery({ mixCode: null }), planned)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "LC-5000-B" }), null)).toBeNull();
+    expect(mixCodeFinding(delivery({ mixCode: "LC-5000-B", status: "rejected" }), planned)).toBeNull();
   });
 });

@@ -51,6 +51,7 @@ export function delivery(overrides: Partial<CheckDelivery> = {}): CheckDelivery 
     ticketNumber: "BR-1042",
     truck: "31",
     volumeM3: 8,
+    mixCode: null,
     batchedAt: new Date("2026-07-14T15:00:00Z"),
     arrivedAt: new Date("2026-07-14T15:35:00Z"),
     dischargeStartedAt: new Date("2026-07-14T15:40:00Z"),
