@@ -49,6 +49,7 @@ describe("drum revolutions (ASTM C94-17a §6.1.9)", () => {
     expect(f.title).toBe("Drum revolutions over the limit: ticket BR-1042 (truck 31), 301 revolutions");
     expect(f.message).toBe("301 revolutions; the order allows 300. ASTM C94 applies a revolution limit only when the order states one.");
     expect(f.applied).toEqual({ value: 301, limit: 300, unit: "revolutions" });
+    expect(f).toMatchObject({ rule: "revolutions", subject: { type: "delivery", id: "d1" }, placementId: "p1" });
     expect(f.source).toEqual({ document: "ASTM C94", edition: "17a", clause: "§6.1.9", basis: "published" });
     expect(f.at).toBe(t("16:20").toISOString());
     expect(revolutionsFinding(delivery({ revolutions: 301, dischargeFinishedAt: null }), project({ revolutionLimit: 300 }))!.at).toBe(t("15:35").toISOString());
@@ -66,6 +67,7 @@ describe("water added at the site (ASTM C94)", () => {
     const f = siteWaterFinding(delivery({ waterAddedL: 80, waterFirstAt: t("10:40"), waterLastAt: t("10:55") }), allowance, project())!;
     expect(f.severity).toBe("caution");
     expect(f.title).toBe("Water added at site: ticket BR-1042 (truck 31), 80 L");
+    expect(f).toMatchObject({ rule: "site-water", subject: { type: "delivery", id: "d1" }, placementId: "p1" });
     expect(f.message).toBe(`Within the 80 L the mix design allows for this load. ${C94_WATER}`);
     expect(f.source).toEqual({ document: "ASTM C94", clause: "water added at the job site", basis: "published" });
     expect(f.at).toBe(t("10:55").toISOString());
