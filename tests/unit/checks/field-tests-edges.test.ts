@@ -58,6 +58,9 @@ describe("slump and air findings", () => {
     expect(low.source).toEqual({ document: "ASTM C94", clause: "slump and air content tolerances", basis: "memory" });
     const [high] = fieldTestFindings(fieldTest({ airPct: 7.6 }), mix(), project());
     expect(high.applied.limit).toBe(7.5);
+    expect(low.severity).toBe("warning");
+    // Cleared by a passing check test: kept on record as a caution.
+    expect(fieldTestFindings(fieldTest({ airPct: 4.4 }), mix(), project(), true)[0].severity).toBe("caution");
   });
 
   it("the mix's own air tolerance is named as the mix design's", () => {
@@ -76,6 +79,7 @@ describe("slump and air findings", () => {
 describe("concrete temperature wording", () => {
   it("says where the limit comes from, that it is not C94's check test, and who decides", () => {
     const [f] = fieldTestFindings(fieldTest({ concreteTempC: 36 }), mix(), project());
+    expect(f).toMatchObject({ rule: "concrete-temperature", severity: "warning" });
     expect(f.title).toBe("Above the maximum temperature: 36.0 °C (maximum 35 °C)");
     expect(f.message).toBe(
       "The maximum concrete temperature at discharge is 35 °C. The limit comes from the project specification (ACI 301 / ACI 305.1 default 35 °C, 95 °F), not ASTM C94's check test. " +
