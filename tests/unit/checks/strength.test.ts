@@ -51,6 +51,7 @@ describe("strength findings: what they name and say (ACI 318-19 §26.12.3.1(b); 
     const [f] = strengthFindings(input({ specimenSets: [set(150)], breaks: [late(1, 23.5, "16"), late(2, 24.5, "11")] }));
     expect(f.subject).toEqual({ type: "strength-test", id: "s1:28" });
     expect(f.at).toBe("2026-07-14T16:00:00.000Z");
+    expect(strengthFindings(input({ specimenSets: [set(150)], breaks: [late(1, 23.5, "11"), late(2, 24.5, "16")] }))[0].at).toBe("2026-07-14T16:00:00.000Z");
     expect(f.title).toBe("Low strength test: set LC-P2-A (Level 2 deck), 28 days, 24.0 MPa");
     expect(f.message).toBe(
       "The average of 2 cylinders, 24.0 MPa, is below the 24.1 MPa limit for f′c 27.6 MPa. " +
