@@ -25,7 +25,7 @@ describe("maturity-cold: the protection window and the 13 °C minimum (ACI 306R)
   });
 
   it("cites the lowest reading (the earliest of equals), counts the cold readings, and says what to do", () => {
-    const readings = [r("s1", 1, 11), r("s1", 2, 9), r("s1", 3, 9), r("s1", 4, 12), r("s2", 2, 1)];
+    const readings = [r("s1", 1, 11), r("s1", 3, 9), r("s1", 2, 9), r("s1", 4, 12), r("s2", 2, 1)];
     const [f] = maturityColdFindings(project, placement, [sensor("s1")], readings);
     expect(f.at).toBe(at(2).toISOString());
     expect(f.message).toBe(
@@ -47,6 +47,7 @@ describe("maturity-gap: a continuous record (ASTM C1074)", () => {
       "The logger reads every 60 min. Across the gap the maturity is computed from the readings either side, which may miss a cold spell; download the logger again if it holds the missing readings.",
     );
     expect(found[0].source).toEqual({ document: "ASTM C1074", basis: "memory" });
+    expect(found[0]).toMatchObject({ rule: "maturity-gap", severity: "caution", subject: { type: "sensor", id: "s1" }, placementId: "p1" });
   });
 
   it("a silent sensor: under two hours in minutes, from two hours in hours, with what to check", () => {
@@ -74,6 +75,7 @@ describe("maturity-target: only with a target, and the estimate must be confirme
 
   it("names the placement and who decides", () => {
     const [f] = maturityTargetFindings(project, placement, reached, 15);
+    expect(f).toMatchObject({ rule: "maturity-target", severity: "info", subject: { type: "sensor", id: "cold" } });
     expect(f.message).toBe(
       "By the maturity method, every sensor of Level 2 deck had reached the maturity of 15.0 MPa on the mix's calibration by 2026-11-06 11:00. " +
         "ASTM C1074 asks that the estimate be confirmed by other tests (field-cured cylinders, cores or in-place tests) before form removal, post-tensioning or loading; the project specification, the formwork engineer and the engineer of record decide.",
