@@ -54,8 +54,8 @@ export type StrengthTestRow = {
 
 const iso = (value: Date | string) => new Date(value).toISOString();
 
-/** One strength test per set and age: the average of that sample's cylinders at that age. */
 type GroupedSet = Pick<LabSet, "id" | "setCode" | "placementId" | "castAt" | "cylinderDiameterMm">;
+/** One strength test per set and age: the average of that sample's cylinders at that age. */
 export function strengthTests(sets: GroupedSet[], breaks: Pick<LabBreak, "specimenSetId" | "testedAt" | "ageDays" | "strengthMPa">[]): StrengthTestRow[] {
   const setById = new Map(sets.map((s) => [s.id, s]));
   const groups = new Map<string, StrengthTestRow>();
