@@ -36,6 +36,7 @@ function dayStats(readings: CheckWeather[], timeZone: string, unitSystem: UnitSy
     const date = localDate(r.observedAt, timeZone);
     byDate.set(date, [...(byDate.get(date) ?? []), r]);
   }
+  // Stryker disable next-line ConditionalExpression,EqualityOperator,StringLiteral: 10 °C and 50 °F are the same temperature, so either branch gives 10 °C.
   const warmC = unitSystem === "SI" ? COLD_WEATHER_LIMITS["aci306-1990"].SI.warm : ((COLD_WEATHER_LIMITS["aci306-1990"].IP.warm - 32) * 5) / 9;
   const stats = new Map<string, DayStats>();
   for (const [date, day] of byDate) {
@@ -47,10 +48,14 @@ function dayStats(readings: CheckWeather[], timeZone: string, unitSystem: UnitSy
   return stats;
 }
 
+/** The least section dimension the minimum-temperature table can be read for: known and positive, else null. */
+const sectionMm = (p: Pick<CheckPlacement, "leastDimensionMm"> | undefined): number | null =>
+  (p?.leastDimensionMm ?? 0) > 0 ? p!.leastDimensionMm : null;
+
 function minimumsText(placements: CheckPlacement[], unitSystem: UnitSystem): string {
   const list = placements
-    .filter((p) => p.leastDimensionMm !== null && p.leastDimensionMm > 0)
-    .map((p) => `${p.element} at or above ${minimumConcreteTemp(p.leastDimensionMm!, unitSystem)} ${unitOf(unitSystem)}`);
+    .filter((p) => sectionMm(p) !== null)
+    .map((p) => `${p.element} at or above ${minimumConcreteTemp(sectionMm(p)!, unitSystem)} ${unitOf(unitSystem)}`);
   return list.length ? ` Keep ${list.join("; ")} (ACI 306R minimum by least section dimension).` : "";
 }
 
@@ -97,9 +102,10 @@ export function coldWeatherFindings(input: Pick<CheckInput, "project" | "weather
 
 /** A protection or curing reading below the minimum for the placement's least section dimension. */
 export function curingFinding(reading: CheckCuring, placement: CheckPlacement | undefined, project: CheckProject): Finding | null {
-  if (!placement || placement.leastDimensionMm === null || !(placement.leastDimensionMm > 0)) return null;
+  const sizeMm = sectionMm(placement);
+  if (sizeMm === null) return null;
   const units = project.unitSystem;
-  const minimum = minimumConcreteTemp(placement.leastDimensionMm, units);
+  const minimum = minimumConcreteTemp(sizeMm, units);
   const value = temperatureInUnits(reading.tempC, units);
   if (value >= minimum) return null;
   const unit = unitOf(units);
@@ -107,7 +113,7 @@ export function curingFinding(reading: CheckCuring, placement: CheckPlacement | 
     rule: "curing-temperature",
     severity: "warning",
     subject: { type: "curing", id: reading.id },
-    placementId: placement.id,
+    placementId: placement!.id,
     at: reading.readAt.toISOString(),
     title: `Below the minimum for this section: ${formatTemperature(reading.tempC, units)} (minimum ${minimum} ${unit})`,
     message:
@@ -120,5 +126,7 @@ export function curingFinding(reading: CheckCuring, placement: CheckPlacement | 
 }
 
 /** The minimum the curing log shows for a placement, in °C as stored (for input hints). */
-export const curingMinimumC = (placement: Pick<CheckPlacement, "leastDimensionMm">, unitSystem: UnitSystem): number | null =>
-  placement.leastDimensionMm !== null && placement.leastDimensionMm > 0 ? minimumConcreteTempC(placement.leastDimensionMm, unitSystem) : null;
+export const curingMinimumC = (placement: Pick<CheckPlacement, "leastDimensionMm">, unitSystem: UnitSystem): number | null => {
+  const sizeMm = sectionMm(placement);
+  return sizeMm === null ? null : minimumConcreteTempC(sizeMm, unitSystem);
+};

@@ -110,6 +110,6 @@ export function fieldTestFindings(test: CheckFieldTest, mix: CheckMix | null, pr
 export function laterCheckTestPassed(test: CheckFieldTest, all: CheckFieldTest[], mix: CheckMix | null, project: CheckProject): boolean {
   if (test.deliveryId === null) return false;
   return all.some(
-    (t) => t.id !== test.id && t.deliveryId === test.deliveryId && t.sampledAt > test.sampledAt && fieldTestFindings(t, mix, project).length === 0,
+    (t) => t.deliveryId === test.deliveryId && t.sampledAt > test.sampledAt && fieldTestFindings(t, mix, project).length === 0,
   );
 }

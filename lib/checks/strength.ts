@@ -54,8 +54,9 @@ export type StrengthTestRow = {
 
 const iso = (value: Date | string) => new Date(value).toISOString();
 
+type GroupedSet = Pick<LabSet, "id" | "setCode" | "placementId" | "castAt" | "cylinderDiameterMm">;
 /** One strength test per set and age: the average of that sample's cylinders at that age. */
-export function strengthTests(sets: LabSet[], breaks: LabBreak[]): StrengthTestRow[] {
+export function strengthTests(sets: GroupedSet[], breaks: Pick<LabBreak, "specimenSetId" | "testedAt" | "ageDays" | "strengthMPa">[]): StrengthTestRow[] {
   const setById = new Map(sets.map((s) => [s.id, s]));
   const groups = new Map<string, StrengthTestRow>();
   for (const b of [...breaks].sort((x, y) => iso(x.testedAt).localeCompare(iso(y.testedAt)))) {
@@ -84,6 +85,7 @@ export function strengthTests(sets: LabSet[], breaks: LabBreak[]): StrengthTestR
       // ACI 318-19 §26.12.1.1 [memory: section]: a strength test averages ≥ 2 cylinders of 150 × 300 mm or ≥ 3 of 100 × 200 mm.
       row.averageMPa = strengthTest(row.cylindersMPa, { diameterMm });
     } catch (error) {
+      // Stryker disable next-line ConditionalExpression: strengthTest throws only ConcreteInputError; the rethrow keeps a programming error from reading as a short test.
       if (!(error instanceof ConcreteInputError)) throw error;
       row.incompleteReason = `${error.message} (${row.cylindersMPa.length} broken so far)`;
     }
@@ -200,8 +202,6 @@ const ACI_318_INDIVIDUAL: Source = { document: "ACI 318", edition: "19", clause:
 export function strengthFindings(input: Pick<CheckInput, "project" | "placements" | "specimenSets" | "breaks">): Finding[] {
   const units = input.project.unitSystem;
   const placement = new Map(input.placements.map((p) => [p.id, p]));
-  const sets: LabSet[] = input.specimenSets.map((s) => ({ ...s, count: 0, testAgesDays: [] }));
-  const breaks: LabBreak[] = input.breaks.map((b) => ({ ...b, loadKN: 0, diameterMm: 0, lengthMm: null, fractureType: null, version: 0 }));
   const lastBreak = new Map<string, Date>();
   for (const b of input.breaks) {
     const key = `${b.specimenSetId}:${b.ageDays}`;
@@ -210,7 +210,7 @@ export function strengthFindings(input: Pick<CheckInput, "project" | "placements
   const toUnits = (mpa: number) => (units === "SI" ? mpa : mpaToPsi(mpa));
   const fmt = (mpa: number) => formatStrength(mpa, units);
   const findings: Finding[] = [];
-  for (const row of strengthTests(sets, breaks)) {
+  for (const row of strengthTests(input.specimenSets, input.breaks)) {
     const p = placement.get(row.placementId);
     const key = `${row.setId}:${row.ageDays}`;
     const base = { subject: { type: "strength-test" as const, id: key }, placementId: row.placementId, at: lastBreak.get(key)!.toISOString(), governs: GOVERNS };

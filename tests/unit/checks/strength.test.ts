@@ -43,3 +43,41 @@ describe("strength tests per ACI 318", () => {
     expect(strengthFindings(input({ specimenSets: [set(150)], breaks: [breakOf(1, 15, 7), breakOf(2, 15, 7)] }))).toEqual([]);
   });
 });
+
+describe("strength findings: what they name and say (ACI 318-19 §26.12.3.1(b); cores per UFGS 03300)", () => {
+  const late = (i: number, strengthMPa: number, hour: string) => ({ ...breakOf(i, strengthMPa), testedAt: new Date(`2026-07-14T${hour}:00:00Z`) });
+
+  it("a low test is dated by its last break and names the set, the placement, the limit, the rule and the next steps", () => {
+    const [f] = strengthFindings(input({ specimenSets: [set(150)], breaks: [late(1, 23.5, "16"), late(2, 24.5, "11")] }));
+    expect(f.subject).toEqual({ type: "strength-test", id: "s1:28" });
+    expect(f.at).toBe("2026-07-14T16:00:00.000Z");
+    expect(strengthFindings(input({ specimenSets: [set(150)], breaks: [late(1, 23.5, "11"), late(2, 24.5, "16")] }))[0].at).toBe("2026-07-14T16:00:00.000Z");
+    expect(f.title).toBe("Low strength test: set LC-P2-A (Level 2 deck), 28 days, 24.0 MPa");
+    expect(f.message).toBe(
+      "The average of 2 cylinders, 24.0 MPa, is below the 24.1 MPa limit for f′c 27.6 MPa. " +
+        "ACI 318-19 §26.12.3.1(b): no strength test below f′c − 3.5 MPa (500 psi) when f′c ≤ 35 MPa (5000 psi), nor below 0.90 f′c above that. " +
+        "Investigate the result; if low strength is confirmed, cores (ASTM C42) are usually judged adequate when three average at least 85 % of f′c and none is below 75 %. " +
+        "These checks compare test results with the specified limits; whether the structure is adequate is the engineer of record's decision.",
+    );
+    expect(f.applied).toMatchObject({ value: 24, unit: "MPa" });
+    expect(f.source).toEqual({ document: "ACI 318", edition: "19", clause: "§26.12.3.1(b)", basis: "published" });
+  });
+
+  it("inch-pound: the limit is quoted in psi (3500 psi for f'c 4000 psi) [DOMAIN §5]", () => {
+    const p = placement({ mix: mix({ fcMPa: 4000 * 0.006894757 }) });
+    const [f] = strengthFindings(input({ project: project({ unitSystem: "IP" }), placements: [p], specimenSets: [set(150)], breaks: [breakOf(1, 3400 * 0.006894757), breakOf(2, 3500 * 0.006894757)] }));
+    expect(f.message).toContain("is below the 3500 psi limit for f′c 4000 psi.");
+  });
+
+  it("a set whose placement is not in the input: the short test is still counted, nothing is judged against an unknown mix", () => {
+    const orphan = { ...set(150), placementId: "elsewhere" };
+    const [info] = strengthFindings(input({ specimenSets: [orphan], breaks: [breakOf(1, 15)] }));
+    expect(info.title).toBe("Not yet a strength test: set LC-P2-A, 28 days, 1 of 2 cylinders broken");
+    expect(info.message).toBe(
+      "ACI 318 counts the average of at least two 150 × 300 mm (6 × 12 in) or three 100 × 200 mm (4 × 8 in) cylinders as one strength test; one cylinder is not judged on its own. Mean so far 15.0 MPa.",
+    );
+    expect(info.applied).toEqual({ value: 1, limit: 2, unit: "cylinders" });
+    expect(info.source).toEqual({ document: "ACI 318", edition: "19", clause: "§26.12.1.1", basis: "memory" });
+    expect(strengthFindings(input({ specimenSets: [orphan], breaks: [breakOf(1, 15), breakOf(2, 15)] }))).toEqual([]);
+  });
+});
