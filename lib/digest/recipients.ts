@@ -3,6 +3,7 @@
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db, type Executor } from "@/db";
+import { transaction } from "@/db/transaction";
 import { digestRecipients, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorize } from "@/lib/auth/authorize";
@@ -80,7 +81,7 @@ async function getRecipientOrThrow(tx: Executor, projectId: string, id: string):
 }
 
 export async function addRecipient(user: SessionUser, projectId: string, input: z.output<typeof addRecipientSchema>) {
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const [row] = await tx
       .insert(digestRecipients)
@@ -95,7 +96,7 @@ export async function addRecipient(user: SessionUser, projectId: string, input: 
 
 /** The office changes anyone's hour or empty-day choice; an owner changes their own and may resubscribe. */
 export async function updateRecipient(user: SessionUser, projectId: string, id: string, patch: z.output<typeof updateRecipientSchema>) {
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const role = await getRole(user.id, projectId, tx);
     if (role !== "owner") await authorize(user, "digest.manage", projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
@@ -120,7 +121,7 @@ export async function updateRecipient(user: SessionUser, projectId: string, id: 
 }
 
 export async function removeRecipient(user: SessionUser, projectId: string, id: string) {
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
     if (row.source === "member") {
@@ -132,7 +133,7 @@ export async function removeRecipient(user: SessionUser, projectId: string, id: 
 }
 
 export async function setProjectDigestHour(user: SessionUser, projectId: string, digestHour: number) {
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const [before] = await tx.select({ digestHour: projects.digestHour }).from(projects).where(eq(projects.id, projectId));
     if (!before) throw notFound("Project");
@@ -160,7 +161,7 @@ export async function describeUnsubscribe(token: string | null | undefined): Pro
 export async function unsubscribeWithToken(token: string | null | undefined): Promise<UnsubscribeResult> {
   const found = await describeUnsubscribe(token);
   const claim = verifyUnsubscribe(token)!;
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     const [after] = await tx
       .update(digestRecipients)
       .set({ unsubscribedAt: new Date(), updatedAt: new Date() })

@@ -2,7 +2,7 @@
 import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { breaks, memberships, mixDesigns, placements, projects, specimenSets } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { can } from "@/lib/auth/can";
 import type { SessionUser } from "@/lib/auth/options";
 import { dueAt, dueStatus, testWindow, type DueStatus } from "./due";

@@ -5,7 +5,7 @@ import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { photos } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput, notFound } from "@/lib/errors";

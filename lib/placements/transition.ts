@@ -3,7 +3,7 @@ import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import type { Executor } from "@/db";
 import { placements } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { can } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";

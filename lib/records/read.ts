@@ -3,7 +3,7 @@ import { and, asc, eq, getTableColumns, gte, inArray, isNull, lte, sql, type SQL
 import { z } from "zod";
 import { db } from "@/db";
 import { projects } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { invalidInput, notFound } from "@/lib/errors";
 import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
 import { authorizeAny } from "./access";

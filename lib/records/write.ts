@@ -4,9 +4,10 @@
 // placement rules) → version → change sequence → write → audit entry.
 import { and, eq, isNull } from "drizzle-orm";
 import { z } from "zod";
-import { db, type Executor, type Transaction } from "@/db";
+import type { Executor, Transaction } from "@/db";
+import { transaction } from "@/db/transaction";
 import { projects } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput } from "@/lib/errors";
 import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
@@ -42,7 +43,7 @@ export type UpdateOptions = {
 /** Runs `fn` in a transaction, or in a savepoint of ctx.tx; database errors become AppErrors. */
 export async function inTransaction<T>(ctx: RecordContext, def: RecordDef | undefined, fn: (tx: Transaction) => Promise<T>): Promise<T> {
   try {
-    return await (ctx.tx ?? db).transaction(fn);
+    return await transaction(fn, ctx.tx);
   } catch (error) {
     throw mapDbError(error, def);
   }

@@ -1,7 +1,7 @@
 // Entry points of the review list routes: validate the query string, then answer a JSON page or
 // the CSV of every matching row.
 import type { SessionUser } from "@/lib/auth/options";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { exportDiariesCsv, exportPlacementsCsv } from "./csv";
 import { listReviewDiaries } from "./diaries";
 import { listReviewPlacements } from "./placements";

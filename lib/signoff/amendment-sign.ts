@@ -6,7 +6,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, getTableColumns, inArray } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { amendments, signOffs, users } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";

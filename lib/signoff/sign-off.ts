@@ -5,7 +5,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db";
 import { amendments, auditEntries, placements, signOffs, users } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";

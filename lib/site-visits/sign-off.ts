@@ -13,7 +13,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { conflicts, findings, photos, signOffs, siteVisits } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { checkSignerPassword } from "@/lib/signoff/password";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";

@@ -3,7 +3,7 @@
 import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { siteVisits } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput } from "@/lib/errors";
 import { authorizeAny } from "@/lib/records/access";
