@@ -7,9 +7,9 @@ import { transaction } from "@/db/transaction";
 import { digestRecipients, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorize } from "@/lib/auth/authorize";
+import { can } from "@/lib/auth/can";
 import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput, notFound } from "@/lib/errors";
-import { getRole } from "@/lib/users/queries";
 import { FIRST_DIGEST_HOUR, LAST_DIGEST_HOUR, hourLabel } from "./hours";
 import { verifyUnsubscribe } from "./unsubscribe";
 
@@ -97,11 +97,10 @@ export async function addRecipient(user: SessionUser, projectId: string, input: 
 /** The office changes anyone's hour or empty-day choice; an owner changes their own and may resubscribe. */
 export async function updateRecipient(user: SessionUser, projectId: string, id: string, patch: z.output<typeof updateRecipientSchema>) {
   return transaction(async (tx) => {
-    const role = await getRole(user.id, projectId, tx);
-    if (role !== "owner") await authorize(user, "digest.manage", projectId, tx);
+    const role = await authorize(user, ["digest.manage", "digest.subscribe"], projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
-    const own = role === "owner" && row.userId === user.id;
-    if (role === "owner" && !own) throw forbidden("You can change only your own digest settings.");
+    const own = can(user, "digest.subscribe", role) && row.userId === user.id;
+    if (!can(user, "digest.manage", role) && !own) throw forbidden("You can change only your own digest settings.");
     if (patch.subscribed !== undefined && !own) {
       throw forbidden("Only the recipient can subscribe or unsubscribe themselves; remove an added address instead.");
     }

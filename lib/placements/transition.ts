@@ -8,7 +8,7 @@ import { writeAudit } from "@/lib/audit";
 import { can } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { conflict, forbidden } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedConflict } from "@/lib/records/db-errors";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
@@ -81,7 +81,7 @@ export async function transitionPlacement(
   assertUuid(id, def.label);
   const { to, reason, baseVersion } = parseOrThrow(transitionSchema, input);
   return inTransaction(ctx, def, async (tx) => {
-    const role: ProjectRole = await authorizeAny(tx, ctx.user, projectId, ANY_TRANSITION);
+    const role: ProjectRole = await authorize(ctx.user, ANY_TRANSITION, projectId, tx);
     const placement = await lockRecord(tx, def, projectId, id);
     if (placement.deletedAt) throw conflict("This placement was deleted.", { reason: "deleted", currentVersion: placement.version });
     const from = placement.state as PlacementState;

@@ -12,7 +12,8 @@ import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput } from "@/lib/errors";
 import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
 import { derivedValues, newRowValues } from "./compute";
-import { authorizeAny, writeActions } from "./access";
+import { authorize } from "@/lib/auth/authorize";
+import { writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
 import { assertNotSigned, assertUuid, checkLinks, lockRecord } from "./guards";
@@ -118,7 +119,7 @@ export async function createRecord(
   const values = parseOrThrow(def.create, input);
   const id = values.id as string;
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const [existing] = (await tx.select().from(def.table).where(eq(def.table.id, id)).for("update")) as RecordRow[];
     if (existing) {
       if (existing.projectId === projectId && samePayload(values, existing)) return { record: existing, created: false };
@@ -160,7 +161,7 @@ export async function updateRecord(
     throw invalidInput("Nothing to change: send the fields to change.", { patch: "Send at least one field to change" });
   }
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) {
       throw conflict(`This ${def.label.toLowerCase()} was deleted.`, { reason: "deleted", currentVersion: existing.version });
@@ -229,7 +230,7 @@ export async function deleteRecord(
   assertUuid(id, def.label);
   const { baseVersion: base } = parseOrThrow(deleteBodySchema, body);
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) return existing;
     await assertNotSigned(tx, def, existing);

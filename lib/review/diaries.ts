@@ -9,7 +9,8 @@
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
-import { readableProjects, uuidArray } from "./access";
+import { readableProjects } from "@/lib/projects/readable";
+import { uuidArray } from "./access";
 import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query";
 
 const SORT_SQL: Record<DiarySort, string> = {

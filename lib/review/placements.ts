@@ -9,7 +9,8 @@
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
-import { readableProjects, uuidArray } from "./access";
+import { readableProjects } from "@/lib/projects/readable";
+import { uuidArray } from "./access";
 import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query";
 
 // Whitelisted sort expressions over the columns of the filtered set (never user text in SQL).
