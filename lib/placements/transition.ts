@@ -68,7 +68,7 @@ export async function writeStateChange(
 /**
  * Moves a placement to `to` if the workflow allows it for the caller's role. An illegal move is a
  * 409 naming the moves allowed now; a move that belongs to another role is a 403. The sign-off is
- * not a plain state change (signPlacement), and a signed placement never changes.
+ * not a plain state change (markPlacementSigned), and a signed placement never changes.
  */
 export async function transitionPlacement(
   ctx: RecordContext,

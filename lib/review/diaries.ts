@@ -11,7 +11,7 @@ import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
 import { readableProjects } from "@/lib/projects/readable";
 import { uuidArray } from "./access";
-import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query";
+import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query-schemas";
 
 const SORT_SQL: Record<DiarySort, string> = {
   date: "day",

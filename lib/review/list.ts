@@ -5,7 +5,7 @@ import { parseOrThrow } from "@/lib/validation";
 import { exportDiariesCsv, exportPlacementsCsv } from "./csv";
 import { listReviewDiaries } from "./diaries";
 import { listReviewPlacements } from "./placements";
-import { diaryListQuery, placementListQuery } from "./query";
+import { diaryListQuery, placementListQuery } from "./query-schemas";
 
 export async function reviewPlacements(user: SessionUser, query: Record<string, string>) {
   const q = parseOrThrow(placementListQuery, query);

@@ -11,7 +11,7 @@ import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
 import { readableProjects } from "@/lib/projects/readable";
 import { uuidArray } from "./access";
-import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query";
+import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query-schemas";
 
 // Whitelisted sort expressions over the columns of the filtered set (never user text in SQL).
 const SORT_SQL: Record<PlacementSort, string> = {

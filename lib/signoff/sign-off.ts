@@ -9,7 +9,7 @@ import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { signPlacement } from "@/lib/placements/sign";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
@@ -48,7 +48,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
     }
     const contentHash = snapshotHash(snapshot);
     const signedAt = new Date();
-    const placement = await signPlacement({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
+    const placement = await markPlacementSigned({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
     const [row] = await tx
       .insert(signOffs)
       .values({

@@ -1,5 +1,6 @@
-// The state change at the heart of the sign-off. The sign-off flow of a later issue wraps it (typed
-// name, drawn signature, re-entered password, sign_offs row) in the same transaction via ctx.tx.
+// The state change at the heart of the sign-off (placed → signed). The sign-off itself
+// (lib/signoff/sign-off.ts signOffPlacement: typed name, drawn signature, re-entered password,
+// sign_offs row) calls it in the same transaction via ctx.tx.
 import { conflict } from "@/lib/errors";
 import { authorize } from "@/lib/auth/authorize";
 import { signedConflict } from "@/lib/records/db-errors";
@@ -14,7 +15,7 @@ import { describeAllowed, type PlacementState } from "./workflow";
  * Signs a placed placement (inspector, "placement.sign"), only against the version the signer saw
  * (SYNC.md "Sign-off"). From then on the database refuses changes to it and its records.
  */
-export async function signPlacement(
+export async function markPlacementSigned(
   ctx: RecordContext,
   projectId: string,
   id: string,
