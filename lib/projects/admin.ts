@@ -8,7 +8,7 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit";
 import { AppError, notFound } from "@/lib/errors";
 import { findUserByEmail } from "@/lib/users/queries";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { refreshProject } from "@/lib/findings/store";
 import type { ProjectInput } from "./schemas";
 import { projectSpecSchema, type ProjectSpec } from "./spec";
