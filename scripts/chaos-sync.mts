@@ -13,8 +13,8 @@ const PORT = Number(process.env.CHAOS_APP_PORT ?? 3199);
 const KILLS = Number(process.env.CHAOS_KILLS ?? 50);
 const BASE = `http://127.0.0.1:${PORT}`;
 const DB_URL = process.env.DATABASE_URL!;
-const SAM = "0b7d2a51-5c1e-4f0a-9a55-000000000001"; // db/seed.ts DEMO_IDS.users.sam
-const MILLRACE = "6f1c3e20-8d44-4b7e-b1a2-00000000000b"; // db/seed.ts DEMO_IDS.projects.millrace
+const SAM = "0b7d2a51-5c1e-4f0a-9a55-000000000001"; // scripts/seed/ids.ts DEMO_IDS.users.sam
+const MILLRACE = "6f1c3e20-8d44-4b7e-b1a2-00000000000b"; // scripts/seed/ids.ts DEMO_IDS.projects.millrace
 const SCHEMA_VERSION = Number((await import("../lib/sync/protocol.ts")).SYNC_SCHEMA_VERSION);
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));

@@ -3,7 +3,7 @@
 // Used by scripts/start-production.sh; HOST is the address the server will bind to.
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "../db/index.ts";
-import { DEMO_USERS } from "../db/seed.ts";
+import { DEMO_USERS } from "./seed/ids.ts";
 
 const host = process.env.HOST ?? "127.0.0.1";
 const loopback = /^(127\.|::1$|localhost$)/.test(host);

@@ -5,7 +5,7 @@
 import { parseArgs } from "node:util";
 import { createInterface } from "node:readline";
 import { closeDb } from "../db/index.ts";
-import { parseOrThrow } from "../lib/api/handler.ts";
+import { parseOrThrow } from "../lib/validation.ts";
 import { createFirstAdmin } from "../lib/users/first-admin.ts";
 import { firstAdminSchema } from "../lib/users/schemas.ts";
 

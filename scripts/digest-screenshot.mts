@@ -4,7 +4,7 @@
 import { mkdirSync } from "node:fs";
 import { chromium } from "playwright-core";
 import { closeDb } from "../db/index.ts";
-import { DEMO_IDS } from "../db/seed.ts";
+import { DEMO_IDS } from "./seed/ids.ts";
 import { buildDigest, digestLinks } from "../lib/digest/content.ts";
 import { loadDigestDay } from "../lib/digest/load.ts";
 import { appOrigin } from "../lib/mail/transport.ts";

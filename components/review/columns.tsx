@@ -8,7 +8,7 @@ import { formatEvaporation, formatVolume, formatWaterVolume } from "@/lib/concre
 import { StateBadge } from "@/components/ui/state-badge";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "@/lib/review/columns";
 import { DELIVERY_STATUS_WORDS, SEVERITY_WORDS, TONES, textClassOf } from "@/lib/ui/vocabulary";
-import type { DiaryReviewRow, PlacementReviewRow } from "@/lib/review/query";
+import type { DiaryReviewRow, PlacementReviewRow } from "@/lib/review/query-schemas";
 
 const label = (cols: readonly { key: string; label: string }[], key: string) => cols.find((c) => c.key === key)!.label.replace(/ \((m³|L|min)\)$/, "");
 const P = (key: string) => label(PLACEMENT_COLUMNS, key);

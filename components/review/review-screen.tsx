@@ -11,7 +11,7 @@ import { Notice } from "@/components/ui/notice";
 import { callApi } from "@/lib/api/client";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "@/lib/review/columns";
-import { DIARY_STATES, REVIEW_PAGE_SIZES, type DiaryReviewRow, type PlacementReviewRow, type ReviewPage } from "@/lib/review/query";
+import { DIARY_STATES, REVIEW_PAGE_SIZES, type DiaryReviewRow, type PlacementReviewRow, type ReviewPage } from "@/lib/review/query-schemas";
 import type { ReviewView, SavedViews } from "@/lib/review/view-schema";
 import { diaryColumns, placementColumns } from "./columns";
 import { placementStateLabel, wordFor } from "@/lib/ui/vocabulary";

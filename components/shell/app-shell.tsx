@@ -11,9 +11,9 @@ import { ContrastToggle } from "./contrast-toggle";
 import { ProjectSwitcher } from "./project-switcher";
 import { SyncStatus } from "./sync-status";
 import { BottomNav } from "./bottom-nav";
+import type { ShellUser } from "./shell-user";
 import { UserMenu } from "./user-menu";
 
-export type ShellUser = { id: string; name: string; email: string; isAdmin: boolean };
 
 const NAV = [
   { href: "/today", label: "Today", icon: CalendarDays },

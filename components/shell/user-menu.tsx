@@ -5,7 +5,7 @@ import Link from "next/link";
 import { useEffect, useRef, useState } from "react";
 import { EraseDeviceDialog } from "@/components/account/erase-device-dialog";
 import { useSignOutWithCheck } from "@/lib/sync/client/react";
-import type { ShellUser } from "./app-shell";
+import type { ShellUser } from "./shell-user";
 
 export function UserMenu({ user, offline = false }: { user: ShellUser; offline?: boolean }) {
   const [open, setOpen] = useState(false);

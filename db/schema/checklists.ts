@@ -2,7 +2,7 @@ import { index, pgEnum, pgTable, text, uuid, varchar } from "drizzle-orm/pg-core
 import { syncedColumns } from "./columns";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";
-import { CHECKLIST_ANSWERS, CHECKLIST_KINDS } from "../../lib/records/enums";
+import { CHECKLIST_ANSWERS, CHECKLIST_KINDS } from "./enums";
 
 export const checklistKind = pgEnum("checklist_kind", CHECKLIST_KINDS);
 export const checklistAnswer = pgEnum("checklist_answer", CHECKLIST_ANSWERS);

@@ -2,7 +2,7 @@ import { doublePrecision, index, integer, pgEnum, pgTable, text, uuid, varchar }
 import { instantColumn, syncedColumns } from "./columns";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";
-import { DELIVERY_STATUSES } from "../../lib/records/enums";
+import { DELIVERY_STATUSES } from "./enums";
 
 export const deliveryStatus = pgEnum("delivery_status", DELIVERY_STATUSES);
 

@@ -1,5 +1,5 @@
 import { index, integer, jsonb, pgEnum, pgTable, text, uuid, varchar } from "drizzle-orm/pg-core";
-import { READING_SOURCES } from "../../lib/records/enums";
+import { READING_SOURCES } from "./enums";
 import { instantColumn, syncedColumns } from "./columns";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";

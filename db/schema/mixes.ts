@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import { boolean, doublePrecision, integer, pgEnum, pgTable, text, uniqueIndex, varchar } from "drizzle-orm/pg-core";
 import { syncedColumns } from "./columns";
 import { syncedConstraints } from "./synced";
-import { SLUMP_TYPES } from "../../lib/records/enums";
+import { SLUMP_TYPES } from "./enums";
 
 /** ASTM C94: a slump is ordered either as a target (± tolerance) or as a "not to exceed" maximum. */
 export const slumpType = pgEnum("slump_type", SLUMP_TYPES);

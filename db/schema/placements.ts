@@ -3,7 +3,7 @@ import { users } from "./auth";
 import { instantColumn, syncedColumns } from "./columns";
 import { mixDesigns } from "./mixes";
 import { syncedConstraints } from "./synced";
-import { ELEMENT_TYPES, PLACEMENT_STATES } from "../../lib/records/enums";
+import { ELEMENT_TYPES, PLACEMENT_STATES } from "./enums";
 
 export const placementState = pgEnum("placement_state", PLACEMENT_STATES);
 export const elementType = pgEnum("element_type", ELEMENT_TYPES);

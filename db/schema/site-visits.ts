@@ -3,7 +3,7 @@ import { users } from "./auth";
 import { instantColumn, syncedColumns } from "./columns";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";
-import { FINDING_SEVERITIES, FINDING_STATES, SITE_VISIT_STATES } from "../../lib/records/enums";
+import { FINDING_SEVERITIES, FINDING_STATES, SITE_VISIT_STATES } from "./enums";
 
 export const siteVisitState = pgEnum("site_visit_state", SITE_VISIT_STATES);
 export const findingState = pgEnum("finding_state", FINDING_STATES);

@@ -2,7 +2,7 @@ import { doublePrecision, index, pgEnum, pgTable, uuid } from "drizzle-orm/pg-co
 import { instantColumn, syncedColumns } from "./columns";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";
-import { SUN_EXPOSURES } from "../../lib/records/enums";
+import { SUN_EXPOSURES } from "./enums";
 
 export const sunExposure = pgEnum("sun_exposure", SUN_EXPOSURES);
 

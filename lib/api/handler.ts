@@ -1,35 +1,20 @@
 import { NextResponse, type NextRequest } from "next/server";
-import { z, type ZodType } from "zod";
+import type { ZodType } from "zod";
+import { DbRefusal } from "@/db/transaction";
 import { requireUser } from "@/lib/auth/session";
 import type { SessionUser } from "@/lib/auth/options";
-import { AppError, invalidInput } from "@/lib/errors";
+import { AppError } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { logger } from "@/lib/log";
+import { mapDbError } from "@/lib/records/db-errors";
+import { parseOrThrow } from "@/lib/validation";
 import { checkOrigin, DEFAULT_MAX_BODY_BYTES, readJsonBody } from "./request-guard";
 
 export type ErrorBody = { error: { code: string; message: string; fields?: Record<string, string> } };
 
-/** Field errors keyed by dotted path, with the schema's own (site-user) messages. */
-export function zodFields(error: z.ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.join(".") : "_";
-    fields[key] ??= issue.message;
-  }
-  return fields;
-}
-
-export function parseOrThrow<T>(schema: ZodType<T>, input: unknown): T {
-  const result = schema.safeParse(input);
-  if (!result.success) {
-    const fields = zodFields(result.error);
-    const first = Object.entries(fields)[0];
-    throw invalidInput(first ? first[1] : "The request is not valid.", fields);
-  }
-  return result.data;
-}
-
 export function errorResponse(error: unknown): NextResponse<ErrorBody> {
+  // A refusal by the database that escaped its write path gets the same words as one inside it.
+  if (error instanceof DbRefusal) return errorResponse(mapDbError(error));
   if (error instanceof AppError) {
     return NextResponse.json(
       { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}), ...(error.details ?? {}) } },

@@ -32,6 +32,8 @@ export const ACTIONS = [
   "amendment.write",
   "record.correct", // office correction of any unsigned record
   "digest.manage",
+  "digest.read", // the digest page: the office sees every recipient, an owner their own row
+  "digest.subscribe", // change one's own digest row (hour, empty days, unsubscribe)
   "report.export",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
@@ -74,6 +76,7 @@ const OFFICE: Action[] = [
   "record.correct",
   "amendment.write",
   "digest.manage",
+  "digest.read",
   "photo.add",
 ];
 
@@ -83,7 +86,7 @@ export const PERMISSIONS: Record<ProjectRole, ReadonlySet<Action>> = {
   superintendent: new Set([...READ, ...FIELD_WRITES]),
   inspector: new Set([...READ, ...INSPECTOR]),
   office: new Set([...READ, ...OFFICE]),
-  owner: new Set(READ),
+  owner: new Set([...READ, "digest.read", "digest.subscribe"]),
 };
 
 export type Subject = { isAdmin: boolean };

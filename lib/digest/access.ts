@@ -9,9 +9,8 @@ import type { SessionUser } from "@/lib/auth/options";
 import { authorize } from "@/lib/auth/authorize";
 import { can } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
-import { AppError, forbidden, notFound } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
 import { logger } from "@/lib/log";
-import { getRole } from "@/lib/users/queries";
 import { buildDigest, digestLinks, type DigestMessage } from "./content";
 import { loadDigestDay } from "./load";
 import { queueStarted, scheduleNext } from "./queue";
@@ -37,18 +36,17 @@ async function projectOrThrow(projectId: string) {
   return project;
 }
 
-/** Recipients as this user may see them: all for the office and administrators, their own for an owner. */
+/** Recipients as this user may see them: all for the office, their own for an owner (lib/auth/can.ts). */
 export async function getDigestView(user: SessionUser, projectId: string): Promise<DigestView> {
   const project = await projectOrThrow(projectId);
-  const role = await getRole(user.id, projectId);
+  const role = await authorize(user, "digest.read", projectId, undefined, "The digest settings are for the office and the project's owners.");
   const canManage = can(user, "digest.manage", role);
-  if (!canManage && role !== "owner" && !user.isAdmin) throw forbidden("The digest settings are for the office and the project's owners.");
   const rows = await listRecipientRows(projectId);
   return {
     project: { id: project.id, name: project.name, timeZone: project.timeZone, digestHour: project.digestHour, today: localDate(new Date(), project.timeZone) },
     role,
     canManage,
-    recipients: canManage || (user.isAdmin && role !== "owner") ? rows : rows.filter((r) => r.userId === user.id),
+    recipients: canManage ? rows : rows.filter((r) => r.userId === user.id),
   };
 }
 
@@ -74,7 +72,8 @@ export async function sendDigestNow(user: SessionUser, projectId: string, date: 
 
 export async function getDigestHistory(user: SessionUser, projectId: string): Promise<HistoryRow[]> {
   await projectOrThrow(projectId);
-  if (!user.isAdmin) await authorize(user, "digest.manage", projectId);
+  // An administrator reads it only through a membership, like every project record (lib/auth/can.ts).
+  await authorize(user, "digest.manage", projectId);
   return listSentDigests(projectId);
 }
 

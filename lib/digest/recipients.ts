@@ -3,12 +3,13 @@
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db, type Executor } from "@/db";
+import { transaction } from "@/db/transaction";
 import { digestRecipients, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorize } from "@/lib/auth/authorize";
+import { can } from "@/lib/auth/can";
 import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput, notFound } from "@/lib/errors";
-import { getRole } from "@/lib/users/queries";
 import { FIRST_DIGEST_HOUR, LAST_DIGEST_HOUR, hourLabel } from "./hours";
 import { verifyUnsubscribe, type UnsubscribeClaim } from "./unsubscribe";
 
@@ -71,7 +72,7 @@ async function getRecipientOrThrow(tx: Executor, projectId: string, id: string):
 }
 
 export async function addRecipient(user: SessionUser, projectId: string, input: z.output<typeof addRecipientSchema>) {
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const [row] = await tx
       .insert(digestRecipients)
@@ -86,12 +87,11 @@ export async function addRecipient(user: SessionUser, projectId: string, input: 
 
 /** The office changes anyone's hour or empty-day choice; an owner changes their own and may resubscribe. */
 export async function updateRecipient(user: SessionUser, projectId: string, id: string, patch: z.output<typeof updateRecipientSchema>) {
-  return db.transaction(async (tx) => {
-    const role = await getRole(user.id, projectId, tx);
-    if (role !== "owner") await authorize(user, "digest.manage", projectId, tx);
+  return transaction(async (tx) => {
+    const role = await authorize(user, ["digest.manage", "digest.subscribe"], projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
-    const own = role === "owner" && row.userId === user.id;
-    if (role === "owner" && !own) throw forbidden("You can change only your own digest settings.");
+    const own = can(user, "digest.subscribe", role) && row.userId === user.id;
+    if (!can(user, "digest.manage", role) && !own) throw forbidden("You can change only your own digest settings.");
     if (patch.subscribed !== undefined && !own) {
       throw forbidden("Only the recipient can subscribe or unsubscribe themselves; remove an added address instead.");
     }
@@ -111,7 +111,7 @@ export async function updateRecipient(user: SessionUser, projectId: string, id: 
 }
 
 export async function removeRecipient(user: SessionUser, projectId: string, id: string) {
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
     if (row.source === "member") {
@@ -123,7 +123,7 @@ export async function removeRecipient(user: SessionUser, projectId: string, id: 
 }
 
 export async function setProjectDigestHour(user: SessionUser, projectId: string, digestHour: number) {
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     await authorize(user, "digest.manage", projectId, tx);
     const [before] = await tx.select({ digestHour: projects.digestHour }).from(projects).where(eq(projects.id, projectId));
     if (!before) throw notFound("Project");
@@ -166,7 +166,7 @@ export async function describeUnsubscribe(token: string | null | undefined): Pro
 export async function unsubscribeWithToken(token: string | null | undefined): Promise<UnsubscribeResult> {
   const found = await describeUnsubscribe(token);
   const claim = verifyUnsubscribe(token)!;
-  await db.transaction(async (tx) => {
+  await transaction(async (tx) => {
     const [after] = await tx
       .update(digestRecipients)
       .set({ unsubscribedAt: new Date(), updatedAt: new Date() })

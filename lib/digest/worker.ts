@@ -3,6 +3,7 @@
 import { eq, sql } from "drizzle-orm";
 import type { Job } from "pg-boss";
 import { db } from "@/db";
+import { transaction } from "@/db/transaction";
 import { projects } from "@/db/schema";
 import { logger } from "@/lib/log";
 import { DIGEST_QUEUE, getBoss, scheduleAllProjects, scheduleNext, type DigestJob } from "./queue";
@@ -42,7 +43,7 @@ export const RESCHEDULE_LOCK = sql`hashtext('placewright:digest-reschedule')`;
  * it (null). The lock is held by a transaction, so a worker that dies mid-round releases it.
  */
 export async function rescheduleOnce(now?: Date): Promise<number | null> {
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const result = await tx.execute(sql`select pg_try_advisory_xact_lock(${RESCHEDULE_LOCK}) as got`);
     if (!(result.rows[0] as { got: boolean }).got) return null;
     return scheduleAllProjects(now);

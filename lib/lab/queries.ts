@@ -3,7 +3,7 @@
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { breaks, mixDesigns, placements, projects, specimenSets } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { authorize } from "@/lib/auth/authorize";
 import { can } from "@/lib/auth/can";
 import type { SessionUser } from "@/lib/auth/options";

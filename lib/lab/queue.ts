@@ -1,8 +1,9 @@
 // The lab queue: every planned test age of every specimen set in the user's projects, by due date.
-import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { and, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { breaks, memberships, mixDesigns, placements, projects, specimenSets } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { breaks, mixDesigns, placements, specimenSets } from "@/db/schema";
+import { parseOrThrow } from "@/lib/validation";
+import { readableProjects } from "@/lib/projects/readable";
 import { can } from "@/lib/auth/can";
 import type { SessionUser } from "@/lib/auth/options";
 import { dueAt, dueStatus, testWindow, type DueStatus } from "./due";
@@ -41,13 +42,7 @@ export type LabQueue = {
  */
 export async function listLabQueue(user: SessionUser, query: unknown, now = new Date()): Promise<LabQueue> {
   const q = parseOrThrow(queueQuerySchema, query ?? {});
-  const member = await db
-    .select({ id: projects.id, name: projects.name, role: memberships.role, unitSystem: projects.unitSystem, timeZone: projects.timeZone })
-    .from(memberships)
-    .innerJoin(projects, eq(projects.id, memberships.projectId))
-    .where(eq(memberships.userId, user.id))
-    .orderBy(asc(projects.name));
-  const readable = member.filter((p) => can(user, "project.read", p.role));
+  const readable = await readableProjects(user);
   // A project the user is not a member of is simply not in the queue (nothing about it leaks).
   const scope = readable.filter((p) => !q.projectId || p.id === q.projectId);
   const result: LabQueue = {

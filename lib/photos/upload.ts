@@ -7,11 +7,11 @@ import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
 import { photos } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput, notFound } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
@@ -55,7 +55,7 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
   // Usually the photo arrived through sync already (its metadata mutation); otherwise this creates
   // it through the one write path of records, with the same checks (role, record, signed freeze).
   const row = await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
-    await authorizeAny(tx, user, projectId, ["photo.add"]);
+    await authorize(user, "photo.add", projectId, tx);
     const [existing] = await tx.select().from(photos).where(eq(photos.id, photoId)).for("update");
     if (existing) {
       if (existing.projectId !== projectId || existing.sha256 !== body.sha256) {
@@ -76,7 +76,7 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
 export async function completePhotoUpload(user: SessionUser, projectId: string, photoId: string) {
   assertUuid(projectId, "Project");
   assertUuid(photoId, "Photo");
-  await authorizeAny(db, user, projectId, ["photo.add"]);
+  await authorize(user, "photo.add", projectId);
   const photo = await findPhoto(projectId, photoId);
   if (!photo || photo.deletedAt) throw notFound("Photo");
   if (photo.storedAt) return { stored: true, photoId };
@@ -114,7 +114,7 @@ export async function completePhotoUpload(user: SessionUser, projectId: string, 
 export async function photoViewUrl(user: SessionUser, projectId: string, photoId: string) {
   assertUuid(projectId, "Project");
   assertUuid(photoId, "Photo");
-  await authorizeAny(db, user, projectId, ["project.read"]);
+  await authorize(user, "project.read", projectId);
   const photo = await findPhoto(projectId, photoId);
   if (!photo || photo.deletedAt) throw notFound("Photo");
   if (!photo.storedAt) return { stored: false as const };

@@ -3,12 +3,12 @@ import { and, eq } from "drizzle-orm";
 import { z } from "zod";
 import type { Executor } from "@/db";
 import { placements } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { can } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { conflict, forbidden } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedConflict } from "@/lib/records/db-errors";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
@@ -68,7 +68,7 @@ export async function writeStateChange(
 /**
  * Moves a placement to `to` if the workflow allows it for the caller's role. An illegal move is a
  * 409 naming the moves allowed now; a move that belongs to another role is a 403. The sign-off is
- * not a plain state change (signPlacement), and a signed placement never changes.
+ * not a plain state change (markPlacementSigned), and a signed placement never changes.
  */
 export async function transitionPlacement(
   ctx: RecordContext,
@@ -81,7 +81,7 @@ export async function transitionPlacement(
   assertUuid(id, def.label);
   const { to, reason, baseVersion } = parseOrThrow(transitionSchema, input);
   return inTransaction(ctx, def, async (tx) => {
-    const role: ProjectRole = await authorizeAny(tx, ctx.user, projectId, ANY_TRANSITION);
+    const role: ProjectRole = await authorize(ctx.user, ANY_TRANSITION, projectId, tx);
     const placement = await lockRecord(tx, def, projectId, id);
     if (placement.deletedAt) throw conflict("This placement was deleted.", { reason: "deleted", currentVersion: placement.version });
     const from = placement.state as PlacementState;

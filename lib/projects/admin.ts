@@ -1,5 +1,6 @@
 import { and, asc, count, eq } from "drizzle-orm";
 import { db } from "@/db";
+import { transaction } from "@/db/transaction";
 import { memberships, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorizeAdmin } from "@/lib/auth/authorize";
@@ -7,14 +8,14 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit";
 import { AppError, notFound } from "@/lib/errors";
 import { findUserByEmail } from "@/lib/users/queries";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { refreshProject } from "@/lib/findings/store";
 import type { ProjectInput } from "./schemas";
 import { projectSpecSchema, type ProjectSpec } from "./spec";
 
 export async function createProject(actor: SessionUser, input: ProjectInput) {
   authorizeAdmin(actor, "admin.projects");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [clash] = await tx.select({ id: projects.id }).from(projects).where(eq(projects.code, input.code));
     if (clash) throw new AppError("conflict", `The code ${input.code} is taken by another project.`, { code: "Already used." });
     const [project] = await tx.insert(projects).values(input).returning();
@@ -52,7 +53,7 @@ export async function addMember(actor: SessionUser, projectId: string, email: st
   if (!user) {
     throw new AppError("not_found", "No account uses that e-mail address. Invite the person first.", { email: "No account with this address." });
   }
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [project] = await tx.select({ id: projects.id }).from(projects).where(eq(projects.id, projectId));
     if (!project) throw notFound("Project");
     const inserted = await tx.insert(memberships).values({ userId: user.id, projectId, role }).onConflictDoNothing().returning();
@@ -66,7 +67,7 @@ export async function addMember(actor: SessionUser, projectId: string, email: st
 
 export async function changeMemberRole(actor: SessionUser, projectId: string, userId: string, role: ProjectRole) {
   authorizeAdmin(actor, "admin.projects");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [before] = await tx.select().from(memberships).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).for("update");
     if (!before) throw notFound("Membership");
     const [after] = await tx.update(memberships).set({ role }).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).returning();
@@ -77,7 +78,7 @@ export async function changeMemberRole(actor: SessionUser, projectId: string, us
 
 export async function removeMember(actor: SessionUser, projectId: string, userId: string) {
   authorizeAdmin(actor, "admin.projects");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [removed] = await tx.delete(memberships).where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))).returning();
     if (!removed) throw notFound("Membership");
     await writeAudit(tx, { projectId, userId: actor.id, recordType: "membership", recordId: userId, action: "delete", before: { role: removed.role } });

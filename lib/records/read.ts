@@ -3,10 +3,10 @@ import { and, asc, eq, getTableColumns, gte, inArray, isNull, lte, sql, type SQL
 import { z } from "zod";
 import { db } from "@/db";
 import { projects } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { invalidInput, notFound } from "@/lib/errors";
 import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
-import { authorizeAny } from "./access";
+import { authorize } from "@/lib/auth/authorize";
 import { assertUuid } from "./guards";
 import { column, getRecordDef, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
@@ -63,7 +63,7 @@ export async function getRecord(
   assertUuid(projectId, "Project");
   assertUuid(id, def.label);
   const tx = ctx.tx ?? db;
-  await authorizeAny(tx, ctx.user, projectId, ["project.read"]);
+  await authorize(ctx.user, "project.read", projectId, tx);
   const [row] = (await tx
     .select()
     .from(def.table)
@@ -130,7 +130,7 @@ export async function listRecords(ctx: RecordContext, type: string, projectId: s
     throw invalidInput("Only placements can be filtered by state.", { state: "Only placements have a state" });
   }
   const tx = ctx.tx ?? db;
-  await authorizeAny(tx, ctx.user, projectId, ["project.read"]);
+  await authorize(ctx.user, "project.read", projectId, tx);
   const [project] = await tx.select({ timeZone: projects.timeZone }).from(projects).where(eq(projects.id, projectId));
   const conditions: SQL[] = [eq(def.table.projectId, projectId)];
   if (!q.includeDeleted) conditions.push(isNull(def.table.deletedAt));

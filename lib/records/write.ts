@@ -4,14 +4,16 @@
 // placement rules) → version → change sequence → write → audit entry.
 import { and, eq, isNull } from "drizzle-orm";
 import { z } from "zod";
-import { db, type Executor, type Transaction } from "@/db";
+import type { Executor, Transaction } from "@/db";
+import { transaction } from "@/db/transaction";
 import { projects } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput } from "@/lib/errors";
 import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
 import { derivedValues, newRowValues } from "./compute";
-import { authorizeAny, writeActions } from "./access";
+import { authorize } from "@/lib/auth/authorize";
+import { writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
 import { assertNotSigned, assertUuid, checkLinks, lockRecord } from "./guards";
@@ -42,7 +44,7 @@ export type UpdateOptions = {
 /** Runs `fn` in a transaction, or in a savepoint of ctx.tx; database errors become AppErrors. */
 export async function inTransaction<T>(ctx: RecordContext, def: RecordDef | undefined, fn: (tx: Transaction) => Promise<T>): Promise<T> {
   try {
-    return await (ctx.tx ?? db).transaction(fn);
+    return await transaction(fn, ctx.tx);
   } catch (error) {
     throw mapDbError(error, def);
   }
@@ -117,7 +119,7 @@ export async function createRecord(
   const values = parseOrThrow(def.create, input);
   const id = values.id as string;
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const [existing] = (await tx.select().from(def.table).where(eq(def.table.id, id)).for("update")) as RecordRow[];
     if (existing) {
       if (existing.projectId === projectId && samePayload(values, existing)) return { record: existing, created: false };
@@ -159,7 +161,7 @@ export async function updateRecord(
     throw invalidInput("Nothing to change: send the fields to change.", { patch: "Send at least one field to change" });
   }
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) {
       throw conflict(`This ${def.label.toLowerCase()} was deleted.`, { reason: "deleted", currentVersion: existing.version });
@@ -228,7 +230,7 @@ export async function deleteRecord(
   assertUuid(id, def.label);
   const { baseVersion: base } = parseOrThrow(deleteBodySchema, body);
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, writeActions(def.action));
+    await authorize(ctx.user, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) return existing;
     await assertNotSigned(tx, def, existing);

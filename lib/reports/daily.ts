@@ -6,7 +6,7 @@ import type { PDFImage } from "pdf-lib";
 import { z } from "zod";
 import { db } from "@/db";
 import { checklistItems, checklists, diaryEntries, photos, signOffs, users } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
 import { ROLE_LABELS } from "@/lib/auth/roles";

@@ -6,7 +6,7 @@ import { invalidInput } from "@/lib/errors";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "./columns";
 import { allReviewDiaries } from "./diaries";
 import { allReviewPlacements } from "./placements";
-import type { DiaryListQuery, DiaryReviewRow, PlacementListQuery, PlacementReviewRow } from "./query";
+import type { DiaryListQuery, DiaryReviewRow, PlacementListQuery, PlacementReviewRow } from "./query-schemas";
 
 export const EXPORT_LIMIT = 20_000;
 

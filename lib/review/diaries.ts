@@ -9,8 +9,9 @@
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
-import { readableProjects, uuidArray } from "./access";
-import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query";
+import { readableProjects } from "@/lib/projects/readable";
+import { uuidArray } from "./access";
+import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query-schemas";
 
 const SORT_SQL: Record<DiarySort, string> = {
   date: "day",

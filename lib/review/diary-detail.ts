@@ -10,7 +10,7 @@ import { isLocalDate } from "@/lib/time/zone";
 import { invalidInput, notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
 import { listReviewPlacements } from "./placements";
-import { placementListQuery } from "./query";
+import { placementListQuery } from "./query-schemas";
 
 export async function loadDiaryReview(user: SessionUser, projectId: string, date: string) {
   assertUuid(projectId, "Project");

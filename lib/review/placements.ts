@@ -9,8 +9,9 @@
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
-import { readableProjects, uuidArray } from "./access";
-import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query";
+import { readableProjects } from "@/lib/projects/readable";
+import { uuidArray } from "./access";
+import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query-schemas";
 
 // Whitelisted sort expressions over the columns of the filtered set (never user text in SQL).
 const SORT_SQL: Record<PlacementSort, string> = {

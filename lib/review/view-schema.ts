@@ -3,7 +3,7 @@
 import { z } from "zod";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "./columns";
-import { DIARY_SORTS, DIARY_STATES, PLACEMENT_SORTS, REVIEW_PAGE_SIZES } from "./query";
+import { DIARY_SORTS, DIARY_STATES, PLACEMENT_SORTS, REVIEW_PAGE_SIZES } from "./query-schemas";
 
 const keysOf = <T extends readonly { key: string }[]>(cols: T) => cols.map((c) => c.key) as [T[number]["key"], ...T[number]["key"][]];
 

@@ -6,11 +6,11 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, getTableColumns, inArray } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { amendments, signOffs, users } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
@@ -53,7 +53,7 @@ export async function signAmendment(user: SessionUser, projectId: string, placem
   assertUuid(placementId, "Placement");
   assertUuid(amendmentId, "Amendment");
   const body = parseOrThrow(signOffSchema, input);
-  const role = await authorizeAny(db, user, projectId, ["amendment.write"]);
+  const role = await authorize(user, "amendment.write", projectId);
   await checkSignerPassword(user, body.password, { projectId, recordType: "amendment", recordId: amendmentId });
   return inTransaction({ user }, undefined, async (tx) => {
     const [amendment] = await tx

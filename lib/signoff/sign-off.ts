@@ -5,12 +5,12 @@ import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db";
 import { amendments, auditEntries, placements, signOffs, users } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { signPlacement } from "@/lib/placements/sign";
-import { authorizeAny } from "@/lib/records/access";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
@@ -28,7 +28,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
   assertUuid(placementId, "Placement");
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
-  const role = await authorizeAny(db, user, projectId, ["placement.sign"]);
+  const role = await authorize(user, "placement.sign", projectId);
   await checkSignerPassword(user, body.password, { projectId, recordType: "placements", recordId: placementId });
   return inTransaction({ user }, undefined, async (tx) => {
     const snapshot = await placementSnapshot(tx, projectId, placementId);
@@ -48,7 +48,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
     }
     const contentHash = snapshotHash(snapshot);
     const signedAt = new Date();
-    const placement = await signPlacement({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
+    const placement = await markPlacementSigned({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
     const [row] = await tx
       .insert(signOffs)
       .values({
@@ -83,7 +83,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
 export async function verifyPlacementSignOff(user: SessionUser, projectId: string, placementId: string) {
   assertUuid(projectId, "Project");
   assertUuid(placementId, "Placement");
-  await authorizeAny(db, user, projectId, ["project.read"]);
+  await authorize(user, "project.read", projectId);
   const [signOff] = await db
     .select({ ...getTableColumns(signOffs), signerName: users.name })
     .from(signOffs)
@@ -105,7 +105,7 @@ export async function addAmendment(user: SessionUser, projectId: string, placeme
   assertUuid(placementId, "Placement");
   const body = parseOrThrow(amendmentSchema, input);
   return inTransaction({ user }, undefined, async (tx) => {
-    await authorizeAny(tx, user, projectId, ["amendment.write"]);
+    await authorize(user, "amendment.write", projectId, tx);
     const [placement] = await tx.select().from(placements).where(and(eq(placements.projectId, projectId), eq(placements.id, placementId)));
     if (!placement) throw notFound("Placement");
     if (placement.state !== "signed") {
@@ -143,7 +143,7 @@ export async function addAmendment(user: SessionUser, projectId: string, placeme
 export async function auditTrail(user: SessionUser, projectId: string, recordId: string) {
   assertUuid(projectId, "Project");
   assertUuid(recordId, "Record");
-  await authorizeAny(db, user, projectId, ["project.read"]);
+  await authorize(user, "project.read", projectId);
   return db
     .select({
       id: auditEntries.id,

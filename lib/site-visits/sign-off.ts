@@ -13,12 +13,12 @@ import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { conflicts, findings, photos, signOffs, siteVisits } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { checkSignerPassword } from "@/lib/signoff/password";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedVisitConflict } from "@/lib/records/db-errors";
 import { assertUuid, lockRecord } from "@/lib/records/guards";
@@ -76,7 +76,7 @@ export async function signOffVisit(user: SessionUser, projectId: string, visitId
   assertUuid(visitId, "Site visit");
   const body = parseOrThrow(signOffSchema, input);
   // Role first: a superintendent is told so before being asked about passwords.
-  const role = await authorizeAny(db, user, projectId, ["visit.sign"]);
+  const role = await authorize(user, "visit.sign", projectId);
   await checkSignerPassword(user, body.password, { projectId, recordType: "site-visits", recordId: visitId });
   const def = getRecordDef("site-visits");
   return inTransaction({ user }, def, async (tx) => {
@@ -152,7 +152,7 @@ export async function signOffVisit(user: SessionUser, projectId: string, visitId
 export async function verifyVisitSignOff(user: SessionUser, projectId: string, visitId: string) {
   assertUuid(projectId, "Project");
   assertUuid(visitId, "Site visit");
-  await authorizeAny(db, user, projectId, ["project.read"]);
+  await authorize(user, "project.read", projectId);
   const snapshot = await visitSnapshot(db, projectId, visitId);
   if (!snapshot.visit) throw notFound("Site visit");
   const [signOff] = await db

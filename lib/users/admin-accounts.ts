@@ -2,6 +2,7 @@
 import { eq, sql } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
+import { transaction } from "@/db/transaction";
 import { accountSettings, DEFAULT_IDLE_TIMEOUT_MINUTES, DEFAULT_OFFLINE_WINDOW_HOURS, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { authorizeAdmin } from "@/lib/auth/authorize";
@@ -20,7 +21,7 @@ export async function setUserDisabled(actor: SessionUser, userId: string, disabl
     throw new AppError("conflict", "You cannot disable your own account. Ask another administrator.");
   }
   if (!z.uuid().safeParse(userId).success) throw notFound("Person");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [before] = await tx.select().from(users).where(eq(users.id, userId)).for("update");
     if (!before) throw notFound("Person");
     const [after] = await tx
@@ -55,7 +56,7 @@ export async function readAccountSettings(): Promise<AccountSettings> {
 
 export async function updateAccountSettings(actor: SessionUser, input: AccountSettingsInput): Promise<AccountSettings> {
   authorizeAdmin(actor, "admin.users");
-  return db.transaction(async (tx) => {
+  return transaction(async (tx) => {
     const before = await readAccountSettings();
     await tx
       .insert(accountSettings)

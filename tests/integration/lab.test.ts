@@ -9,7 +9,7 @@ import { GET as setsRoute } from "@/app/api/projects/[projectId]/lab/sets/route"
 import { POST } from "@/app/api/projects/[projectId]/records/[type]/route";
 import { db } from "@/db";
 import { breaks, placements, specimenSets } from "@/db/schema";
-import { DEMO_IDS } from "@/db/seed";
+import { DEMO_IDS } from "@/scripts/seed/ids";
 import { cylinderStrengthMPa, evaluateAcceptance, inToMm, mpaToPsi, psiToMPa, strengthTest } from "@/lib/concrete";
 import { listLabQueue } from "@/lib/lab/queue";
 import { createRecord } from "@/lib/records/write";

@@ -10,7 +10,7 @@ import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { POST as pullRoute } from "@/app/api/sync/pull/route";
 import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { bucket, s3 } from "@/lib/photos/storage";
-import { signPlacement } from "@/lib/placements/sign";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { transitionPlacement } from "@/lib/placements/transition";
 import { addAmendment } from "@/lib/signoff/sign-off";
 import { createRecord, deleteRecord } from "@/lib/records/write";
@@ -227,7 +227,7 @@ describe("photos through sync", () => {
     for (const [role, to] of [["superintendent", "ready"], ["inspector", "cleared"], ["superintendent", "placing"], ["superintendent", "placed"]] as const) {
       await transitionPlacement({ user: team[role] }, s.project.id, p.id as string, { to, baseVersion: version++ });
     }
-    await signPlacement({ user: team.inspector }, s.project.id, p.id as string, { baseVersion: version });
+    await markPlacementSigned({ user: team.inspector }, s.project.id, p.id as string, { baseVersion: version });
 
     const file = jpeg();
     const late = randomUUID();

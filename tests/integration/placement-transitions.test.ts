@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { POST as transition } from "@/app/api/projects/[projectId]/placements/[id]/transition/route";
 import { db } from "@/db";
 import { auditEntries } from "@/db/schema";
-import { signPlacement } from "@/lib/placements/sign";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { callRoute, projectWithTeam } from "./helpers";
 import { makeRecord, type Team } from "./record-fixtures";
 
@@ -89,7 +89,7 @@ describe("placement transitions", () => {
     expect(stale.json.error.currentVersion).toBe(2);
   });
 
-  it("signing is the sign-off's job: the plain transition refuses it, signPlacement does it for the inspector", async () => {
+  it("signing is the sign-off's job: the plain transition refuses it, markPlacementSigned does it for the inspector", async () => {
     const p = await makeRecord("placements", s.project.id, team);
     let v = 1;
     for (const [role, to] of [["superintendent", "ready"], ["inspector", "cleared"], ["superintendent", "placing"], ["superintendent", "placed"]] as const) {
@@ -98,9 +98,9 @@ describe("placement transitions", () => {
     const viaRoute = await move(team.inspector, p.id, { to: "signed", baseVersion: v });
     expect(viaRoute.status).toBe(409);
     expect(viaRoute.json.error.message).toMatch(/sign-off/);
-    await expect(signPlacement({ user: team.superintendent }, s.project.id, p.id, { baseVersion: v })).rejects.toMatchObject({ code: "forbidden" });
-    await expect(signPlacement({ user: team.inspector }, s.project.id, p.id, { baseVersion: v - 1 })).rejects.toMatchObject({ code: "conflict" });
-    const signed = await signPlacement({ user: team.inspector }, s.project.id, p.id, { baseVersion: v });
+    await expect(markPlacementSigned({ user: team.superintendent }, s.project.id, p.id, { baseVersion: v })).rejects.toMatchObject({ code: "forbidden" });
+    await expect(markPlacementSigned({ user: team.inspector }, s.project.id, p.id, { baseVersion: v - 1 })).rejects.toMatchObject({ code: "conflict" });
+    const signed = await markPlacementSigned({ user: team.inspector }, s.project.id, p.id, { baseVersion: v });
     expect(signed).toMatchObject({ state: "signed", signedBy: team.inspector.id, version: v + 1 });
     const after = await move(team.superintendent, p.id, { to: "ready", baseVersion: v + 1 });
     expect(after.status).toBe(409);

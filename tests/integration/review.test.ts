@@ -14,7 +14,7 @@ import { attention } from "@/lib/checks";
 import { dayFindings, loadCheckDay, loadProject } from "@/lib/findings/load";
 import { refreshProject } from "@/lib/findings/store";
 import { PLACEMENT_COLUMNS } from "@/lib/review/columns";
-import type { PlacementReviewRow } from "@/lib/review/query";
+import type { PlacementReviewRow } from "@/lib/review/query-schemas";
 import { addMembership, callRoute, countRows, createProject, createUser, sessionCookie, type TestUser } from "./helpers";
 import { NextRequest } from "next/server";
 

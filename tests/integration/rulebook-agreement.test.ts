@@ -15,7 +15,7 @@ import { buildDigest, digestLinks } from "@/lib/digest/content";
 import { loadDigestDay } from "@/lib/digest/load";
 import { createRecord } from "@/lib/records/write";
 import { buildDailyReport } from "@/lib/reports/daily";
-import type { PlacementReviewRow } from "@/lib/review/query";
+import type { PlacementReviewRow } from "@/lib/review/query-schemas";
 import { addMembership, callRoute, createProject, createUser, type TestUser } from "./helpers";
 
 // A past day: readings and truck times in the future are refused by the record schemas.

@@ -5,7 +5,8 @@ import { sql } from "drizzle-orm";
 import { Client } from "pg";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { DEMO_USERS, seedDemo } from "@/db/seed";
+import { DEMO_USERS } from "@/scripts/seed/ids";
+import { seedDemo } from "@/scripts/seed/demo";
 
 async function tableCounts(): Promise<Record<string, number>> {
   const tables = await db.execute(sql`select tablename from pg_tables where schemaname = 'public' order by tablename`);

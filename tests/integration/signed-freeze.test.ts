@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { DELETE, PATCH } from "@/app/api/projects/[projectId]/records/[type]/[id]/route";
 import { POST } from "@/app/api/projects/[projectId]/records/[type]/route";
 import { db } from "@/db";
-import { signPlacement } from "@/lib/placements/sign";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { transitionPlacement } from "@/lib/placements/transition";
 import { SIGNED_MESSAGE } from "@/lib/records/db-errors";
 import type { RecordType } from "@/lib/records/registry";
@@ -47,7 +47,7 @@ describe("a signed placement and its records are frozen", () => {
     for (const [role, to] of [["superintendent", "ready"], ["inspector", "cleared"], ["superintendent", "placing"], ["superintendent", "placed"]] as const) {
       await transitionPlacement({ user: team[role] }, s.project.id, placement.id, { to, baseVersion: version++ });
     }
-    placement = await signPlacement({ user: team.inspector }, s.project.id, placement.id, { baseVersion: version });
+    placement = await markPlacementSigned({ user: team.inspector }, s.project.id, placement.id, { baseVersion: version });
   });
 
   it("update and delete through lib are 409 for the placement and every record under it", async () => {

@@ -5,7 +5,7 @@ import { db } from "@/db";
 import { auditEntries, conflicts, deliveries, placements, syncClients } from "@/db/schema";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { POST as pullRoute } from "@/app/api/sync/pull/route";
-import { signPlacement } from "@/lib/placements/sign";
+import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { transitionPlacement } from "@/lib/placements/transition";
 import { createRecord } from "@/lib/records/write";
 import { SYNC_SCHEMA_VERSION, type Mutation, type PullResponse } from "@/lib/sync/protocol";
@@ -188,7 +188,7 @@ describe("sync push", () => {
     const lateEdit: Mutation = { id: 1, name: "update", recordType: "deliveries", projectId: project.id, recordId: d.id as string, args: { patch: { ticketNumber: "T-LATE" } }, baseVersion: 1 };
 
     const [signed, pushed] = await Promise.allSettled([
-      signPlacement({ user: team.inspector }, project.id, p.id as string, { baseVersion: version }),
+      markPlacementSigned({ user: team.inspector }, project.id, p.id as string, { baseVersion: version }),
       push(team.superintendent, clientId, [lateEdit]),
     ]);
     expect(pushed.status).toBe("fulfilled");
@@ -215,7 +215,7 @@ describe("sync push", () => {
     await createRecord({ user: team.superintendent }, "placements", project.id, p2);
     const d2 = validBody("deliveries", p2.id as string);
     await createRecord({ user: team.superintendent }, "deliveries", project.id, d2);
-    await signPlacement({ user: team.inspector }, project.id, p2.id as string, { baseVersion: await toPlaced(team, project.id, p2.id as string) });
+    await markPlacementSigned({ user: team.inspector }, project.id, p2.id as string, { baseVersion: await toPlaced(team, project.id, p2.id as string) });
     const late = await push(team.superintendent, clientId, [{ ...lateEdit, id: 2, recordId: d2.id as string }]);
     expect(late.json.results[0]).toMatchObject({ result: "rejected", reason: "signed" });
     const [kept] = await db.select().from(conflicts).where(eq(conflicts.id, late.json.results[0].conflictId));

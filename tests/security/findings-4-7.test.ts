@@ -11,7 +11,7 @@ import { db } from "@/db";
 import { amendments, conflicts, placements } from "@/db/schema";
 import { safeCallbackPath } from "@/lib/auth/callback-url";
 import { placementsCsv } from "@/lib/review/csv";
-import type { PlacementReviewRow } from "@/lib/review/query";
+import type { PlacementReviewRow } from "@/lib/review/query-schemas";
 import { SYNC_SCHEMA_VERSION } from "@/lib/sync/protocol";
 import { callRoute, createUser } from "../integration/helpers";
 import { makeRecord } from "../integration/record-fixtures";

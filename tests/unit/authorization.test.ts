@@ -30,6 +30,8 @@ const TABLE: Record<Action, string> = {
   "amendment.write": "IO",
   "record.correct": "O",
   "digest.manage": "O",
+  "digest.read": "OW",
+  "digest.subscribe": "W",
   "report.export": "SIOW",
 };
 
@@ -52,9 +54,9 @@ describe("can(): every action for every role (default deny)", () => {
     });
   }
 
-  it("the owner changes nothing: only read and export", () => {
+  it("the owner changes nothing of the project: read, export and their own digest row", () => {
     const allowed = ACTIONS.filter((a) => can({ isAdmin: false }, a, "owner"));
-    expect(allowed).toEqual(["project.read", "report.export"]);
+    expect(allowed).toEqual(["project.read", "digest.read", "digest.subscribe", "report.export"]);
   });
 
   it("the admin flag manages users and projects, but reads no project's records without a membership", () => {
@@ -65,6 +67,9 @@ describe("can(): every action for every role (default deny)", () => {
     expect(can({ isAdmin: true }, "project.manage", null)).toBe(true);
     expect(can({ isAdmin: true }, "project.read", null)).toBe(false);
     expect(can({ isAdmin: true }, "placement.write", null)).toBe(false);
+    // Nor the digest: its history and recipients name people and addresses of the project.
+    expect(can({ isAdmin: true }, "digest.manage", null)).toBe(false);
+    expect(can({ isAdmin: true }, "digest.read", null)).toBe(false);
     // With a membership an admin has exactly that role's powers.
     expect(can({ isAdmin: true }, "placement.sign", "inspector")).toBe(true);
     expect(can({ isAdmin: true }, "placement.sign", "superintendent")).toBe(false);

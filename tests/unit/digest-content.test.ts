@@ -1,7 +1,7 @@
-// The digest builder on the demo scenario's days (db/seed-records-data.ts): exactly the day's
+// The digest builder on the demo scenario's days (scripts/seed/records-data.ts): exactly the day's
 // placements and warnings, in the project's units and time zone, each warning naming its rule.
 import { describe, expect, it } from "vitest";
-import { DEMO_IDS } from "@/db/seed";
+import { DEMO_IDS } from "@/scripts/seed/ids";
 import { buildDigest, digestLinks } from "@/lib/digest/content";
 import { demoDay } from "./digest-demo-day";
 
@@ -58,7 +58,7 @@ describe("Larkspur Commons, 2026-11-17: the hot, windy deck placement", () => {
     expect(message.text).toContain("Rejected: Concrete at 97 °F on arrival");
     expect(message.summary.specimens).toEqual([
       "Set LC-D2-A: 5 cylinders 4 × 8 in, cast 2:15 PM (Level 2 deck); tests at 7 and 28 days",
-      // The maturity calibration set of the same mix, broken at 1, 2, 3 and 7 days (db/seed-maturity-data.ts).
+      // The maturity calibration set of the same mix, broken at 1, 2, 3 and 7 days (scripts/seed/maturity-data.ts).
       "Set LC-D2-CAL: 8 cylinders 4 × 8 in, cast 2:20 PM (Level 2 deck); tests at 1, 2, 3 and 7 days",
     ]);
     expect(message.summary.breaks.map((b) => b.low)).toEqual([false]);

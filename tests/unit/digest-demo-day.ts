@@ -1,7 +1,8 @@
 // Builds the digest input for one demo day straight from the demo scenario's records (the seed's
 // source), with the same day rules as lib/digest/load.ts, so the builder is tested without a database.
-import { DEMO_PROJECTS, DEMO_USERS } from "@/db/seed";
-import { demoRecords, type DemoRecord } from "@/db/seed-records-data";
+import { DEMO_PROJECTS, DEMO_USERS } from "@/scripts/seed/ids";
+import type { DemoRecord } from "@/scripts/seed/ids";
+import { demoRecords } from "@/scripts/seed/records-data";
 import { toCheckInput } from "@/lib/checks";
 import { addDays, localDayRange } from "@/lib/time/zone";
 import type { DigestDay, DigestMix, DigestPlacement } from "@/lib/digest/types";

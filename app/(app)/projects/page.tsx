@@ -3,13 +3,13 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
-import { listUserProjects } from "@/lib/users/queries";
+import { readableProjects } from "@/lib/projects/readable";
 
 export const metadata: Metadata = { title: "Projects" };
 
 export default async function ProjectsPage() {
   const user = await requireUser();
-  const projects = await listUserProjects(user.id);
+  const projects = await readableProjects(user);
   return (
     <>
       <PageHeader title="My projects" subtitle="The projects you belong to and your role on each." />

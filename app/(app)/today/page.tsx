@@ -3,7 +3,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { requireUser } from "@/lib/auth/session";
-import { listUserProjects } from "@/lib/users/queries";
+import { readableProjects } from "@/lib/projects/readable";
 import type { SessionUser } from "@/lib/auth/options";
 import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
@@ -28,7 +28,7 @@ async function todayAndTomorrow(user: SessionUser, projectId: string, timeZone: 
 export default async function TodayPage() {
   const user = await requireUser();
   const projects = await Promise.all(
-    (await listUserProjects(user.id)).map(async (p) => ({ ...p, placements: await todayAndTomorrow(user, p.id, p.timeZone) })),
+    (await readableProjects(user)).map(async (p) => ({ ...p, placements: await todayAndTomorrow(user, p.id, p.timeZone) })),
   );
   const today = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric" }).format(new Date());
 

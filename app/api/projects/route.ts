@@ -1,5 +1,5 @@
 import { apiRoute } from "@/lib/api/handler";
-import { listUserProjects } from "@/lib/users/queries";
+import { readableProjects } from "@/lib/projects/readable";
 
-/** The projects the signed-in user belongs to, with their role on each. */
-export const GET = apiRoute({}, ({ user }) => listUserProjects(user.id));
+/** The projects the signed-in user may read, with their role on each. */
+export const GET = apiRoute({}, ({ user }) => readableProjects(user));

@@ -28,7 +28,7 @@ export function isLocalWriteError(error: unknown): error is LocalWriteError {
   return error instanceof LocalWriteError;
 }
 
-/** Field messages keyed by dotted path, as lib/api/handler.ts zodFields does on the server. */
+/** Field messages keyed by dotted path, as lib/validation.ts zodFields does on the server. */
 export function fieldMessages(error: z.ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {

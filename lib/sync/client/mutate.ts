@@ -18,7 +18,7 @@ import { z } from "zod";
 import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { describeAllowed, describeForbidden, findTransition, rolesFor, type PlacementState } from "@/lib/placements/workflow";
-import { assertVisitNotSigned } from "./site-visits";
+import { assertVisitNotSigned } from "./visit-freeze";
 import { getMeta, setMeta, type LocalRecord, type OutboxEntry, type SyncDb } from "./db";
 import { LocalWriteError, validationError } from "./errors";
 import { isLocalRecordType, localDef, type RecordType } from "./record-types";

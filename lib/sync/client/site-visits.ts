@@ -5,14 +5,7 @@ import type { SyncDb } from "./db";
 import { LocalWriteError, validationError } from "./errors";
 import { appendEntry, baseVersionFor, loadLive, writeTx, type WriteResult } from "./mutate";
 import { rebuildRecord, entriesFor, toWire } from "./replay";
-
-const SIGNED = "This visit report is signed, so it and its findings cannot be edited; add an amendment instead.";
-
-/** Refuses edits of a signed report and of its findings' observations (the lifecycle goes on). */
-export async function assertVisitNotSigned(db: SyncDb, type: LifecycleType, values: Record<string, unknown>) {
-  const visit = type === "site-visits" ? values : typeof values.siteVisitId === "string" ? await db.records("site-visits").get(values.siteVisitId) : undefined;
-  if (visit?.state === "signed") throw new LocalWriteError("signed", SIGNED);
-}
+import { SIGNED_VISIT_LOCAL } from "./visit-freeze";
 
 /**
  * Moves a visit report (submit, back to draft) or a finding (answer, close, reopen) through its
@@ -30,7 +23,7 @@ export async function transitionSiteRecordLocal(
   const args = toWire(parsed.data);
   const result = await writeTx(db, async () => {
     const row = await loadLive(db, type, id);
-    if (type === "site-visits" && row.state === "signed") throw new LocalWriteError("signed", SIGNED);
+    if (type === "site-visits" && row.state === "signed") throw new LocalWriteError("signed", SIGNED_VISIT_LOCAL);
     const project = await db.projects.get(row.projectId);
     const check = checkMove(type, String(row.state), args, project?.role ?? null);
     if (!check.ok) {

@@ -4,13 +4,14 @@ import { and, eq, isNull } from "drizzle-orm";
 import { z } from "zod";
 import type { Transaction } from "@/db";
 import { conflicts } from "@/db/schema";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { AppError } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { transitionPlacement } from "@/lib/placements/transition";
-import { authorizeAny, writeActions } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
+import { writeActions } from "@/lib/records/access";
 import { getRecord } from "@/lib/records/read";
 import { getRecordDef } from "@/lib/records/registry";
 import type { RecordContext, RecordRow } from "@/lib/records/types";
@@ -64,7 +65,7 @@ async function resolveConflict(ctx: RecordContext, m: Mutation): Promise<RecordR
   // Whoever sent the conflicting change answers it; anyone else needs the right to write this kind
   // of record, so a reader cannot close it and a non-writer cannot discard the writer's values.
   if (open.createdBy !== ctx.user.id) {
-    await authorizeAny(tx, ctx.user, m.projectId, writeActions(getRecordDef(m.recordType).action));
+    await authorize(ctx.user, writeActions(getRecordDef(m.recordType).action), m.projectId, tx);
   }
   const row =
     Object.keys(patch).length > 0

@@ -5,9 +5,10 @@
 import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
 import { decodeRow } from "@/db/json-rows";
-import { conflicts, memberships, projectChangeCounters, projects, syncClients } from "@/db/schema";
+import { conflicts, projectChangeCounters, projects, syncClients } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { forbidden } from "@/lib/errors";
+import { readableProjects } from "@/lib/projects/readable";
 import { getRecordDef, RECORD_TYPES, type RecordType } from "@/lib/records/registry";
 import type { RecordRow } from "@/lib/records/types";
 import {
@@ -22,17 +23,19 @@ import {
   type SyncedRecord,
 } from "../protocol";
 
-/** The user's projects with each one's last change number (0 before its first write). */
-async function userProjects(tx: Transaction, userId: string) {
+/** The projects the user may read (lib/projects/readable.ts) with each one's last change number (0 before its first write). */
+async function userProjects(tx: Transaction, user: SessionUser) {
+  const readable = await readableProjects(user, undefined, tx);
+  if (readable.length === 0) return [];
+  const roleById = new Map(readable.map((p) => [p.id, p.role]));
   const rows = await tx
-    .select({ project: projects, role: memberships.role, lastSeq: projectChangeCounters.lastSeq })
-    .from(memberships)
-    .innerJoin(projects, eq(projects.id, memberships.projectId))
-    .leftJoin(projectChangeCounters, eq(projectChangeCounters.projectId, memberships.projectId))
-    .where(eq(memberships.userId, userId))
+    .select({ project: projects, lastSeq: projectChangeCounters.lastSeq })
+    .from(projects)
+    .leftJoin(projectChangeCounters, eq(projectChangeCounters.projectId, projects.id))
+    .where(inArray(projects.id, [...roleById.keys()]))
     .orderBy(asc(projects.name));
-  return rows.map(({ project, role, lastSeq }) => ({
-    project: { ...project, role, createdAt: undefined, updatedAt: undefined } as SyncProject,
+  return rows.map(({ project, lastSeq }) => ({
+    project: { ...project, role: roleById.get(project.id)!, createdAt: undefined, updatedAt: undefined } as SyncProject,
     lastSeq: Number(lastSeq ?? 0),
   }));
 }
@@ -72,7 +75,7 @@ export async function pullChanges(user: SessionUser, request: PullRequest): Prom
       if (client && client.userId !== user.id) {
         throw forbidden("This device id belongs to another user. Sign out and in again on this device.");
       }
-      const counted = await userProjects(tx, user.id);
+      const counted = await userProjects(tx, user);
       const visible = counted.map((c) => c.project);
       const ids = new Set(visible.map((p) => p.id));
       // A first pull, another schema, or a project the user has lost: start again from a snapshot.

@@ -2,8 +2,8 @@ import { describe, it, expect } from "vitest";
 
 import { buildMaturityView, estimateText, targetText } from "@/lib/maturity/view";
 import { psiToMPa } from "@/lib/concrete/units";
-import { DEMO_IDS } from "@/db/seed";
-import { demoRecords } from "@/db/seed-records-data";
+import { DEMO_IDS } from "@/scripts/seed/ids";
+import { demoRecords } from "@/scripts/seed/records-data";
 
 // The demo's Level 2 deck must show what the feature is for: a calibrated mix, an estimate and a target.
 describe("demo: Larkspur Commons, Level 2 deck", () => {

@@ -1,5 +1,5 @@
 import { apiRoute } from "@/lib/api/handler";
-import { queryObject } from "@/lib/records/request";
+import { queryObject } from "@/lib/api/request";
 import { reviewPlacements } from "@/lib/review/list";
 
 // ?projects=&from=&to=&state=&hasWarnings=&sort=&dir=&page=&pageSize=&format=json|csv&columns=

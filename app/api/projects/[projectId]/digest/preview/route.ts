@@ -1,4 +1,4 @@
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { projectRoute } from "@/lib/api/project-route";
 import { digestDateSchema, previewDigest } from "@/lib/digest/access";
 

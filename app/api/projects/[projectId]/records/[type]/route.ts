@@ -2,7 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { projectRoute } from "@/lib/api/project-route";
 import { listRecords } from "@/lib/records/read";
-import { queryObject, requestContext } from "@/lib/records/request";
+import { queryObject, requestContext } from "@/lib/api/request";
 import { createRecord } from "@/lib/records/write";
 
 type Params = { projectId: string; type: string };

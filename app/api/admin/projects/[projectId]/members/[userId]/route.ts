@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { apiRoute, parseOrThrow } from "@/lib/api/handler";
+import { apiRoute } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { changeMemberRole, removeMember } from "@/lib/projects/admin";
 import { changeRoleSchema } from "@/lib/projects/schemas";
 

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { projectRoute } from "@/lib/api/project-route";
 import { transitionPlacement } from "@/lib/placements/transition";
-import { requestContext } from "@/lib/records/request";
+import { requestContext } from "@/lib/api/request";
 
 type Params = { projectId: string; id: string };
 

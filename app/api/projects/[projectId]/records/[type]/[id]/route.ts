@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { projectRoute } from "@/lib/api/project-route";
 import { getRecord } from "@/lib/records/read";
-import { queryObject, requestContext } from "@/lib/records/request";
+import { queryObject, requestContext } from "@/lib/api/request";
 import { deleteRecord, updateRecord } from "@/lib/records/write";
 
 type Params = { projectId: string; type: string; id: string };

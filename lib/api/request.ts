@@ -1,6 +1,6 @@
 import type { NextRequest } from "next/server";
 import type { SessionUser } from "@/lib/auth/options";
-import type { RecordContext } from "./types";
+import type { RecordContext } from "@/lib/records/types";
 
 /** The device a request comes from (the sync client id, when the app sends it), for the audit log. */
 export function requestContext(req: NextRequest, user: SessionUser): RecordContext {

@@ -1,15 +1,16 @@
-// Seeds a few weeks of the demo scenario's records (db/seed-records-data.ts) through the same
+// Seeds a few weeks of the demo scenario's records (scripts/seed/records-data.ts) through the same
 // rules as the app: every row passes its record schema, computed fields come from lib/concrete,
 // and every insert or sign-off takes the project's next change number. Idempotent: fixed ids, and
 // rows that exist are left alone (they may have been edited since, or frozen by a sign-off).
 import { and, eq, inArray } from "drizzle-orm";
-import { parseOrThrow } from "@/lib/api/handler";
+import { parseOrThrow } from "@/lib/validation";
 import { refreshProject } from "@/lib/findings/store";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { getRecordDef, type RecordType } from "@/lib/records/registry";
-import type { Database, Transaction } from "./index";
-import { placements, projects } from "./schema";
-import { demoRecords, type DemoRecord } from "./seed-records-data";
+import type { Database, Transaction } from "@/db";
+import { placements, projects } from "@/db/schema";
+import type { DemoRecord } from "./ids";
+import { demoRecords } from "./records-data";
 
 async function insertMissing(tx: Transaction, type: RecordType, rows: DemoRecord[]): Promise<void> {
   if (rows.length === 0) return;

@@ -3,7 +3,7 @@
 // Hollow Materials Lab. Night two has a 3-hour hole in the edge logger's record (battery swap).
 import { inToMm, psiToMPa } from "@/lib/concrete/units";
 import type { RecordType } from "@/lib/records/registry";
-import { chicago, demoId, type DemoRecord } from "./seed-records-data";
+import { chicago, demoId, type DemoRecord } from "./ids";
 
 type Ids = { project: string; deck: string; delivery: string; sam: string; ines: string; olu: string };
 

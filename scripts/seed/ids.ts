@@ -1,11 +1,7 @@
-// The invented demo scenario (see the product brief): Kestrel & Vine Constructors build
-// Larkspur Commons and the Millrace Pump House. Idempotent: running it twice changes nothing.
-import { hashPassword } from "@/lib/auth/password";
+// The demo scenario's fixed ids, people and projects (invented; PRODUCT.md "Demo scenario"), and
+// the helpers its records are written with. Data only: the seed, the scripts and the tests read it.
 import { psiToMPa } from "@/lib/concrete/units";
-import type { ProjectRole } from "@/lib/auth/roles";
-import type { Database } from "./index";
-import { memberships, projects, users } from "./schema";
-import { seedRecords } from "./seed-records";
+import { wallClockInstants } from "@/lib/time/zone";
 
 export const DEMO_PASSWORD = "placewright-demo";
 
@@ -54,31 +50,26 @@ export const DEMO_PROJECTS = [
   },
 ];
 
-const MEMBERSHIPS: { user: keyof typeof DEMO_IDS.users; project: keyof typeof DEMO_IDS.projects; role: ProjectRole }[] = [
-  { user: "sam", project: "larkspur", role: "superintendent" },
-  { user: "sam", project: "millrace", role: "superintendent" },
-  { user: "ines", project: "larkspur", role: "inspector" },
-  { user: "ines", project: "millrace", role: "inspector" },
-  { user: "olu", project: "larkspur", role: "office" },
-  { user: "olu", project: "millrace", role: "office" },
-  { user: "oona", project: "larkspur", role: "owner" },
-];
+export type DemoRecord = {
+  projectId: string;
+  by: string;
+  recordedAt: Date;
+  /** The record's create input (the same schema the app validates). */
+  values: Record<string, unknown>;
+  /** Columns outside the create schema (state, hold reason, diary submission). */
+  extra?: Record<string, unknown>;
+  signedAt?: Date;
+  signedBy?: string;
+};
 
-export async function seedFoundation(db: Database): Promise<void> {
-  const passwordHash = await hashPassword(DEMO_PASSWORD);
-  await db.transaction(async (tx) => {
-    // Existing rows are left alone (a demo user may have changed their password).
-    await tx.insert(users).values(DEMO_USERS.map((u) => ({ ...u, passwordHash }))).onConflictDoNothing();
-    await tx.insert(projects).values(DEMO_PROJECTS).onConflictDoNothing();
-    await tx
-      .insert(memberships)
-      .values(MEMBERSHIPS.map((m) => ({ userId: DEMO_IDS.users[m.user], projectId: DEMO_IDS.projects[m.project], role: m.role })))
-      .onConflictDoNothing();
-  });
-}
+/** Fixed ids: 5eed0000-0000-4000-8000-<n in hex>. */
+export const demoId = (n: number) => `5eed0000-0000-4000-8000-${n.toString(16).padStart(12, "0")}`;
 
-/** Every part of the demo scenario, in dependency order. */
-export async function seedDemo(db: Database): Promise<void> {
-  await seedFoundation(db);
-  await seedRecords(db);
+/** A wall-clock time on the site (America/Chicago) as an instant (the first, where clocks go back). */
+export function chicago(day: string, time: string): Date {
+  const [year, month, date] = day.split("-").map(Number);
+  const [hour, minute] = time.split(":").map(Number);
+  const { instants } = wallClockInstants({ year, month, day: date, hour, minute, second: 0 }, "America/Chicago");
+  if (instants.length === 0) throw new RangeError(`${day} ${time} does not exist in Chicago (clocks went forward)`);
+  return new Date(instants[0]);
 }

@@ -4,34 +4,9 @@
 // high evaporation rate, a cold night under blankets, a late truck with water added at the chute,
 // a slump out of tolerance, a rejected load, a held placement and a low 28-day strength test.
 import { fToC, galToL, inToMm, lbFt3ToKgM3, mphToKmh, psiToMPa, yd3ToM3 } from "@/lib/concrete/units";
-import { wallClockInstants } from "@/lib/time/zone";
 import type { RecordType } from "@/lib/records/registry";
-import { DEMO_IDS } from "./seed";
-import { maturityDemoRecords } from "./seed-maturity-data";
-
-export type DemoRecord = {
-  projectId: string;
-  by: string;
-  recordedAt: Date;
-  /** The record's create input (the same schema the app validates). */
-  values: Record<string, unknown>;
-  /** Columns outside the create schema (state, hold reason, diary submission). */
-  extra?: Record<string, unknown>;
-  signedAt?: Date;
-  signedBy?: string;
-};
-
-/** Fixed ids: 5eed0000-0000-4000-8000-<n in hex>. */
-export const demoId = (n: number) => `5eed0000-0000-4000-8000-${n.toString(16).padStart(12, "0")}`;
-
-/** A wall-clock time on the site (America/Chicago) as an instant (the first, where clocks go back). */
-export function chicago(day: string, time: string): Date {
-  const [year, month, date] = day.split("-").map(Number);
-  const [hour, minute] = time.split(":").map(Number);
-  const { instants } = wallClockInstants({ year, month, day: date, hour, minute, second: 0 }, "America/Chicago");
-  if (instants.length === 0) throw new RangeError(`${day} ${time} does not exist in Chicago (clocks went forward)`);
-  return new Date(instants[0]);
-}
+import { chicago, DEMO_IDS, demoId, type DemoRecord } from "./ids";
+import { maturityDemoRecords } from "./maturity-data";
 
 const hoursBefore = (date: Date, hours: number) => new Date(date.getTime() - hours * 3_600_000);
 const waterPerYd3 = (gal: number) => galToL(gal) / yd3ToM3(1);
@@ -39,8 +14,7 @@ const areaMm2 = (diameterMm: number) => (Math.PI * diameterMm * diameterMm) / 4;
 const round = (value: number, digits: number) => Math.round(value * 10 ** digits) / 10 ** digits;
 
 /**
- * The scenario's records in dependency order (parents before their records). Built on call, not
- * at import: db/seed.ts imports this module and its ids are needed here.
+ * The scenario's records in dependency order (parents before their records), built on call.
  */
 export function demoRecords(): [RecordType, DemoRecord[]][] {
   const L = DEMO_IDS.projects.larkspur;

@@ -1,7 +1,8 @@
-// The state change at the heart of the sign-off. The sign-off flow of a later issue wraps it (typed
-// name, drawn signature, re-entered password, sign_offs row) in the same transaction via ctx.tx.
+// The state change at the heart of the sign-off (placed → signed). The sign-off itself
+// (lib/signoff/sign-off.ts signOffPlacement: typed name, drawn signature, re-entered password,
+// sign_offs row) calls it in the same transaction via ctx.tx.
 import { conflict } from "@/lib/errors";
-import { authorizeAny } from "@/lib/records/access";
+import { authorize } from "@/lib/auth/authorize";
 import { signedConflict } from "@/lib/records/db-errors";
 import { assertUuid, lockRecord } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
@@ -14,7 +15,7 @@ import { describeAllowed, type PlacementState } from "./workflow";
  * Signs a placed placement (inspector, "placement.sign"), only against the version the signer saw
  * (SYNC.md "Sign-off"). From then on the database refuses changes to it and its records.
  */
-export async function signPlacement(
+export async function markPlacementSigned(
   ctx: RecordContext,
   projectId: string,
   id: string,
@@ -24,7 +25,7 @@ export async function signPlacement(
   assertUuid(projectId, "Project");
   assertUuid(id, def.label);
   return inTransaction(ctx, def, async (tx) => {
-    await authorizeAny(tx, ctx.user, projectId, ["placement.sign"]);
+    await authorize(ctx.user, "placement.sign", projectId, tx);
     const placement = await lockRecord(tx, def, projectId, id);
     if (placement.deletedAt) throw conflict("This placement was deleted.", { reason: "deleted" });
     if (placement.state === "signed") throw signedConflict();
