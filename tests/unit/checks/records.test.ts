@@ -108,6 +108,7 @@ describe("toCheckInput: every record type, tombstones left out", () => {
         waterAddedL: null,
         waterFirstAt: null,
         waterLastAt: null,
+        mixCode: null,
         status: "rejected",
       },
     ]);
