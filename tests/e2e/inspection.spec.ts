@@ -126,6 +126,14 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
 
   // Ines signs: the summary, a wrong password first (401, nothing signed), then the real one.
   await ines.waitForState(id, "Placed");
+  // One readiness checklist on the page (not again in the weather section), folded now that it is finished.
+  await expect(ines.page.getByTestId("readiness-check")).toHaveCount(1);
+  await expect(ines.page.getByTestId("checklist-readiness")).toHaveCount(0);
+  await expect(ines.page.getByTestId("readiness-check")).toHaveAttribute("data-folded", "yes");
+  await expect(ines.page.getByTestId("readiness-check-toggle")).toContainText("10 of 10 answered");
+  await ines.page.getByTestId("readiness-check-toggle").click();
+  await expect(ines.page.getByTestId("readiness-item")).toHaveCount(10);
+  await expect(ines.item("cover")).toBeVisible();
   const dialog = ines.page.getByTestId("sign-off-dialog");
   // Her device pulls the corrected ticket: the trucks line carries the rulebook's mark, not a tick.
   await expect(async () => {

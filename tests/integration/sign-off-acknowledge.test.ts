@@ -27,7 +27,7 @@ beforeAll(async () => {
 async function lateTruckNoCylinders() {
   const mix = validBody("mix-designs");
   await createRecord({ user: s.team.office }, "mix-designs", s.project.id, mix);
-  const p = { ...validBody("placements"), mixId: mix.id };
+  const p: Record<string, unknown> = { ...validBody("placements"), mixId: mix.id };
   await createRecord({ user: s.team.superintendent }, "placements", s.project.id, p);
   const d = validBody("deliveries", p.id as string);
   const batched = new Date(d.batchedAt as string).getTime();
@@ -73,7 +73,7 @@ describe("acknowledging the rulebook's findings at sign-off", () => {
   });
 
   it("a placement the rulebook says nothing about signs with no acknowledgement", async () => {
-    const p = { ...validBody("placements") };
+    const p = validBody("placements");
     await createRecord({ user: s.team.superintendent }, "placements", s.project.id, p);
     let v = 1;
     for (const [to, who] of [["ready", "superintendent"], ["cleared", "inspector"], ["placing", "superintendent"], ["placed", "superintendent"]] as const) {
