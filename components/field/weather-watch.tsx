@@ -95,7 +95,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
         {...register("concreteTemp")}
       />
       <fieldset>
-        <legend className="text-sm font-semibold text-ink-800">Sun</legend>
+        <legend className="text-sm font-semibold text-ink-800">Sun on the work</legend>
         <div className="mt-1 grid grid-cols-3 gap-2">
           {SUN_EXPOSURES.map((s) => (
             <label key={s} className="flex min-h-touch items-center justify-center gap-1 rounded-lg border border-ink-300 px-2 font-semibold has-[:checked]:border-lichen-700 has-[:checked]:bg-lichen-50">
