@@ -158,6 +158,9 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
   await bothSizes(ines, "sign-off-dialog", DESKTOP);
   await ines.drawSignature();
   await ines.shoot("sign-off-dialog-signed-desktop");
+  // The full-page shot resizes the window; with the findings listed the body's scroll bar comes and
+  // goes, the pad's width changes and it clears (as on a phone turned sideways): sign again.
+  if ((await dialog.getByTestId("sign-off-pad").getAttribute("data-empty")) === "yes") await ines.drawSignature();
   // Password, name and signature are there; one finding still unacknowledged keeps Sign disabled.
   await items.nth(0).getByTestId("acknowledge-check").check();
   await expect(dialog.getByTestId("acknowledge-remaining")).toContainText("1 more finding");
