@@ -31,7 +31,7 @@ export type DigestSummary = {
   warnings: (Finding & { context: string })[];
   /** Holds in effect, open findings of site visits, the diary's safety notes. */
   site: SiteStatus;
-  /** Nothing at all was recorded for the day, and nothing stands open on the site. */
+  /** Nothing at all was recorded for the day (what stands open on the site does not count). */
   isEmpty: boolean;
 };
 
@@ -180,6 +180,6 @@ export function summarizeDay(day: DigestDay): DigestSummary {
     site,
     isEmpty:
       day.placements.length + day.deliveries.length + day.fieldTests.length + day.weather.length + day.specimenSets.length +
-        day.breaks.length + day.photos.length + site.holds.length + site.openFindings.length === 0 && day.diary === null,
+        day.breaks.length + day.photos.length === 0 && day.diary === null,
   };
 }
