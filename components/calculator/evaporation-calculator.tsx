@@ -8,6 +8,7 @@ import type { UnitSystem } from "@/lib/concrete";
 import { EvaporationGuidance } from "./evaporation-guidance";
 import {
   DEFAULT_DRAFTS,
+  isExample,
   FIELD_LABELS,
   FIELD_NAMES,
   evaluate,
@@ -104,6 +105,11 @@ export function EvaporationCalculator() {
           </div>
         </fieldset>
 
+        {isExample(draft, unitSystem) ? (
+          <p className="rounded-lg border-2 border-ink-300 bg-ink-50 p-3 text-base text-ink-900" data-testid="evap-example-note">
+            <strong>Example readings</strong> of a hot, windy afternoon, to show how the rate is read. Type your own site&apos;s readings over them.
+          </p>
+        ) : null}
         <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-1">
           {FIELD_NAMES.map((field) => (
             <MeasureField

@@ -54,6 +54,9 @@ function roundForInput(value: number): string {
   return String(Object.is(rounded, -0) ? 0 : rounded);
 }
 
+/** True while every field still holds the worked example: the screen says the readings are an example. */
+export const isExample = (draft: Draft, unitSystem: UnitSystem): boolean => FIELD_NAMES.every((f) => draft[f] === DEFAULT_DRAFTS[unitSystem][f]);
+
 /** The same conditions in the other unit system; the untouched example maps to its own round numbers. */
 export function convertDraft(draft: Draft, from: UnitSystem, to: UnitSystem): Draft {
   if (from === to) return draft;

@@ -24,6 +24,8 @@ export function DigestPreview({ projectId, today }: { projectId: string; today: 
   const [date, setDate] = useState(today);
   const [preview, setPreview] = useState<Preview | null>(null);
   const [busy, setBusy] = useState(false);
+  // "Send now" e-mails every recipient at once and cannot be taken back: it asks first.
+  const [confirming, setConfirming] = useState(false);
   const [message, setMessage] = useState<{ tone: "success" | "danger"; text: string } | null>(null);
 
   async function load() {
@@ -37,6 +39,7 @@ export function DigestPreview({ projectId, today }: { projectId: string; today: 
 
   async function send() {
     if (!preview) return;
+    setConfirming(false);
     setBusy(true);
     setMessage(null);
     const result = await callApi<SendReport>(`${base}/send`, { body: { date: preview.date } });
@@ -58,10 +61,23 @@ export function DigestPreview({ projectId, today }: { projectId: string; today: 
       >
         <Field label="Day" type="date" value={date} onChange={(e) => { setDate(e.target.value); setPreview(null); }} required className="w-52" data-testid="digest-date" />
         <Button type="submit" variant="secondary" disabled={busy || !date} data-testid="digest-preview-button">Preview</Button>
-        <Button onClick={send} disabled={busy || !preview} data-testid="digest-send-now" title={preview ? undefined : "Preview the day first"}>
+        <Button onClick={() => setConfirming(true)} disabled={busy || !preview || confirming} data-testid="digest-send-now" title={preview ? undefined : "Preview the day first"}>
           Send now
         </Button>
       </form>
+      {confirming && preview ? (
+        <div role="alertdialog" aria-labelledby="digest-confirm-text" className="flex flex-wrap items-center gap-3 rounded-lg border-2 border-caution-600 bg-caution-50 p-3" data-testid="digest-send-confirm">
+          <p id="digest-confirm-text" className="text-base font-semibold text-caution-800">
+            Send the digest of {preview.date} now to everyone on the list who has not had it? An e-mail cannot be taken back.
+          </p>
+          <Button onClick={send} disabled={busy} data-testid="digest-send-confirm-yes">
+            Yes, send it
+          </Button>
+          <Button variant="secondary" onClick={() => setConfirming(false)} data-testid="digest-send-confirm-no">
+            Cancel
+          </Button>
+        </div>
+      ) : null}
       {message ? <Notice tone={message.tone} title={message.text} testId="digest-send-result" /> : null}
       {preview ? (
         <div className="flex flex-col gap-2">

@@ -167,17 +167,7 @@ export function CautionBadge({ children, testId }: { children: React.ReactNode; 
   );
 }
 
-export function Section({ title, children, testId, actions }: { title: string; children: React.ReactNode; testId?: string; actions?: React.ReactNode }) {
-  return (
-    <section className="card p-4" data-testid={testId} aria-label={title}>
-      <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
-        <h2 className="text-xl font-bold text-ink-950">{title}</h2>
-        {actions}
-      </div>
-      {children}
-    </section>
-  );
-}
+export { Section } from "./section";
 
 /** A datetime or time input with a big "Now" button beside it. */
 export function NowInput({

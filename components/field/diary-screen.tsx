@@ -187,7 +187,7 @@ export function DiaryScreen() {
     const temps = obs.map((o) => num(o.airTempC)).filter((t): t is number => t !== undefined);
     if (temps.length === 0) return "";
     const units = unitSystemOf(project);
-    return `Air ${formatTemperature(Math.min(...temps), units)} to ${formatTemperature(Math.max(...temps), units)}; ${obs.length} observations`;
+    return `Air ${formatTemperature(Math.min(...temps), units)} to ${formatTemperature(Math.max(...temps), units)}; ${obs.length} ${obs.length === 1 ? "observation" : "observations"}`;
   }, [db, project?.id, date]);
 
   if (projects === undefined || entry === undefined) return <p className="text-muted">Reading this device…</p>;

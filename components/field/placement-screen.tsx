@@ -13,6 +13,7 @@ import { formatLength, formatVolume } from "@/lib/concrete";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { allowedTransitions, describeAllowed } from "@/lib/placements/workflow";
 import { PLACEMENT_MOVE_WORDS } from "@/lib/ui/vocabulary";
+import { elementTypeLabel } from "@/lib/ui/vocabulary";
 import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
@@ -165,7 +166,7 @@ export function PlacementScreen() {
           <dt className="text-sm text-muted">Location</dt>
           <dd className="font-semibold">{[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "—"}</dd>
           <dt className="text-sm text-muted">Element type</dt>
-          <dd className="font-semibold">{str(placement.elementType).replace(/-/g, " ")}</dd>
+          <dd className="font-semibold">{elementTypeLabel(placement.elementType)}</dd>
           <dt className="text-sm text-muted">Least dimension</dt>
           <dd className="font-semibold">{least !== undefined ? formatLength(least, units) : "—"}</dd>
           <dt className="text-sm text-muted">Planned volume</dt>

@@ -7,6 +7,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field } from "@/components/ui/field";
 import { ELEMENT_TYPES } from "@/lib/records/enums";
+import { ELEMENT_TYPE_LABELS } from "@/lib/ui/vocabulary";
 import { createLocal, listByProject, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
@@ -90,7 +91,7 @@ export function PlanPlacementForm({
           <select data-testid="plan-element-type" className="min-h-touch rounded-lg border border-ink-300 bg-white px-3 text-base font-normal" {...register("elementType")}>
             {ELEMENT_TYPES.map((t) => (
               <option key={t} value={t}>
-                {t.replace(/-/g, " ")}
+                {ELEMENT_TYPE_LABELS[t]}
               </option>
             ))}
           </select>

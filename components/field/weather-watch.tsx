@@ -17,7 +17,7 @@ import { Notice } from "@/components/ui/notice";
 import { toCheckMix, toCheckProject, type Finding } from "@/lib/checks";
 import { evaporationLimit } from "@/lib/checks/weather";
 import { formatSpeed, formatTemperature, type UnitSystem } from "@/lib/concrete";
-import { SUN_EXPOSURES } from "@/lib/records/enums";
+import { CHECKLIST_KINDS, SUN_EXPOSURES } from "@/lib/records/enums";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
@@ -31,6 +31,7 @@ const DayChartPlot = dynamic(() => import("./day-chart-plot"), { ssr: false });
 
 type Values = { observedAt: string; airTemp: string; rh: string; wind: string; concreteTemp: string; sun: string };
 
+const WEATHER_KINDS = new Set<string>(CHECKLIST_KINDS.filter((k) => k !== "readiness"));
 const finite = (x: number | null): x is number => x !== null && Number.isFinite(x);
 
 /** The rulebook's verdict on one reading: the evaporation finding first, then hot weather. */
@@ -94,7 +95,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
         {...register("concreteTemp")}
       />
       <fieldset>
-        <legend className="text-sm font-semibold text-ink-800">Sun</legend>
+        <legend className="text-sm font-semibold text-ink-800">Sun on the work</legend>
         <div className="mt-1 grid grid-cols-3 gap-2">
           {SUN_EXPOSURES.map((s) => (
             <label key={s} className="flex min-h-touch items-center justify-center gap-1 rounded-lg border border-ink-300 px-2 font-semibold has-[:checked]:border-lichen-700 has-[:checked]:bg-lichen-50">
@@ -227,9 +228,12 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
         </Notice>
       ) : null}
       <DayChart points={points} units={units} highAt={highAt} />
-      {(checklists ?? []).map((c) => (
-        <Checklist key={c.id} checklist={c} canWrite={canCheck} />
-      ))}
+      {/* Only the weather checklists: the readiness check has its own section (one checklist, one place). */}
+      {(checklists ?? [])
+        .filter((c) => WEATHER_KINDS.has(str(c.kind)))
+        .map((c) => (
+          <Checklist key={c.id} checklist={c} canWrite={canCheck} />
+        ))}
     </Section>
   );
 }

@@ -2,6 +2,7 @@
 
 // Findings still needing work (open or answered), from this device's copy: on Today (by project)
 // and on the placement they hold up. Each links to its visit report.
+import { calendarDateText } from "@/lib/time/zone";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
@@ -42,7 +43,7 @@ export function OpenFindings({ projectIds, placementId, title = "Open findings" 
               <span className="mt-1 flex flex-wrap items-center gap-1.5 text-sm text-muted">
                 <StateBadge kind="finding-severity" code={str(f.severity)} size="sm" />
                 <StateBadge kind="finding" code={str(f.state)} size="sm" testId="open-finding-state" />
-                {[str(f.location), f.dueDate ? `due ${str(f.dueDate)}` : ""].filter(Boolean).join(" · ")}
+                {[str(f.location), f.dueDate ? `due ${calendarDateText(str(f.dueDate))}` : ""].filter(Boolean).join(" · ")}
               </span>
             </Link>
           </li>

@@ -119,6 +119,7 @@ export function AnswerBadge({ answer }: { answer: ReadinessAnswer | null }) {
 
 /** States in which the readiness answers may still change (afterwards the inspector has judged them). */
 const EDITABLE_STATES = new Set(["planned", "held"]);
+const FINISHED_STATES = new Set(["cleared", "placing", "placed", "signed"]);
 
 export function ReadinessCheck({ placement, project, readiness }: { placement: LocalRecord; project: ProjectRow; readiness: Readiness | undefined }) {
   const db = useSyncDb();
@@ -155,7 +156,12 @@ export function ReadinessCheck({ placement, project, readiness }: { placement: L
   if (readiness === undefined) return null;
   const { checklist, items, verdict } = readiness;
   return (
-    <Section title="Readiness check" testId="readiness-check">
+    <Section
+      title="Readiness check"
+      testId="readiness-check"
+      // Finished once the inspector has cleared it: folded under its count so the day's records come first.
+      folded={checklist && FINISHED_STATES.has(state) ? { summary: `${verdict.answered} of ${verdict.total} answered${verdict.noCount ? `, ${verdict.noCount} no` : ""}` } : undefined}
+    >
       {!checklist ? (
         <>
           <p className="text-muted">No readiness checklist yet. It is answered before you ask for inspection.</p>

@@ -9,7 +9,7 @@ import { PhotoInputError, preparePhoto, savePhoto } from "@/lib/photos/client/ca
 import { formatBytes, INPUT_ACCEPT, inputProblem } from "@/lib/photos/client/rules";
 import type { PhotoTarget } from "@/lib/photos/rules";
 import { isLocalWriteError } from "@/lib/sync/client";
-import { useSyncDb } from "@/lib/sync/client/react";
+import { useOnline, useSyncDb } from "@/lib/sync/client/react";
 
 /** The time the photo was taken: the file's own time when it is plausible, else now. */
 function takenAtOf(file: File, now = Date.now()): string {
@@ -24,6 +24,7 @@ const pick =
 
 export function AddPhoto({ projectId, recordType, recordId }: { projectId: string; recordType: PhotoTarget; recordId: string }) {
   const db = useSyncDb();
+  const online = useOnline();
   const id = useId();
   const [caption, setCaption] = useState("");
   const [status, setStatus] = useState<Status>(null);
@@ -56,7 +57,10 @@ export function AddPhoto({ projectId, recordType, recordId }: { projectId: strin
       setCaption("");
       setStatus({
         tone: "success",
-        text: `${saved === 1 ? "Photo" : `${saved} photos`} saved on this device (${formatBytes(bytes)}); ${saved === 1 ? "it uploads" : "they upload"} when there is a connection.`,
+        // Online the upload starts at once; only offline does it wait for a connection.
+        text: `${saved === 1 ? "Photo" : `${saved} photos`} saved on this device (${formatBytes(bytes)}); ${saved === 1 ? "it" : "they"} ${
+          online ? (saved === 1 ? "is uploading now" : "are uploading now") : saved === 1 ? "uploads when there is a connection" : "upload when there is a connection"
+        }.`,
       });
     } catch (error) {
       const text =

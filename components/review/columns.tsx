@@ -6,7 +6,7 @@ import clsx from "clsx";
 import Link from "next/link";
 import { formatEvaporation, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { StateBadge } from "@/components/ui/state-badge";
-import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "@/lib/review/columns";
+import { DIARY_COLUMNS, PLACEMENT_COLUMNS, PLACEMENT_MEASURES } from "@/lib/review/columns";
 import { DELIVERY_STATUS_WORDS, SEVERITY_WORDS, TONES, textClassOf } from "@/lib/ui/vocabulary";
 import type { DiaryReviewRow, PlacementReviewRow } from "@/lib/review/query-schemas";
 
@@ -41,8 +41,8 @@ export function placementColumns(): ColumnDef<PlacementReviewRow>[] {
       },
     },
     { id: "mix", header: P("mix"), cell: ({ row }) => row.original.mixCode ?? <span className="text-ink-400">—</span> },
-    { id: "orderedM3", header: "Ordered", meta: { align: "right" }, cell: ({ row }) => (row.original.orderedM3 === null ? "—" : formatVolume(row.original.orderedM3, row.original.unitSystem, 1)) },
-    { id: "placedM3", header: "Placed", meta: { align: "right" }, cell: ({ row }) => formatVolume(row.original.placedM3, row.original.unitSystem, 1) },
+    { id: "orderedM3", header: "Ordered", meta: { align: "right" }, cell: ({ row }) => (row.original.orderedM3 === null ? "—" : formatVolume(row.original.orderedM3, row.original.unitSystem, PLACEMENT_MEASURES.orderedM3.digits)) },
+    { id: "placedM3", header: "Placed", meta: { align: "right" }, cell: ({ row }) => formatVolume(row.original.placedM3, row.original.unitSystem, PLACEMENT_MEASURES.placedM3.digits) },
     {
       id: "trucks",
       header: P("trucks"),

@@ -164,9 +164,14 @@ function ReviewList({ list, projects, initial }: { list: List; projects: ReviewP
         <CheckMenu label="Columns" testId={`${list}-columns`} options={all.map((c) => ({ value: c.key, label: c.label }))} selected={view.columns} onChange={(cols) => cols.length && update({ columns: all.map((c) => c.key).filter((k) => cols.includes(k)) })} />
         <SmallSelect label="Rows" testId={`${list}-page-size`} value={String(view.pageSize)} onChange={(v) => update({ pageSize: Number(v) })} options={REVIEW_PAGE_SIZES.map((n) => ({ value: String(n), label: `${n} a page` }))} />
         <div className="ml-auto flex items-end gap-2">
-          <a href={csvHref} className={smallButton()} data-testid={`${list}-csv`} download>
+          <a href={csvHref} className={smallButton()} data-testid={`${list}-csv`} download title="In each project's units, rounded as on screen">
             <Download className="h-4 w-4" aria-hidden="true" /> CSV
           </a>
+          {list === "placements" ? (
+            <a href={`${csvHref}&units=si`} className={smallButton()} data-testid={`${list}-csv-si`} download title="Stored SI values, unrounded">
+              CSV (SI, raw)
+            </a>
+          ) : null}
           <button type="button" className={smallButton("primary")} data-testid={`${list}-save-view`} disabled={save.isPending} onClick={() => save.mutate()}>
             <Save className="h-4 w-4" aria-hidden="true" /> Save as my default view
           </button>

@@ -35,7 +35,12 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
   const withReview = reviews ? [...NAV.slice(0, 3), { href: "/review", label: "Review", icon: TableProperties }, ...NAV.slice(3)] : NAV;
   const withLab = lab ? [...withReview, { href: "/lab", label: "Lab", icon: FlaskConical }] : withReview;
   const nav = user.isAdmin ? [...withLab, { href: "/admin", label: "Admin", icon: ShieldCheck }] : withLab;
-  const isActive = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
+  // The most specific section wins: a project's lab page (/projects/<id>/lab) is the Lab, not Projects.
+  const section = (path: string) => (/^\/projects\/[^/]+\/lab(\/|$)/.test(path) ? "/lab" : path);
+  const isActive = (href: string) => {
+    const path = section(pathname);
+    return path === href || path.startsWith(`${href}/`);
+  };
 
   return (
     <SyncProvider identity={user}>

@@ -6,7 +6,7 @@ import { VocabularyIcon } from "@/components/ui/state-badge";
 import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { useEffect, useRef, useState } from "react";
-import { SyncDetails } from "@/components/sync/sync-details";
+import { SyncDetails, type SyncAnchor } from "@/components/sync/sync-details";
 import { useNow } from "@/components/sync/use-now";
 import { useSyncState, type SyncState } from "@/lib/sync/client/react";
 import { describeSince, plural } from "@/lib/sync/client/words";
@@ -60,13 +60,21 @@ function ConnectionOnly({ online }: { online: boolean }) {
 export function SyncStatus() {
   const state = useSyncState();
   const now = useNow();
-  const [open, setOpen] = useState(false);
+  const [anchor, setAnchor] = useState<SyncAnchor | null>(null);
+  const open = anchor !== null;
   const ref = useRef<HTMLDivElement>(null);
+  const sheet = useRef<HTMLDivElement>(null);
+  const setOpen = (on: boolean) => {
+    const box = ref.current?.getBoundingClientRect();
+    setAnchor(on && box ? { topPx: box.bottom + 8, rightPx: Math.max(12, window.innerWidth - box.right) } : null);
+  };
 
   useEffect(() => {
     if (!open) return;
-    const close = (e: MouseEvent) => ref.current && !ref.current.contains(e.target as Node) && setOpen(false);
-    const escape = (e: KeyboardEvent) => e.key === "Escape" && setOpen(false);
+    // The sheet is rendered into the body: a press inside it is not "outside".
+    const inside = (t: Node) => ref.current?.contains(t) || sheet.current?.contains(t);
+    const close = (e: MouseEvent) => !inside(e.target as Node) && setAnchor(null);
+    const escape = (e: KeyboardEvent) => e.key === "Escape" && setAnchor(null);
     document.addEventListener("mousedown", close);
     document.addEventListener("keydown", escape);
     return () => {
@@ -85,7 +93,7 @@ export function SyncStatus() {
         <Link
           href="/field/conflicts"
           data-testid="sync-conflicts"
-          className="inline-flex min-h-11 items-center gap-1.5 rounded-md bg-danger-50 px-2 text-sm font-semibold text-danger-800"
+          className="inline-flex min-h-touch items-center gap-1.5 rounded-md bg-danger-50 px-2 text-sm font-semibold text-danger-800"
         >
           <VocabularyIcon name={RECONCILE_WORDS.icon} />
           {state.conflicts} {RECONCILE_WORDS.label.toLowerCase()}
@@ -97,10 +105,10 @@ export function SyncStatus() {
         data-state={look.label}
         aria-expanded={open}
         aria-haspopup="dialog"
-        onClick={() => setOpen((o) => !o)}
+        onClick={() => setOpen(!open)}
         title={look.detail}
         className={clsx(
-          "inline-flex min-h-11 items-center gap-1.5 rounded-md px-2 text-sm font-semibold",
+          "inline-flex min-h-touch min-w-touch items-center justify-center gap-1.5 rounded-md px-2 text-sm font-semibold",
           look.tone === "plain" && "text-ink-100 hover:bg-white/10",
           look.tone === "caution" && "bg-caution-100 text-caution-800",
           look.tone === "danger" && "bg-danger-50 text-danger-800",
@@ -117,7 +125,7 @@ export function SyncStatus() {
           </span>
         ) : null}
       </button>
-      {open ? <SyncDetails state={state} onClose={() => setOpen(false)} /> : null}
+      {anchor ? <SyncDetails state={state} anchor={anchor} sheetRef={sheet} onClose={() => setAnchor(null)} /> : null}
     </div>
   );
 }

@@ -10,6 +10,7 @@ import { Notice } from "@/components/ui/notice";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { useRequestSync } from "@/lib/sync/client/react";
 import { PlacementSignSummary, blockingReason, usePlacementSummary } from "./placement-summary";
+import { usePlacementWarnings } from "./acknowledge-findings";
 import { SignOffDialog } from "./lazy-sign-off-dialog";
 import { SignedRecord } from "./signed-record";
 import { signOffUrl } from "./use-sign-off";
@@ -18,6 +19,7 @@ export function PlacementSignOff({ placement, project, mix }: { placement: Local
   const summary = usePlacementSummary(placement, project, mix);
   const requestSync = useRequestSync();
   const [open, setOpen] = useState(false);
+  const warnings = usePlacementWarnings(project.id, placement.id, open);
   const [justSigned, setJustSigned] = useState(false);
 
   if (placement.state === "signed") return <SignedRecord placement={placement} project={project} />;
@@ -45,6 +47,7 @@ export function PlacementSignOff({ placement, project, mix }: { placement: Local
         baseVersion={version}
         title="Sign the placement"
         summary={<PlacementSignSummary summary={summary} project={project} />}
+        acknowledge={{ findings: warnings.data, error: warnings.error ? warnings.error.message : null }}
         blockedReason={version < 1 ? "This placement has not reached the server yet. Sync, then sign." : blockingReason(summary)}
         onClose={() => setOpen(false)}
         onSigned={() => {

@@ -23,6 +23,8 @@ export type PlacementSummary = {
   tests: number;
   /** The rulebook's cautions and warnings on the placement, counted by what they say ("Late truck" × 2). */
   raised: { label: string; count: number }[];
+  /** Which lines of the summary the rulebook has something to say about (by the finding's subject): never a tick there. */
+  flagged: { trucks: boolean; tests: boolean; weather: boolean };
   specimenSets: number;
   observations: number;
   curingReadings: number;
@@ -77,6 +79,12 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
     waterAddedTrucks: deliveries.filter((d) => (num(d.waterAddedL) ?? 0) > 0).length,
     tests: tests.length,
     raised: countRaised(raised.map((f) => f.title)),
+    flagged: {
+      trucks: raised.some((f) => f.subject.type === "delivery"),
+      // A missing specimen set is a finding on the placement itself (lib/checks/sampling.ts).
+      tests: raised.some((f) => f.subject.type === "field-test" || f.subject.type === "strength-test" || f.subject.type === "placement"),
+      weather: raised.some((f) => f.subject.type === "weather" || f.subject.type === "curing" || f.subject.type === "day"),
+    },
     specimenSets: sets.length,
     observations: observations.length,
     curingReadings: curing.length,
@@ -134,9 +142,19 @@ export function PlacementSignSummary({ summary, project }: { summary: PlacementS
   ].filter((w): w is string => !!w);
   return (
     <ul className="flex flex-col text-base" data-testid="sign-summary">
-      <Line testId="sign-summary-trucks" label="Trucks" value={`${plural(s.trucks, "truck", "trucks")}, ${formatVolume(s.volumeM3, units)} accepted`} />
-      <Line label="Field tests" value={`${plural(s.tests, "test", "tests")}, ${plural(s.specimenSets, "specimen set", "specimen sets")}`} />
-      <Line label="Weather" value={`${plural(s.observations, "observation", "observations")}; curing ${plural(s.curingReadings, "reading", "readings")}`} />
+      <Line
+        testId="sign-summary-trucks"
+        label="Trucks"
+        value={`${plural(s.trucks, "truck", "trucks")}, ${formatVolume(s.volumeM3, units)} accepted`}
+        warn={s.flagged.trucks || s.rejectedTrucks > 0}
+      />
+      <Line testId="sign-summary-tests" label="Field tests" value={`${plural(s.tests, "test", "tests")}, ${plural(s.specimenSets, "specimen set", "specimen sets")}`} warn={s.flagged.tests} />
+      <Line
+        testId="sign-summary-weather"
+        label="Weather"
+        value={`${plural(s.observations, "observation", "observations")}; curing ${plural(s.curingReadings, "reading", "readings")}`}
+        warn={s.flagged.weather}
+      />
       <Line testId="sign-summary-warnings" label="Warnings raised" value={warnings.length ? `${warnings.join("; ")}. ${GOVERNS}` : "none"} warn={warnings.length > 0} />
       <Line
         label="Checklists"

@@ -12,6 +12,8 @@ import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { callApi, type ApiError } from "@/lib/api/client";
 import { useOnline } from "@/lib/sync/client/react";
+import type { Finding } from "@/lib/checks";
+import { AcknowledgeFindings, unacknowledged } from "./acknowledge-findings";
 
 export type SignOffDialogProps = {
   /** POST URL of the sign-off route. */
@@ -26,6 +28,8 @@ export type SignOffDialogProps = {
   onSigned: (result: unknown) => void;
   /** Why signing is not possible yet (known on the device: unsent changes …); shown and blocks submit. */
   blockedReason?: string | null;
+  /** The rulebook's findings the signer must acknowledge one by one (placements); undefined while loading. */
+  acknowledge?: { findings: Finding[] | undefined; error: string | null };
 };
 
 function useSignaturePad(open: boolean) {
@@ -78,13 +82,22 @@ export function SignOffDialog(props: SignOffDialogProps) {
   return props.open ? <DialogBody {...props} /> : null;
 }
 
-function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, blockedReason }: SignOffDialogProps) {
+function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, blockedReason, acknowledge }: SignOffDialogProps) {
   const online = useOnline();
   const { canvasRef, empty, clear, toPng } = useSignaturePad(true);
   const [password, setPassword] = useState("");
   const [typedName, setTypedName] = useState("");
   const [error, setError] = useState<ApiError | null>(null);
   const [busy, setBusy] = useState(false);
+  const [checked, setChecked] = useState<Set<string>>(() => new Set());
+  const toggle = (key: string, on: boolean) =>
+    setChecked((prev) => {
+      const next = new Set(prev);
+      if (on) next.add(key);
+      else next.delete(key);
+      return next;
+    });
+  const toAcknowledge = acknowledge ? unacknowledged(acknowledge.findings, checked) : [];
   const firstField = useRef<HTMLInputElement | null>(null);
 
   useEffect(() => {
@@ -104,7 +117,7 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
       return;
     }
     setBusy(true);
-    const res = await callApi<unknown>(endpoint, { body: { baseVersion, password, typedName: typedName.trim(), signatureImage } });
+    const res = await callApi<unknown>(endpoint, { body: { baseVersion, password, typedName: typedName.trim(), signatureImage, ...(acknowledge ? { acknowledged: [...checked] } : {}) } });
     setBusy(false);
     if (res.ok) {
       setPassword("");
@@ -150,6 +163,7 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
             <p className="mb-1 text-sm font-bold uppercase tracking-wide text-ink-700">What you sign</p>
             {summary}
           </div>
+          {acknowledge ? <AcknowledgeFindings findings={acknowledge.findings} error={acknowledge.error} checked={checked} onToggle={toggle} /> : null}
           <p className="text-sm text-ink-800">
             Once signed, the record is frozen: later changes are amendments shown beside it. The project specification and the engineer of record govern
             acceptance of the work.
@@ -213,8 +227,13 @@ function DialogBody({ endpoint, baseVersion, title, summary, onClose, onSigned, 
             </Notice>
           ) : null}
           </div>
+          {toAcknowledge && toAcknowledge.length > 0 ? (
+            <p className="shrink-0 border-t border-ink-200 bg-caution-50 px-4 py-2 text-sm font-semibold text-caution-800" data-testid="acknowledge-remaining">
+              Acknowledge {toAcknowledge.length === 1 ? "1 more finding" : `${toAcknowledge.length} more findings`} above to sign.
+            </p>
+          ) : null}
           <div className="flex shrink-0 gap-2 border-t border-ink-200 bg-white px-4 py-3">
-            <Button type="submit" block disabled={busy || !!cannot || !password || typedName.trim().length < 2 || empty} data-testid="sign-off-submit">
+            <Button type="submit" block disabled={busy || !!cannot || !password || typedName.trim().length < 2 || empty || toAcknowledge === null || toAcknowledge.length > 0} data-testid="sign-off-submit">
               {busy ? "Signing…" : "Sign"}
             </Button>
             <Button variant="secondary" onClick={onClose} disabled={busy}>

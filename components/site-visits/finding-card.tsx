@@ -3,6 +3,7 @@
 // One finding: what does not conform, where, how serious, the requirement, the action and its due
 // date; the superintendent's answer; the inspector's close or reopen. The buttons shown are the moves
 // lib/site-visits/lifecycle allows this role (the server checks again).
+import { calendarDateText } from "@/lib/time/zone";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -56,7 +57,7 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
         <dt className="text-muted">Action required</dt>
         <dd>{str(finding.actionRequired) || "—"}</dd>
         <dt className="text-muted">By</dt>
-        <dd>{str(finding.dueDate) || "—"}</dd>
+        <dd>{finding.dueDate ? calendarDateText(str(finding.dueDate)) : "—"}</dd>
         {finding.response ? (
           <>
             <dt className="text-muted">Correction</dt>

@@ -1,6 +1,8 @@
 "use client";
 
+import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
+import { createPortal } from "react-dom";
 import { CircleAlert, HardDrive, LogIn, RefreshCw, X } from "lucide-react";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
@@ -18,8 +20,37 @@ function formatTime(iso: string): string {
   return date.toLocaleString(undefined, { weekday: "short", hour: "2-digit", minute: "2-digit" });
 }
 
-/** The sheet behind the sync status control: waiting changes, refusals and errors, in words. */
-export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () => void }) {
+/** Where the panel hangs on a wider screen: under the status control, right-aligned with it. */
+export type SyncAnchor = { topPx: number; rightPx: number };
+
+/**
+ * The sheet behind the sync status control: waiting changes, refusals and errors, in words. On a
+ * phone a bottom sheet over a backdrop, inside the viewport whatever the header's layout; from the
+ * `sm` width up a panel under the control. Rendered into the body so no header box can clip it.
+ */
+export function SyncDetails({ state, onClose, anchor, sheetRef }: { state: SyncState; onClose: () => void; anchor: SyncAnchor; sheetRef: React.Ref<HTMLDivElement> }) {
+  return createPortal(
+    <>
+      <div aria-hidden="true" data-testid="sync-details-backdrop" className="fixed inset-0 z-40 bg-ink-950/50 sm:hidden" onClick={onClose} />
+      <div
+        ref={sheetRef}
+        role="dialog"
+        aria-label="Sync details"
+        data-testid="sync-details"
+        style={{ "--sync-top": `${anchor.topPx}px`, "--sync-right": `${anchor.rightPx}px` } as React.CSSProperties}
+        className={clsx(
+          "fixed inset-x-0 bottom-0 z-50 max-h-[85dvh] overflow-y-auto rounded-t-2xl border-t border-ink-200 bg-white p-4 pb-[max(1rem,env(safe-area-inset-bottom))] text-left text-ink-900 shadow-xl",
+          "sm:inset-x-auto sm:bottom-auto sm:right-[var(--sync-right)] sm:top-[var(--sync-top)] sm:max-h-[75dvh] sm:w-[22rem] sm:rounded-lg sm:border sm:p-3 sm:shadow-lg",
+        )}
+      >
+        <DetailsBody state={state} onClose={onClose} />
+      </div>
+    </>,
+    document.body,
+  );
+}
+
+function DetailsBody({ state, onClose }: { state: SyncState; onClose: () => void }) {
   const db = useOptionalSyncDb();
   const requestSync = useRequestSync();
   const now = useNow();
@@ -29,18 +60,14 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
   const progress = usePhotoProgress();
 
   return (
-    <div
-      role="dialog"
-      aria-label="Sync details"
-      data-testid="sync-details"
-      className="absolute right-0 z-30 mt-2 max-h-[75dvh] w-[min(22rem,calc(100vw-1.5rem))] overflow-y-auto rounded-lg border border-ink-200 bg-white p-3 text-left text-ink-900 shadow-lg"
-    >
-      <div className="flex items-start justify-between gap-2">
-        <h2 className="text-base font-bold">Sync</h2>
+    <>
+      <div className="flex items-center justify-between gap-2">
+        <h2 className="text-lg font-bold">Sync</h2>
         <button
           type="button"
           onClick={onClose}
-          className="-mr-1 -mt-1 inline-flex min-h-11 min-w-11 items-center justify-center rounded-md hover:bg-ink-100"
+          data-testid="sync-details-close"
+          className="-mr-2 inline-flex min-h-touch min-w-touch items-center justify-center rounded-md hover:bg-ink-100"
         >
           <X className="h-5 w-5" aria-hidden="true" />
           <span className="sr-only">Close</span>
@@ -93,7 +120,7 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
         <Link
           href="/field/conflicts"
           onClick={onClose}
-          className="mt-3 flex min-h-11 items-center gap-2 rounded-md border-2 border-danger-600 bg-danger-50 px-2 text-sm font-semibold text-danger-800"
+          className="mt-3 flex min-h-touch items-center gap-2 rounded-md border-2 border-danger-600 bg-danger-50 px-2 text-sm font-semibold text-danger-800"
         >
           <VocabularyIcon name={RECONCILE_WORDS.icon} />
           {plural(state.conflicts, "change")} {RECONCILE_WORDS.label.toLowerCase()}
@@ -111,7 +138,7 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
                 <button
                   type="button"
                   onClick={() => db && void dismissRejection(db, row.id)}
-                  className="min-h-11 rounded-md px-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
+                  className="min-h-touch min-w-touch rounded-md px-2 text-sm font-semibold text-ink-800 hover:bg-ink-100"
                 >
                   Dismiss
                 </button>
@@ -168,12 +195,13 @@ export function SyncDetails({ state, onClose }: { state: SyncState; onClose: () 
       <button
         type="button"
         onClick={requestSync}
+        data-testid="sync-now"
         disabled={state.syncing}
         className="mt-3 inline-flex min-h-touch w-full items-center justify-center gap-2 rounded-lg border border-ink-300 bg-white px-4 font-semibold hover:bg-ink-50 disabled:opacity-50"
       >
         <RefreshCw className={`h-4 w-4 ${state.syncing ? "motion-safe:animate-spin" : ""}`} aria-hidden="true" />
         {state.syncing ? "Syncing…" : "Sync now"}
       </button>
-    </div>
+    </>
   );
 }

@@ -5,6 +5,7 @@ import { localDate } from "@/lib/time/zone";
 import { coldWeatherFindings, curingFinding } from "./cold-weather";
 import { dischargeFinding, mixCodeFinding, revolutionsFinding, siteWaterFinding } from "./delivery";
 import { fieldTestFindings, laterCheckTestPassed } from "./field-tests";
+import { samplingFindings } from "./sampling";
 import { strengthFindings } from "./strength";
 import { SEVERITIES, type CheckInput, type Finding, type Severity } from "./types";
 import { evaporationFinding, hotWeatherFindings } from "./weather";
@@ -39,6 +40,7 @@ export function evaluate(input: CheckInput, options: EvaluateOptions = {}): Find
     findings.push(...fieldTestFindings(t, mix, project, laterCheckTestPassed(t, input.fieldTests, mix, project)));
   }
   findings.push(...strengthFindings(input));
+  findings.push(...samplingFindings(input));
   return findings.sort(byTime);
 }
 

@@ -113,13 +113,17 @@ export function formatQuantity(
   unitSystem: UnitSystem,
   digits?: number,
 ): string {
+  return `${displayText(quantity, valueSI, unitSystem, digits)} ${unitLabel(quantity, unitSystem)}`;
+}
+
+/** The number formatQuantity shows, without its unit ("34.4"): for tables and exports that put the unit in a header. */
+export function displayText(quantity: Quantity, valueSI: number, unitSystem: UnitSystem, digits?: number): string {
   assertFinite(valueSI, quantity, "Value");
   const units = QUANTITIES[quantity];
   const places = digits ?? (unitSystem === "SI" ? units.siDigits : units.ipDigits);
   const text = toDisplay(quantity, valueSI, unitSystem).toFixed(places);
   // toFixed keeps the sign of a tiny negative ("-0"), which reads as an error on site.
-  const clean = Number(text) === 0 ? (0).toFixed(places) : text;
-  return `${clean} ${unitLabel(quantity, unitSystem)}`;
+  return Number(text) === 0 ? (0).toFixed(places) : text;
 }
 
 export const formatTemperature = (tempC: number, unitSystem: UnitSystem, digits?: number) =>

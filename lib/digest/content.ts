@@ -2,6 +2,7 @@
 // passed in, so the same day renders for the preview, each recipient and the tests.
 import { renderEmptyHtml, renderHtml, type DigestLinks } from "./html";
 import { citation } from "@/lib/checks";
+import { siteStatusText } from "./site-status";
 import { summarizeDay, type DigestSummary } from "./summary";
 import { warningWord } from "@/lib/ui/vocabulary";
 import type { DigestDay } from "./types";
@@ -45,6 +46,7 @@ function renderText(s: DigestSummary, links: DigestLinks): string {
     out.push(`- ${p.element} [${p.stateLabel}]`, `  ${[p.where, `start ${p.start}`].filter(Boolean).join(" · ")}`, `  ${p.volume}`, `  ${p.signed}`);
     if (p.holdReason) out.push(`  ${p.stateLabel}: ${p.holdReason}`);
   }
+  out.push(...siteStatusText(s.site));
   if (s.trucks.lines.length) {
     const t = s.trucks;
     heading("Trucks");

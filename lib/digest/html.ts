@@ -115,6 +115,20 @@ export function renderHtml(s: DigestSummary, subject: string, links: DigestLinks
   }
   if (warnCount) body.push(section("Needs attention", s.warnings.map(warningBox).join("")));
   body.push(section("Placements", placementsHtml(s)));
+  const site = s.site;
+  if (site.holds.length) {
+    const held = wordFor("placement", "held");
+    body.push(section(`${held.label} (${site.holds.length})`, list(site.holds.map((h) => item(`${flag(held, `: ${h.element}`)} ${esc(h.reason)}`)))));
+  }
+  if (site.openFindings.length) {
+    body.push(
+      section(
+        `Open findings of site visits (${site.openFindings.length})`,
+        list(site.openFindings.map((f) => item(f.severity === "minor" ? esc(f.text) : flag({ ...wordFor("finding-severity", f.severity), label: f.text })))),
+      ),
+    );
+  }
+  if (site.safetyNotes) body.push(section("Safety notes", para(esc(site.safetyNotes))));
   if (s.trucks.lines.length) body.push(section("Trucks", trucksHtml(s)));
   if (s.tests.total) {
     const text = s.tests.outOfTolerance ? `${s.tests.total} field tests; ${s.tests.outOfTolerance} out of tolerance (see above).` : `${s.tests.total} field tests, all within tolerance.`;

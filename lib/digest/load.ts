@@ -1,5 +1,6 @@
 // Reads what one project recorded on one project-local date, for the digest builder. Every query is
 // scoped to the project; tombstoned rows are left out.
+import { loadSiteStatus } from "./site-status";
 import { and, asc, eq, gte, inArray, isNotNull, isNull, lt, type SQL } from "drizzle-orm";
 import type { PgColumn } from "drizzle-orm/pg-core";
 import { db, type Executor } from "@/db";
@@ -132,5 +133,6 @@ export async function loadDigestDay(projectId: string, date: string, tx: Executo
     breaks: dayBreaks.map(({ b, setCode, placementId, cylinderDiameterMm }) => ({ ...b, setCode, placementId, cylinderDiameterMm })),
     diary: diary ? { submitted: diary.submittedAt !== null, weatherSummary: diary.weatherSummary, workDone: diary.workDone, crew, delays } : null,
     photos: dayPhotos,
+    site: await loadSiteStatus(tx, projectId, date),
   };
 }

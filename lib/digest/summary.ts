@@ -7,6 +7,7 @@ import { localDate } from "@/lib/time/zone";
 import { attention, type Finding } from "@/lib/checks";
 import { strengthTests } from "@/lib/checks/strength";
 import { dayFindings } from "@/lib/findings/load";
+import { NO_SITE_STATUS, type SiteStatus } from "./site-status";
 import type { DigestDay, DigestPlacement } from "./types";
 
 export type PlacementLine = { element: string; where: string; start: string; volume: string; state: PlacementState; stateLabel: string; signed: string; holdReason: string | null };
@@ -28,7 +29,9 @@ export type DigestSummary = {
   photos: { id: string; label: string }[];
   /** The rulebook's cautions and warnings for the day (lib/checks), most severe first, each with when and where. */
   warnings: (Finding & { context: string })[];
-  /** Nothing at all was recorded for the day. */
+  /** Holds in effect, open findings of site visits, the diary's safety notes. */
+  site: SiteStatus;
+  /** Nothing at all was recorded for the day (what stands open on the site does not count). */
   isEmpty: boolean;
 };
 
@@ -150,6 +153,7 @@ export function summarizeDay(day: DigestDay): DigestSummary {
     weatherSummary: day.diary.weatherSummary,
   };
 
+  const site = day.site ?? NO_SITE_STATUS;
   return {
     projectName: project.name,
     projectCode: project.code,
@@ -173,6 +177,7 @@ export function summarizeDay(day: DigestDay): DigestSummary {
     diary,
     photos: day.photos.map((p) => ({ id: p.id, label: `${p.caption || "Photo"}${p.takenAt ? ` (${time(p.takenAt)})` : ""}` })),
     warnings,
+    site,
     isEmpty:
       day.placements.length + day.deliveries.length + day.fieldTests.length + day.weather.length + day.specimenSets.length +
         day.breaks.length + day.photos.length === 0 && day.diary === null,

@@ -1,5 +1,6 @@
 // The data one digest is built from: a project and one project-local date, as load.ts reads it.
 // Values are SI as stored; the builder formats them in the project's unit system.
+import type { SiteStatus } from "./site-status";
 import type { CheckDelivery, CheckFieldTest, CheckInput, CheckMix, CheckWeather } from "@/lib/checks";
 import type { UnitSystem } from "@/lib/concrete/units";
 import type { PlacementState } from "@/lib/records/enums";
@@ -96,4 +97,6 @@ export type DigestDay = {
   breaks: DigestBreak[];
   diary: DigestDiary | null;
   photos: DigestPhoto[];
+  /** Holds in effect, open findings of site visits and the diary's safety notes (lib/digest/site-status.ts). */
+  site?: SiteStatus;
 };

@@ -22,7 +22,8 @@ export async function loadProject(tx: Executor, projectId: string): Promise<Proj
 /**
  * The records the rulebook needs to judge `date`: the day's own records, the three days of weather
  * before it where the project uses the ACI 306.1-90 definition (a run of days decides it), and every
- * break of a specimen set broken that day (cylinders are counted into tests per set and age).
+ * break of a specimen set broken that day (cylinders are counted into tests per set and age), and
+ * every truck and specimen set of a placement planned that day (whether cylinders were made).
  */
 export async function loadCheckDay(tx: Executor, project: Project, date: string): Promise<CheckInput> {
   const projectId = project.id;
@@ -52,17 +53,27 @@ export async function loadCheckDay(tx: Executor, project: Project, date: string)
     .select()
     .from(placements)
     .where(and(live(placements), or(inRange(placements.plannedStart, day), referenced.length ? inArray(placements.id, [...new Set(referenced)]) : undefined)));
+  // A placement planned today is judged whole for what it lacks (no cylinders): all its trucks and sets.
+  const plannedIds = dayPlacements.filter((p) => p.plannedStart >= day.start && p.plannedStart < day.end).map((p) => p.id);
+  const dayIds = new Set(dayDeliveries.map((d) => d.id));
+  const plannedDeliveries = plannedIds.length
+    ? (await tx.select().from(deliveries).where(and(live(deliveries), inArray(deliveries.placementId, plannedIds)))).filter((d) => !dayIds.has(d.id))
+    : [];
+  const setIdSet = new Set(setIds);
+  const plannedSets = plannedIds.length
+    ? (await tx.select().from(specimenSets).where(and(live(specimenSets), inArray(specimenSets.placementId, plannedIds)))).filter((s) => !setIdSet.has(s.id))
+    : [];
   const mixIds = [...new Set(dayPlacements.map((p) => p.mixId).filter((id): id is string => id !== null))];
   const mixes = mixIds.length ? await tx.select().from(mixDesigns).where(and(eq(mixDesigns.projectId, projectId), inArray(mixDesigns.id, mixIds))) : [];
   return toCheckInput({
     project,
     mixes,
     placements: dayPlacements,
-    deliveries: dayDeliveries,
+    deliveries: [...dayDeliveries, ...plannedDeliveries],
     fieldTests: dayTests,
     weather: dayWeather,
     curing: dayCuring,
-    specimenSets: sets,
+    specimenSets: [...sets, ...plannedSets],
     breaks: setBreaks,
   });
 }

@@ -58,6 +58,14 @@ async function datesOfPlacements(tx: Executor, project: Project, placementIds: s
   return (result.rows as { at: Date | string | null }[]).filter((r) => r.at !== null).map((r) => localDate(new Date(r.at!), tz));
 }
 
+/** The planned days of the rows' placements: whether cylinders were made is judged on that day. */
+async function plannedDates(tx: Executor, project: Project, rows: Row[]): Promise<string[]> {
+  const ids = [...new Set(rows.map((r) => r.placementId).filter((id): id is string => typeof id === "string"))];
+  if (ids.length === 0) return [];
+  const found = await tx.select({ at: placements.plannedStart }).from(placements).where(inArray(placements.id, ids));
+  return found.map((p) => localDate(p.at, project.timeZone));
+}
+
 /**
  * The project-local dates whose findings a write to these rows (before and after) can change. A
  * placement or mix change reaches every day of its records; a break, every day its set was broken.
@@ -74,8 +82,9 @@ export async function datesAffected(tx: Executor, projectId: string, type: strin
       return project.coldWeatherDefinition === "aci306-1990" ? days.flatMap((d) => [d, addDays(d, 1), addDays(d, 2), addDays(d, 3)]) : days;
     }
     case "deliveries":
-      // The days lib/findings/load.ts reads a truck on (a night pour's discharge is after midnight).
-      return at("arrivedAt", "dischargeFinishedAt", "waterFirstAt", "waterLastAt");
+      // The days lib/findings/load.ts reads a truck on (a night pour's discharge is after midnight),
+      // and its placement's planned day, where whether cylinders were made is judged.
+      return [...at("arrivedAt", "dischargeFinishedAt", "waterFirstAt", "waterLastAt"), ...(await plannedDates(tx, project, rows))];
     case "field-tests":
       return at("sampledAt");
     case "curing-readings":
@@ -84,7 +93,7 @@ export async function datesAffected(tx: Executor, projectId: string, type: strin
     case "specimen-sets": {
       const setIds = [...new Set(rows.map((r) => String(type === "breaks" ? r.specimenSetId : r.id)))];
       const broken = await tx.select({ at: breaks.testedAt }).from(breaks).where(inArray(breaks.specimenSetId, setIds));
-      return [...at("testedAt"), ...broken.map((b) => localDate(b.at, tz))];
+      return [...at("testedAt"), ...broken.map((b) => localDate(b.at, tz)), ...(type === "specimen-sets" ? await plannedDates(tx, project, rows) : [])];
     }
     case "placements":
       return datesOfPlacements(tx, project, [...new Set(rows.map((r) => String(r.id)))]);

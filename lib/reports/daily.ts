@@ -1,6 +1,7 @@
 // The PDF daily report of one project and one project-local date: what the field recorded that day
 // (the digest's loader and summary, so the figures and warnings match the e-mail and the review
 // list), plus checklists, photo thumbnails (when the bytes are stored) and signatures.
+import { drawSiteStatus } from "./site-status";
 import { and, asc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
 import type { PDFImage } from "pdf-lib";
 import { z } from "zod";
@@ -209,6 +210,8 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     }
     l.y -= 4;
   }
+
+  drawSiteStatus(l, summary.site);
 
   // Diary
   l.heading("Diary");

@@ -1,9 +1,13 @@
 // CSV exports of the review lists: the same filters and order as the table, every matching row up
-// to EXPORT_LIMIT, the chosen columns in the table's order. Values are SI as stored (units in the headers).
+// to EXPORT_LIMIT, the chosen columns in the table's order. Measured values in the project's units
+// with the screen's rounding (lib/concrete/units.ts, digits from lib/review/columns.ts) and the unit in
+// each header; `units=si` gives the stored SI values unrounded. Rows of projects in both unit systems
+// cannot share one header, so such an export is in SI (its headers say so).
 import Papa from "papaparse";
 import type { SessionUser } from "@/lib/auth/options";
 import { invalidInput } from "@/lib/errors";
-import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "./columns";
+import { displayText, unitLabel, type UnitSystem } from "@/lib/concrete/units";
+import { DIARY_COLUMNS, PLACEMENT_COLUMNS, PLACEMENT_MEASURES, type MeasuredColumn } from "./columns";
 import { allReviewDiaries } from "./diaries";
 import { allReviewPlacements } from "./placements";
 import type { DiaryListQuery, DiaryReviewRow, PlacementListQuery, PlacementReviewRow } from "./query-schemas";
@@ -17,21 +21,49 @@ export const EXPORT_LIMIT = 20_000;
  */
 const UNPARSE = { escapeFormulae: true } as const;
 
-const PLACEMENT_VALUE: Record<(typeof PLACEMENT_COLUMNS)[number]["key"], (r: PlacementReviewRow) => string | number | null> = {
+type Units = "project" | "si";
+type Measured = keyof typeof PLACEMENT_MEASURES;
+const isMeasured = (key: string): key is Measured => key in PLACEMENT_MEASURES;
+
+const PLACEMENT_VALUE: Record<Exclude<(typeof PLACEMENT_COLUMNS)[number]["key"], Measured>, (r: PlacementReviewRow) => string | number | null> = {
   date: (r) => r.date,
   project: (r) => r.projectName,
   element: (r) => [r.element, r.level, r.grid].filter(Boolean).join(" · "),
   mix: (r) => r.mixCode,
-  orderedM3: (r) => r.orderedM3,
-  placedM3: (r) => Math.round(r.placedM3 * 100) / 100,
   trucks: (r) => r.trucks,
   lateTrucks: (r) => r.lateTrucks,
-  waterAddedL: (r) => Math.round(r.waterAddedL * 10) / 10,
   testsOut: (r) => r.testsOut,
   evaporationRisk: (r) => r.evaporationRisk,
   state: (r) => r.state,
   signedBy: (r) => r.signedBy,
 };
+
+const MEASURED_SI: Record<Measured, (r: PlacementReviewRow) => number | null> = {
+  orderedM3: (r) => r.orderedM3,
+  placedM3: (r) => r.placedM3,
+  waterAddedL: (r) => r.waterAddedL,
+};
+
+/** The one unit system of the export: the rows' own when they share it, else SI. */
+function exportSystem(rows: PlacementReviewRow[], units: Units): UnitSystem | "raw" {
+  if (units === "si") return "raw";
+  const systems = new Set(rows.map((r): UnitSystem => (r.unitSystem === "IP" ? "IP" : "SI")));
+  return systems.size === 1 ? [...systems][0] : "SI";
+}
+
+function measuredCell(key: Measured, r: PlacementReviewRow, system: UnitSystem | "raw"): string | number | null {
+  const si = MEASURED_SI[key](r);
+  if (si === null) return null;
+  if (system === "raw") return si;
+  const { quantity, digits } = PLACEMENT_MEASURES[key] as MeasuredColumn;
+  // A number, not text: a spreadsheet sums it, and a negative is never taken for a formula.
+  return Number(displayText(quantity, si, system, digits));
+}
+
+function header(col: { key: string; label: string }, system: UnitSystem | "raw"): string {
+  if (!isMeasured(col.key)) return col.label;
+  return `${col.label} (${unitLabel(PLACEMENT_MEASURES[col.key].quantity, system === "raw" ? "SI" : system)})`;
+}
 
 const DIARY_VALUE: Record<(typeof DIARY_COLUMNS)[number]["key"], (r: DiaryReviewRow) => string | number | null> = {
   date: (r) => r.date,
@@ -60,9 +92,11 @@ export function csvResponse(text: string, name: string): Response {
   });
 }
 
-export function placementsCsv(rows: PlacementReviewRow[], columns?: string[]): string {
+export function placementsCsv(rows: PlacementReviewRow[], columns?: string[], units: Units = "project"): string {
   const cols = pick(PLACEMENT_COLUMNS, columns);
-  return Papa.unparse({ fields: cols.map((c) => c.label), data: rows.map((r) => cols.map((c) => PLACEMENT_VALUE[c.key](r) ?? "")) }, UNPARSE);
+  const system = exportSystem(rows, units);
+  const cell = (key: (typeof cols)[number]["key"], r: PlacementReviewRow) => (isMeasured(key) ? measuredCell(key, r, system) : PLACEMENT_VALUE[key](r));
+  return Papa.unparse({ fields: cols.map((c) => header(c, system)), data: rows.map((r) => cols.map((c) => cell(c.key, r) ?? "")) }, UNPARSE);
 }
 
 export function diariesCsv(rows: DiaryReviewRow[], columns?: string[]): string {
@@ -72,7 +106,7 @@ export function diariesCsv(rows: DiaryReviewRow[], columns?: string[]): string {
 
 export async function exportPlacementsCsv(user: SessionUser, q: PlacementListQuery, columns?: string[]): Promise<Response> {
   pick(PLACEMENT_COLUMNS, columns);
-  return csvResponse(placementsCsv(await allReviewPlacements(user, q, EXPORT_LIMIT), columns), "placements.csv");
+  return csvResponse(placementsCsv(await allReviewPlacements(user, q, EXPORT_LIMIT), columns, q.units), "placements.csv");
 }
 
 export async function exportDiariesCsv(user: SessionUser, q: DiaryListQuery, columns?: string[]): Promise<Response> {

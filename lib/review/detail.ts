@@ -2,16 +2,15 @@
 // records), the mix, the digest's warnings for this placement, sign-offs, amendments and conflicts.
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { amendments, breaks, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
+import { amendments, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
 import { can } from "@/lib/auth/can";
 import { authorize } from "@/lib/auth/authorize";
 import type { SessionUser } from "@/lib/auth/options";
-import { attention, evaluate, toCheckInput } from "@/lib/checks";
-import { dayFindings, loadCheckDay } from "@/lib/findings/load";
 import { localDate } from "@/lib/time/zone";
 import { notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
 import { placementSnapshot } from "@/lib/signoff/snapshot";
+import { placementWarnings } from "./placement-findings";
 
 type Row = Record<string, unknown>;
 
@@ -47,26 +46,7 @@ export async function loadPlacementReview(user: SessionUser, projectId: string, 
   ]);
   const date = localDate(placement.plannedStart as Date, project.timeZone);
   // The rulebook on every record of this placement, whatever day it was made (lib/checks).
-  const setIds = snapshot.children["specimen-sets"].map((s) => s.id as string);
-  const breaksOfSets = setIds.length ? await db.select().from(breaks).where(and(eq(breaks.projectId, projectId), inArray(breaks.specimenSetId, setIds))) : [];
-  // The day's own findings (cold or hot weather) on its planned date, as the review table counts them.
-  const dayLevel = dayFindings(await loadCheckDay(db, project, date), date).filter((f) => f.subject.type === "day");
-  const warnings = attention([
-    ...dayLevel,
-    ...evaluate(
-      toCheckInput({
-        project,
-        mixes: mix ? [mix] : [],
-        placements: [placement],
-        deliveries: snapshot.children.deliveries,
-        fieldTests: snapshot.children["field-tests"],
-        weather: snapshot.children["weather-observations"],
-        curing: snapshot.children["curing-readings"],
-        specimenSets: snapshot.children["specimen-sets"],
-        breaks: breaksOfSets,
-      }),
-    ),
-  ]);
+  const warnings = await placementWarnings(db, project, snapshot);
   const signed = placement.state === "signed";
   return {
     role,

@@ -86,6 +86,8 @@ export const placementListQuery = z
     pageSize,
     format,
     columns: columns.optional(),
+    /** CSV only: "project" (default) the screen's units and rounding; "si" the stored SI values, unrounded. */
+    units: z.enum(["project", "si"], { error: "Units must be project or si" }).default("project"),
   })
   .strict()
   .refine(ordered, orderMessage);

@@ -12,6 +12,11 @@ export const signOffSchema = z.object({
     .string({ error: "Draw your signature." })
     .regex(/^data:image\/png;base64,[A-Za-z0-9+/=]+$/, "Draw your signature in the box.")
     .max(300_000, "The signature image is too large; clear it and sign again."),
+  /** The findings the signer acknowledged (lib/checks findingKey); the server refuses if one is missing. */
+  acknowledged: z
+    .array(z.string().max(200, "A finding reference is at most 200 characters."), { error: "Send the acknowledged findings as a list." })
+    .max(500, "At most 500 acknowledged findings.")
+    .default([]),
 });
 export type SignOffInput = z.infer<typeof signOffSchema>;
 

@@ -14,6 +14,7 @@ import { authorize } from "@/lib/auth/authorize";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
+import { assertAcknowledged } from "./acknowledge";
 import { amendmentsWithSignOffs } from "./amendment-sign";
 import { checkSignerPassword } from "./password";
 import { amendmentSchema, signOffSchema } from "./schemas";
@@ -46,6 +47,7 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
         pendingPhotos: blocking.pendingPhotos.map((p) => p.id),
       });
     }
+    const acknowledged = await assertAcknowledged(tx, projectId, snapshot, body.acknowledged);
     const contentHash = snapshotHash(snapshot);
     const signedAt = new Date();
     const placement = await markPlacementSigned({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
@@ -73,7 +75,8 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
       recordType: "sign-off",
       recordId: row.id,
       action: "sign",
-      after: { placementId, typedName: body.typedName, contentHash, signedAt },
+      // The warnings the signer acknowledged stay with the signature (key and the words shown).
+      after: { placementId, typedName: body.typedName, contentHash, signedAt, acknowledged },
     });
     return { signOff: { ...row, signatureImage: undefined }, placementVersion: placement.version };
   });

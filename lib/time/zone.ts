@@ -184,3 +184,10 @@ export function chainStartDate(times: (string | null | undefined)[], timeZone: s
   const first = chainWallTimes(today, times, timeZone).find((t): t is Date => t !== null);
   return first && first.getTime() > now.getTime() ? addDays(today, -1) : today;
 }
+
+/** A calendar date (YYYY-MM-DD, no time or zone: a due date) as people read it: "Tue, Nov 17, 2026". */
+export function calendarDateText(date: string): string {
+  if (!isLocalDate(date)) return date;
+  // Noon UTC of that date names the same calendar day everywhere the formatter is told UTC.
+  return new Intl.DateTimeFormat("en-US", { timeZone: "UTC", weekday: "short", month: "short", day: "numeric", year: "numeric" }).format(new Date(`${date}T12:00:00Z`));
+}

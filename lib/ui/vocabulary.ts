@@ -2,7 +2,7 @@
 // by the field screens, the office screens, the digest e-mail and the PDF. The codes stored in the
 // database (planned, ready, …) never reach a person; these words do. Pure: no React, no server code.
 import type { Severity } from "@/lib/checks/types";
-import type { FindingSeverity, FindingState, PlacementState, SiteVisitState } from "@/lib/records/enums";
+import type { ElementType, FindingSeverity, FindingState, PlacementState, SiteVisitState } from "@/lib/records/enums";
 import { paletteHex, type PaletteToken } from "./palette";
 
 /**
@@ -179,3 +179,17 @@ export function severityOf(w: { severity?: Severity; tone?: "danger" | "caution"
   return w.severity ?? (w.tone === "danger" ? "warning" : "caution");
 }
 export const warningWord = (w: { severity?: Severity; tone?: "danger" | "caution" }): Word => SEVERITY_WORDS[severityOf(w)];
+
+/** The kind of structural element, as a person says it (the stored code never reaches a screen). */
+export const ELEMENT_TYPE_LABELS: Record<ElementType, string> = {
+  footing: "Footing",
+  wall: "Wall",
+  column: "Column",
+  beam: "Beam",
+  "slab-on-ground": "Slab on ground",
+  "elevated-slab": "Elevated slab",
+  other: "Other",
+};
+
+/** The label of a stored element type; an unknown code reads "Other" rather than the code. */
+export const elementTypeLabel = (code: unknown): string => ELEMENT_TYPE_LABELS[String(code) as ElementType] ?? ELEMENT_TYPE_LABELS.other;

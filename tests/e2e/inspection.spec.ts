@@ -109,13 +109,48 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
   await expect(sam.state()).toHaveText("Placed");
   await sam.waitAllSaved();
 
+  // The truck's ticket, corrected through the records API: batched 100 min before discharge ended, so
+  // it is late under ASTM C94 §10.7's 90 min [ASTM C94]; no cylinders were made from this structural mix.
+  const projects = (await (await samPage.request.get("/api/projects")).json()) as { id: string; name: string }[];
+  const projectId = projects.find((p) => p.name === PROJECT)!.id;
+  const trucks = (await (await samPage.request.get(`/api/projects/${projectId}/records/deliveries?limit=200`)).json()) as {
+    items: { id: string; version: number; ticketNumber: string; dischargeStartedAt: string }[];
+  };
+  const truck = trucks.items.find((d) => d.ticketNumber === `T-${stamp}`)!;
+  const started = new Date(truck.dischargeStartedAt).getTime();
+  const at = (min: number) => new Date(started + min * 60_000).toISOString();
+  const patched = await samPage.request.patch(`/api/projects/${projectId}/records/deliveries/${truck.id}`, {
+    data: { baseVersion: truck.version, patch: { batchedAt: at(-100), arrivedAt: at(-15), dischargeStartedAt: at(-10), dischargeFinishedAt: at(-5) } },
+  });
+  expect(patched.status()).toBe(200);
+
   // Ines signs: the summary, a wrong password first (401, nothing signed), then the real one.
   await ines.waitForState(id, "Placed");
-  await ines.page.getByTestId("open-sign-off").click();
+  // One readiness checklist on the page (not again in the weather section), folded now that it is finished.
+  await expect(ines.page.getByTestId("readiness-check")).toHaveCount(1);
+  await expect(ines.page.getByTestId("checklist-readiness")).toHaveCount(0);
+  await expect(ines.page.getByTestId("readiness-check")).toHaveAttribute("data-folded", "yes");
+  await expect(ines.page.getByTestId("readiness-check-toggle")).toContainText("10 of 10 answered");
+  await ines.page.getByTestId("readiness-check-toggle").click();
+  await expect(ines.page.getByTestId("readiness-item")).toHaveCount(10);
+  await expect(ines.item("cover")).toBeVisible();
   const dialog = ines.page.getByTestId("sign-off-dialog");
-  await expect(dialog).toBeVisible();
+  // Her device pulls the corrected ticket: the trucks line carries the rulebook's mark, not a tick.
+  await expect(async () => {
+    await ines.page.goto(`/field/placement?id=${id}`);
+    await ines.page.getByTestId("open-sign-off").click();
+    await expect(dialog.getByTestId("sign-summary-trucks")).toHaveAttribute("data-tone", "caution", { timeout: 5_000 });
+  }).toPass({ timeout: 60_000 });
   await expect(dialog.getByTestId("sign-summary-trucks")).toContainText("1 truck");
+  // "0 specimen sets" on a structural mix is never ticked (lib/checks/sampling.ts).
+  await expect(dialog.getByTestId("sign-summary-tests")).toContainText("0 specimen sets");
+  await expect(dialog.getByTestId("sign-summary-tests")).toHaveAttribute("data-tone", "caution");
   await expect(dialog.getByTestId("sign-summary-open")).toContainText("none on this device");
+  // Both findings listed from the server's rulebook, each to acknowledge before Sign enables.
+  const items = dialog.getByTestId("acknowledge-item");
+  await expect(items).toHaveCount(2);
+  await expect(dialog.locator('[data-testid="acknowledge-item"][data-rule="discharge-time"]')).toContainText("95 min");
+  await expect(dialog.locator('[data-testid="acknowledge-item"][data-rule="sampling-frequency"]')).toContainText("No cylinders made");
   await expect(dialog.getByTestId("sign-off-submit")).toBeDisabled();
   await dialog.getByTestId("sign-off-password").fill("not-my-password");
   await dialog.getByTestId("sign-off-name").fill("Ines Marchetti");
@@ -123,6 +158,15 @@ test("ready → hold → fix → ready → clear → placing → placed → sign
   await bothSizes(ines, "sign-off-dialog", DESKTOP);
   await ines.drawSignature();
   await ines.shoot("sign-off-dialog-signed-desktop");
+  // The full-page shot resizes the window; with the findings listed the body's scroll bar comes and
+  // goes, the pad's width changes and it clears (as on a phone turned sideways): sign again.
+  if ((await dialog.getByTestId("sign-off-pad").getAttribute("data-empty")) === "yes") await ines.drawSignature();
+  // Password, name and signature are there; one finding still unacknowledged keeps Sign disabled.
+  await items.nth(0).getByTestId("acknowledge-check").check();
+  await expect(dialog.getByTestId("acknowledge-remaining")).toContainText("1 more finding");
+  await expect(dialog.getByTestId("sign-off-submit")).toBeDisabled();
+  await items.nth(1).getByTestId("acknowledge-check").check();
+  await expect(dialog.getByTestId("acknowledge-remaining")).toHaveCount(0);
   await dialog.getByTestId("sign-off-submit").click();
   await expect(dialog.getByTestId("sign-off-error")).toContainText("That password is not right. Nothing was signed.");
   await expect(dialog.getByTestId("sign-off-pad")).toHaveAttribute("data-empty", "no");

@@ -107,6 +107,11 @@ beforeAll(async () => {
     insert into field_tests (id, project_id, change_seq, placement_id, sampled_at, slump_mm)
     select gen_random_uuid(), p.project_id, 4000000 + n, p.id, p.planned_start + interval '40 min', case when n % 11 = 0 then 160 else 100 end
     from (select *, substr(element, 6)::int as n from placements where project_id = ${a.id}::uuid) p where n % 11 = 0 or n % 3 = 0`);
+  // Cylinders made on every placement that took concrete, so "no cylinders made" (lib/checks/sampling.ts) raises nothing here.
+  await db.execute(sql`
+    insert into specimen_sets (id, project_id, change_seq, placement_id, set_code, cylinder_diameter_mm, cylinder_length_mm, count, cast_at, test_ages_days)
+    select gen_random_uuid(), p.project_id, 5000000 + n, p.id, 'S' || n, 150, 300, 2, p.planned_start + interval '45 min', '{28}'
+    from (select *, substr(element, 6)::int as n from placements where project_id = ${a.id}::uuid) p where n % 7 = 0 or n % 5 = 0`);
   for (const r of rows.rows as { id: string; element: string; planned_start: Date | string; state: string }[]) {
     const n = Number(r.element.slice(5));
     bulk.push({

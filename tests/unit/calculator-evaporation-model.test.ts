@@ -150,3 +150,12 @@ describe("weather cautions (the rulebook's findings, lib/checks)", () => {
     expect(weatherCautions({ airTemp: 95, humidity: 30, wind: 5, concreteTemp: 95 }, "IP").tooHotConcrete).toBeNull();
   });
 });
+
+describe("the example readings are labelled as an example (issue 17 item 9)", () => {
+  it("isExample is true for the untouched example in either unit system and false once a field changes", async () => {
+    const { DEFAULT_DRAFTS, isExample } = await import("@/components/calculator/evaporation-model");
+    expect(isExample(DEFAULT_DRAFTS.IP, "IP")).toBe(true);
+    expect(isExample(DEFAULT_DRAFTS.SI, "SI")).toBe(true);
+    expect(isExample({ ...DEFAULT_DRAFTS.IP, wind: "3" }, "IP")).toBe(false);
+  });
+});

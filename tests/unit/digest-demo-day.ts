@@ -111,21 +111,25 @@ export function demoDay(projectId: string, date: string, overrides: Partial<Dige
   };
 
   // What lib/findings/load.ts reads for the rulebook: the day's records, three days of weather before
-  // it under ACI 306.1-90, and every break of a set broken that day.
+  // it under ACI 306.1-90, every break of a set broken that day, and the trucks and sets of a placement planned that day.
   function checkDay() {
     const from = project.coldWeatherDefinition === "aci306-1990" ? localDayRange(addDays(date, -3), project.timeZone).start : start;
     const within = (type: Parameters<typeof all.get>[0], field: string, since = start) =>
       mine(type).map(v).filter((x) => x[field] instanceof Date && (x[field] as Date) >= since && (x[field] as Date) < end);
     const brokenSets = new Set(breaks.map((b) => b.specimenSetId));
+    // A placement planned that day is judged whole for whether cylinders were made.
+    const planned = new Set(today.map((p) => p.id));
+    const ofPlanned = (type: Parameters<typeof all.get>[0]) => mine(type).map(v).filter((x) => planned.has(x.placementId as string));
+    const dayDeliveries = within("deliveries", "arrivedAt");
     return toCheckInput({
       project: project as unknown as Values,
       mixes: mine("mix-designs").map(v),
       placements: mine("placements").map(v),
-      deliveries: within("deliveries", "arrivedAt"),
+      deliveries: [...dayDeliveries, ...ofPlanned("deliveries").filter((d) => !dayDeliveries.includes(d))],
       fieldTests: within("field-tests", "sampledAt"),
       weather: within("weather-observations", "observedAt", from),
       curing: within("curing-readings", "readAt"),
-      specimenSets: allSets.filter((s) => brokenSets.has(s.id)),
+      specimenSets: allSets.filter((s) => brokenSets.has(s.id) || planned.has(s.placementId as string)),
       breaks: mine("breaks").map(v).filter((b) => brokenSets.has(b.specimenSetId as string)).map((b) => ({ ...b, strengthMPa: computeBreak(b).strengthMPa })),
     });
   }

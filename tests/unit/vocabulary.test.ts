@@ -158,3 +158,16 @@ describe("our own plain words (issue 15, item 11)", () => {
     expect(offenders).toEqual([]);
   });
 });
+
+describe("element types read as words, never the stored code (issue 17 item 9)", () => {
+  it("every element type has a capitalised label without hyphens; an unknown code reads Other", async () => {
+    const { ELEMENT_TYPES } = await import("@/lib/records/enums");
+    const { ELEMENT_TYPE_LABELS, elementTypeLabel } = await import("@/lib/ui/vocabulary");
+    for (const t of ELEMENT_TYPES) {
+      expect(ELEMENT_TYPE_LABELS[t]).toMatch(/^[A-Z][a-z ]+$/);
+      expect(elementTypeLabel(t)).not.toContain("-");
+    }
+    expect(elementTypeLabel("elevated-slab")).toBe("Elevated slab");
+    expect(elementTypeLabel("no-such-kind")).toBe("Other");
+  });
+});

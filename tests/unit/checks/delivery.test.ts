@@ -28,7 +28,9 @@ describe("discharge time (ASTM C94 §10.7)", () => {
     const running = dischargeFinding(d, project(), t("10:47"))!;
     expect(running).toMatchObject({ rule: "discharge-elapsed", severity: "info", title: "Discharging: 47 of 90 min since batching" });
     expect(dischargeFinding(d, project(), t("11:35"))!.message).toContain("has passed and the discharge is not finished");
-    expect(evaluate(input({ deliveries: [d] }), { now: t("10:47") }).map((f) => f.rule)).toEqual(["discharge-elapsed"]);
+    // Cylinders made, so the placement itself has nothing to say (lib/checks/sampling.ts).
+    const sets = [{ id: "s1", placementId: "p1", setCode: "A", castAt: t("10:45"), cylinderDiameterMm: 150 }];
+    expect(evaluate(input({ deliveries: [d], specimenSets: sets }), { now: t("10:47") }).map((f) => f.rule)).toEqual(["discharge-elapsed"]);
   });
 
   it("a night pour: batched 23:05, discharged 00:50 the next day is 105 min, late against 90 [computed: 55 + 50 min]", () => {

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { elementTypeLabel } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { PrintButton } from "@/components/signoff/print-button";
@@ -102,7 +103,7 @@ export default async function PlacementPrintPage({ params }: { params: Promise<{
         </p>
         <h1 className="text-2xl font-bold">{s(p.element)}</h1>
         <p className="text-base">
-          {[s(p.level), s(p.grid)].filter(Boolean).join(" · ") || "—"} · {s(p.elementType).replace(/-/g, " ")} · mix {mixCode ?? "not chosen"} · planned{" "}
+          {[s(p.level), s(p.grid)].filter(Boolean).join(" · ") || "—"} · {elementTypeLabel(p.elementType).toLowerCase()} · mix {mixCode ?? "not chosen"} · planned{" "}
           {n(p.plannedVolumeM3) !== null ? formatVolume(n(p.plannedVolumeM3)!, units) : "—"}
           {n(p.leastDimensionMm) !== null ? ` · least dimension ${formatLength(n(p.leastDimensionMm)!, units)}` : ""} · start {when(p.plannedStart, tz)}
         </p>

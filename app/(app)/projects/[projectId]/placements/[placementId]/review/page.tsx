@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { elementTypeLabel } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StoredPhotos, type StoredPhoto } from "@/components/photos/stored-photos";
@@ -79,7 +80,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
           items={[
             ["State", <span key="s" className="inline-flex flex-wrap items-center gap-2"><StateBadge kind="placement" code={p.state as string} testId="placement-state" />{p.state === "held" && p.holdReason ? <span className="font-semibold" data-testid="placement-hold-reason">{p.holdReason as string}</span> : null}</span>],
             ["Planned start", dayTime.format(new Date(p.plannedStart as string))],
-            ["Element type", p.elementType as string],
+            ["Element type", elementTypeLabel(p.elementType)],
             ["Least dimension", num(p.leastDimensionMm) === null ? "—" : formatLength(num(p.leastDimensionMm)!, units)],
             [
               "Ordered",
