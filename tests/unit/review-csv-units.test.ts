@@ -6,7 +6,7 @@ import { describe, expect, it } from "vitest";
 import { formatVolume, formatWaterVolume } from "@/lib/concrete";
 import { PLACEMENT_MEASURES } from "@/lib/review/columns";
 import { placementsCsv } from "@/lib/review/csv";
-import type { PlacementReviewRow } from "@/lib/review/query";
+import type { PlacementReviewRow } from "@/lib/review/query-schemas";
 
 const YD3_M3 = 0.764554857984;
 const GAL_L = 3.785411784;
