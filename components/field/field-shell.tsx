@@ -10,8 +10,8 @@ import { RECONCILE_WORDS } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { useCallback, useEffect, useMemo, useState } from "react";
-import { LogoMark } from "@/components/brand/logo-mark";
 import { ContrastToggle } from "@/components/shell/contrast-toggle";
+import { BrandLink } from "@/components/shell/brand-link";
 import { SyncStatus } from "@/components/shell/sync-status";
 import { UserMenu } from "@/components/shell/user-menu";
 import { SyncProvider, useOfflineIdentity } from "@/lib/sync/client/react";
@@ -105,10 +105,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
         <div className="flex min-h-dvh flex-col">
           <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
             <div className="mx-auto flex max-w-5xl items-center gap-2 px-3 py-2">
-              <Link href="/field/today" className="flex shrink-0 items-center gap-2" aria-label="Placewright, today">
-                <LogoMark className="h-9 w-9" />
-                <span className="hidden text-lg font-bold tracking-tight sm:inline">Placewright</span>
-              </Link>
+              <BrandLink href="/field/today" className="shrink-0" />
               {identity ? <ProjectPicker value={selectedProjectId} onChange={selectProject} /> : null}
               <div className="ml-auto flex items-center gap-1">
                 <SyncStatus />

@@ -4,9 +4,9 @@ import clsx from "clsx";
 import { CalendarDays, FlaskConical, FolderKanban, Gauge, HardHat, ShieldCheck, TableProperties } from "lucide-react";
 import Link from "next/link";
 import { usePathname } from "next/navigation";
-import { LogoMark } from "@/components/brand/logo-mark";
 import { SyncProvider } from "@/lib/sync/client/react";
 import type { UserProject } from "@/lib/users/queries";
+import { BrandLink } from "./brand-link";
 import { ContrastToggle } from "./contrast-toggle";
 import { ProjectSwitcher } from "./project-switcher";
 import { SyncStatus } from "./sync-status";
@@ -47,10 +47,7 @@ export function AppShell({ user, projects, children }: { user: ShellUser; projec
       <div className="flex min-h-dvh flex-col">
         <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
           <div className="mx-auto flex max-w-7xl items-center gap-3 px-3 py-2 lg:px-6">
-            <Link href="/today" className="flex items-center gap-2" aria-label="Placewright, today">
-              <LogoMark className="h-9 w-9" />
-              <span className="hidden text-lg font-bold tracking-tight sm:inline">Placewright</span>
-            </Link>
+            <BrandLink href="/today" />
             <ProjectSwitcher projects={projects} />
             <nav aria-label="Main" className="ml-2 hidden items-center gap-1 md:flex">
               {nav.map(({ href, label }) => (
