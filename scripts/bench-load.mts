@@ -125,8 +125,8 @@ function pushBody(d: Device) {
   return JSON.stringify({ clientId: d.clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations });
 }
 
-type Figures = { route: string; requests: number; perSecond: number; errors: number; p50: number; p95: number; p99: number };
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
+type Figures = { route: string; requests: number; perSecond: number; errors: number; p50: number; p95: number; p99: number; cannonP50: number; cannonP99: number };
+const percentile = (sorted: number[], p: number) => Math.round(sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN);
 
 type Request = { method: "GET" | "POST"; path: string; headers?: Record<string, string>; body?: string; device?: Device };
 
@@ -172,6 +172,9 @@ function run(route: string, duration: number, next: () => Request) {
           p50: percentile(sorted, 50),
           p95: percentile(sorted, 95),
           p99: percentile(sorted, 99),
+          // autocannon's own histogram, as a cross-check of the per-response times.
+          cannonP50: result.latency.p50,
+          cannonP99: result.latency.p99,
         });
       },
     );
@@ -216,9 +219,9 @@ try {
 
   const rows = [health, emptyPull, push, pull];
   console.log(`\nbench:load · ${devicesCount} devices · ${connections} connections per run · two instances behind a round-robin proxy · one PostgreSQL`);
-  console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"req/s".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)}`);
+  console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"req/s".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)} ${"ac p50".padStart(7)} ${"ac p99".padStart(7)}`);
   for (const r of rows) {
-    console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.perSecond.toFixed(1).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)}`);
+    console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.perSecond.toFixed(1).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)} ${String(r.cannonP50).padStart(7)} ${String(r.cannonP99).padStart(7)}`);
   }
   console.log(`\nempty incremental pull ÷ health route (requests/s): ${(emptyPull.perSecond / health.perSecond).toFixed(2)} (target ≥ 0.5)`);
   console.log(`errors in all: ${rows.reduce((n, r) => n + r.errors, 0)} (target 0); p99 pull ${pull.p99} ms (target ≤ 150), push ${push.p99} ms (target ≤ 300)`);
