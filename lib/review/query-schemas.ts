@@ -65,6 +65,14 @@ const format = z.enum(["json", "csv"], { error: "Format must be json or csv" }).
 /** CSV only: the chosen columns, in order (checked against the column list by the export). */
 const columns = csv("Columns").refine((keys) => keys.length <= 30, { message: "Too many columns" });
 
+/** A comma-separated list of states, each one of `states`. */
+const statesOf = <S extends string>(states: readonly S[]) =>
+  csv("State")
+    .refine((values) => values.every((v) => (states as readonly string[]).includes(v)), {
+      message: `State must be one or more of: ${states.join(", ")}`,
+    })
+    .transform((values) => values as S[]);
+
 const ordered = <T extends { from?: string; to?: string }>(q: T) => !q.from || !q.to || q.from <= q.to;
 const orderMessage = { message: "The start date must not be after the end date", path: ["from"] };
 
@@ -73,12 +81,7 @@ export const placementListQuery = z
     projects: projectsParam.optional(),
     from: day("From").optional(),
     to: day("To").optional(),
-    state: csv("State")
-      .refine((states) => states.every((s) => (PLACEMENT_STATES as readonly string[]).includes(s)), {
-        message: `State must be one or more of: ${PLACEMENT_STATES.join(", ")}`,
-      })
-      .transform((states) => states as (typeof PLACEMENT_STATES)[number][])
-      .optional(),
+    state: statesOf(PLACEMENT_STATES).optional(),
     hasWarnings: flag("Has warnings").optional(),
     sort: z.enum(PLACEMENT_SORTS, { error: `Sort must be one of: ${PLACEMENT_SORTS.join(", ")}` }).default("date"),
     dir: dir.default("desc"),
@@ -98,12 +101,7 @@ export const diaryListQuery = z
     projects: projectsParam.optional(),
     from: day("From").optional(),
     to: day("To").optional(),
-    state: csv("State")
-      .refine((states) => states.every((s) => (DIARY_STATES as readonly string[]).includes(s)), {
-        message: `State must be one or more of: ${DIARY_STATES.join(", ")}`,
-      })
-      .transform((states) => states as DiaryState[])
-      .optional(),
+    state: statesOf(DIARY_STATES).optional(),
     sort: z.enum(DIARY_SORTS, { error: `Sort must be one of: ${DIARY_SORTS.join(", ")}` }).default("date"),
     dir: dir.default("desc"),
     page,
