@@ -35,7 +35,10 @@ const children = ports.map((p, i) => {
 
 const targets = ports.map((p) => `http://127.0.0.1:${p}`);
 let next = 0;
-const proxy = httpProxy.createProxyServer({ xfwd: true, proxyTimeout: 120_000 });
+// Without an agent http-proxy asks each instance to close the connection after every answer, and
+// passes that "connection: close" on to the client: a new TCP connection per request on both sides.
+const upstreamAgent = new http.Agent({ keepAlive: true, maxSockets: 256 });
+const proxy = httpProxy.createProxyServer({ xfwd: true, proxyTimeout: 120_000, agent: upstreamAgent });
 
 function readBody(req) {
   return new Promise((resolve, reject) => {
