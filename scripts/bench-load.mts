@@ -125,7 +125,7 @@ function pushBody(d: Device) {
   return JSON.stringify({ clientId: d.clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations });
 }
 
-type Figures = { route: string; requests: number; perSecond: number; errors: number; p50: number; p95: number; p99: number; cannonP50: number; cannonP99: number };
+type Figures = { reasons: Map<string, number>; route: string; requests: number; seconds: number; meanMs: number; perSecond: number; errors: number; p50: number; p95: number; p99: number; cannonP50: number; cannonP99: number };
 const percentile = (sorted: number[], p: number) => Math.round(sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN);
 
 type Request = { method: "GET" | "POST"; path: string; headers?: Record<string, string>; body?: string; device?: Device };
@@ -138,6 +138,10 @@ function run(route: string, duration: number, next: () => Request) {
   return new Promise<Figures>((resolve, reject) => {
     const times: number[] = [];
     let errors = 0;
+    const started = performance.now();
+    // Why requests failed: a status, a refused change's reason and message, a timeout.
+    const reasons = new Map<string, number>();
+    const tally = (why: string) => reasons.set(why, (reasons.get(why) ?? 0) + 1);
     const instance = autocannon(
       {
         url: base,
@@ -154,9 +158,11 @@ function run(route: string, duration: number, next: () => Request) {
             onResponse: (status, body, context) => {
               const device = (context as { device?: Device }).device;
               if (status !== 200 || !device) return;
-              const answer = JSON.parse(body) as { cursor?: Record<string, number>; results?: { result: string }[] };
+              const answer = JSON.parse(body) as { cursor?: Record<string, number>; results?: { result: string; reason?: string; message?: string }[] };
               if (answer.cursor) device.cursor = answer.cursor;
-              errors += answer.results?.filter((r) => r.result !== "applied").length ? 1 : 0;
+              const refused = answer.results?.filter((r) => r.result !== "applied") ?? [];
+              for (const r of refused) tally(`change ${r.result} (${r.reason}): ${r.message}`);
+              errors += refused.length ? 1 : 0;
             },
           },
         ],
@@ -164,10 +170,16 @@ function run(route: string, duration: number, next: () => Request) {
       (error, result) => {
         if (error) return reject(error);
         const sorted = times.sort((a, b) => a - b);
+        // The rate over the run's measured wall-clock time, not the asked duration.
+        const elapsedSeconds = (performance.now() - started) / 1000;
+        if (result.timeouts) reasons.set(`timed out after 10 s`, result.timeouts);
         resolve({
+          reasons,
           route,
           requests: sorted.length,
-          perSecond: sorted.length / duration,
+          seconds: elapsedSeconds,
+          meanMs: sorted.reduce((a, b) => a + b, 0) / Math.max(1, sorted.length),
+          perSecond: sorted.length / elapsedSeconds,
           errors: errors + result.errors + result.timeouts,
           p50: percentile(sorted, 50),
           p95: percentile(sorted, 95),
@@ -180,7 +192,10 @@ function run(route: string, duration: number, next: () => Request) {
     );
     instance.on("response", (_client, statusCode, _bytes, responseTime) => {
       times.push(responseTime);
-      if (statusCode < 200 || statusCode >= 300) errors += 1;
+      if (statusCode < 200 || statusCode >= 300) {
+        errors += 1;
+        tally(`HTTP ${statusCode}`);
+      }
     });
   });
 }
@@ -219,10 +234,11 @@ try {
 
   const rows = [health, emptyPull, push, pull];
   console.log(`\nbench:load · ${devicesCount} devices · ${connections} connections per run · two instances behind a round-robin proxy · one PostgreSQL`);
-  console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"req/s".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)} ${"ac p50".padStart(7)} ${"ac p99".padStart(7)}`);
+  console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"s".padStart(6)} ${"req/s".padStart(8)} ${"mean ms".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)} ${"ac p50".padStart(7)} ${"ac p99".padStart(7)}`);
   for (const r of rows) {
-    console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.perSecond.toFixed(1).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)} ${String(r.cannonP50).padStart(7)} ${String(r.cannonP99).padStart(7)}`);
+    console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.seconds.toFixed(1).padStart(6)} ${r.perSecond.toFixed(1).padStart(8)} ${r.meanMs.toFixed(0).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)} ${String(r.cannonP50).padStart(7)} ${String(r.cannonP99).padStart(7)}`);
   }
+  for (const r of rows) for (const [why, count] of r.reasons) console.log(`  ${r.route}: ${count} × ${why}`);
   console.log(`\nempty incremental pull ÷ health route (requests/s): ${(emptyPull.perSecond / health.perSecond).toFixed(2)} (target ≥ 0.5)`);
   console.log(`errors in all: ${rows.reduce((n, r) => n + r.errors, 0)} (target 0); p99 pull ${pull.p99} ms (target ≤ 150), push ${push.p99} ms (target ≤ 300)`);
 } catch (error) {
