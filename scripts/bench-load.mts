@@ -1,4 +1,4 @@
-// npm run bench:load [-- --devices=200 --seconds=60 --connections=50] [--force]
+// npm run bench:load [-- --devices=200 --projects=20 --seconds=60 --connections=50] [--force]
 // The sync routes under load on two app instances (scripts/serve-pair.mjs: a round-robin proxy in
 // front of two `serve.mjs` processes) sharing one PostgreSQL, beside a baseline measured in the same
 // run, with autocannon. Needs a production build (`npm run build`) and the app's environment
@@ -7,7 +7,7 @@
 // 1. baseline: GET /api/health (one query) with --connections connections;
 // 2. empty incremental pull: POST /api/sync/pull from --devices signed-in devices whose cursor is
 //    current, so there is nothing new: the cost of asking;
-// 3. devices at work: each device in turn pushes 20 new deliveries (POST /api/sync/push) and pulls,
+// 3. devices at work: each device in turn pushes 20 new deliveries to its project (POST /api/sync/push) and pulls,
 //    push and pull traffic side by side.
 // It prints requests/s, errors (non-2xx, socket errors, timeouts) and p50/p95/p99 per route, measured
 // from each response's own time, and the ratio of the empty pull's rate to the health route's.
@@ -25,8 +25,9 @@ const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.s
 const devicesCount = Number(option("devices") ?? 200);
 const seconds = Number(option("seconds") ?? 60);
 const connections = Number(option("connections") ?? 50);
-if (![devicesCount, seconds, connections].every((n) => Number.isInteger(n) && n >= 1) || devicesCount < connections) {
-  console.error("--devices, --seconds and --connections must be whole numbers of 1 or more, with at least as many devices as connections");
+const projectsCount = Number(option("projects") ?? 20);
+if (![devicesCount, seconds, connections, projectsCount].every((n) => Number.isInteger(n) && n >= 1) || devicesCount < connections || devicesCount < projectsCount) {
+  console.error("--devices, --seconds, --connections and --projects must be whole numbers of 1 or more, with at least as many devices as connections and as projects");
   process.exit(2);
 }
 const url = process.env.DATABASE_URL;
@@ -48,32 +49,43 @@ const { createRecord } = await import("../lib/records/write.ts");
 const { openSession } = await import("../lib/auth/user-sessions.ts");
 const { SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
 
-// ── Set-up: one project, one placement to pour into, and the signed-in devices ──
+// ── Set-up: the projects, one placement each to pour into, and the signed-in devices ──
+// Devices are spread over --projects projects (a firm's sites), each device a member of one: a
+// project's writes are serialised by its change counter (SYNC.md), and a day's findings are judged
+// again on every push, so --projects=1 is the worst case of every device on one slab the same day.
 const tag = randomUUID().slice(0, 8).toUpperCase();
-const [project] = await db.insert(projects).values({ name: `Bench load ${tag}`, code: `BL-${tag}`, timeZone: "America/Chicago", unitSystem: "SI" }).returning();
+const sites = await db
+  .insert(projects)
+  .values(Array.from({ length: projectsCount }, (_, i) => ({ name: `Bench load ${tag} ${i}`, code: `BL-${tag}-${i}`, timeZone: "America/Chicago", unitSystem: "SI" as const })))
+  .returning();
 const people = await db
   .insert(users)
   .values(Array.from({ length: devicesCount }, (_, i) => ({ email: `bench-${tag.toLowerCase()}-${i}@example.test`, name: `Bench ${tag} ${i}`, isAdmin: false })))
   .returning();
-await db.insert(memberships).values(people.map((u) => ({ userId: u.id, projectId: project.id, role: "superintendent" as const })));
-// The placement the trucks pour into, through the write path (its change number and audit entry).
-const { record: placement } = await createRecord({ user: { id: people[0].id, email: people[0].email, name: people[0].name, isAdmin: false } }, "placements", project.id, {
-  id: randomUUID(),
-  element: "Bench slab",
-  level: "L1",
-  grid: "A-D/1-4",
-  elementType: "elevated-slab",
-  leastDimensionMm: 250,
-  plannedVolumeM3: 60,
-  plannedStart: new Date().toISOString(),
-});
+const siteOf = (i: number) => sites[i % sites.length];
+await db.insert(memberships).values(people.map((u, i) => ({ userId: u.id, projectId: siteOf(i).id, role: "superintendent" as const })));
+// The placement the trucks pour into on each project, through the write path (its change number and audit entry).
+const placementOf = new Map<string, string>();
+for (const [i, site] of sites.entries()) {
+  const { record } = await createRecord({ user: { id: people[i].id, email: people[i].email, name: people[i].name, isAdmin: false } }, "placements", site.id, {
+    id: randomUUID(),
+    element: "Bench slab",
+    level: "L1",
+    grid: "A-D/1-4",
+    elementType: "elevated-slab",
+    leastDimensionMm: 250,
+    plannedVolumeM3: 60,
+    plannedStart: new Date().toISOString(),
+  });
+  placementOf.set(site.id, record.id);
+}
 
-type Device = { clientId: string; cookie: string; cursor: Record<string, number> | null; nextMutationId: number };
+type Device = { projectId: string; clientId: string; cookie: string; cursor: Record<string, number> | null; nextMutationId: number };
 const devices: Device[] = [];
-for (const u of people) {
+for (const [i, u] of people.entries()) {
   const sid = await openSession(u.id, "bench-load");
   const token = await encode({ token: { sub: u.id, email: u.email, name: u.name, isAdmin: false, sid }, secret });
-  devices.push({ clientId: randomUUID(), cookie: `next-auth.session-token=${token}`, cursor: null, nextMutationId: 1 });
+  devices.push({ projectId: siteOf(i).id, clientId: randomUUID(), cookie: `next-auth.session-token=${token}`, cursor: null, nextMutationId: 1 });
 }
 
 // ── Two instances behind the proxy ──
@@ -109,11 +121,11 @@ function pushBody(d: Device) {
       id: d.nextMutationId++,
       name: "create",
       recordType: "deliveries",
-      projectId: project.id,
+      projectId: d.projectId,
       recordId: id,
       args: {
         id,
-        placementId: placement.id,
+        placementId: placementOf.get(d.projectId),
         ticketNumber: `BL-${id.slice(0, 8)}`,
         truck: "B-17",
         volumeM3: 8,
@@ -233,7 +245,7 @@ try {
   ]);
 
   const rows = [health, emptyPull, push, pull];
-  console.log(`\nbench:load · ${devicesCount} devices · ${connections} connections per run · two instances behind a round-robin proxy · one PostgreSQL`);
+  console.log(`\nbench:load · ${devicesCount} devices on ${projectsCount} project(s) · ${connections} connections per run · two instances behind a round-robin proxy · one PostgreSQL`);
   console.log(`${"route".padEnd(38)} ${"req".padStart(7)} ${"s".padStart(6)} ${"req/s".padStart(8)} ${"mean ms".padStart(8)} ${"errors".padStart(7)} ${"p50 ms".padStart(7)} ${"p95 ms".padStart(7)} ${"p99 ms".padStart(7)} ${"ac p50".padStart(7)} ${"ac p99".padStart(7)}`);
   for (const r of rows) {
     console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.seconds.toFixed(1).padStart(6)} ${r.perSecond.toFixed(1).padStart(8)} ${r.meanMs.toFixed(0).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)} ${String(r.cannonP50).padStart(7)} ${String(r.cannonP99).padStart(7)}`);
@@ -247,7 +259,7 @@ try {
 } finally {
   pair.kill("SIGTERM");
   await new Promise((r) => pair.once("exit", r));
-  await deleteBenchRows(db, [project.id], people.map((u) => u.id));
+  await deleteBenchRows(db, sites.map((p) => p.id), people.map((u) => u.id));
   await closeDb();
 }
 process.exit(exitCode);
