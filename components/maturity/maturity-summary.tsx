@@ -29,8 +29,8 @@ export function MaturitySummary({
   const coldest = assessment.coldest;
   return (
     <div className="flex flex-col gap-3" data-testid="maturity-summary">
-      <dl className="grid gap-x-4 gap-y-2 sm:grid-cols-2">
-        <div>
+      <div className="grid gap-x-4 gap-y-2 sm:grid-cols-2">
+        <dl>
           <dt className="text-sm text-muted">Estimated strength now{coldest ? ` (coldest: ${coldest.name})` : ""}</dt>
           <dd className="text-xl font-bold text-ink-950" data-testid="maturity-estimate">{estimateText(view, units)}</dd>
           {coldest && coldest.maturity !== null ? (
@@ -38,7 +38,7 @@ export function MaturitySummary({
               Maturity {Math.round(coldest.maturity).toLocaleString("en-US")} {view.unit} at its last reading
             </dd>
           ) : null}
-        </div>
+        </dl>
         <div>
           <label className="text-sm text-muted" htmlFor="maturity-target">
             Target strength ({unitLabel("strength", units)})
@@ -53,7 +53,7 @@ export function MaturitySummary({
           />
           <p className="mt-1 font-semibold text-ink-950" data-testid="maturity-target">{targetText(view, timeZone)}</p>
         </div>
-      </dl>
+      </div>
       {calibration?.ok ? (
         <p className="text-sm text-muted" data-testid="maturity-calibration">
           Calibration: {calibration.points.length} ages up to {formatStrength(calibration.maxStrengthMPa, units)}, S = {calibration.fit.a.toFixed(1)} + {calibration.fit.b.toFixed(2)}·log₁₀(M) in MPa,

@@ -25,6 +25,8 @@ export function UserMenu({ user, offline = false }: { user: ShellUser; offline?:
         type="button"
         aria-expanded={open}
         aria-haspopup="menu"
+        // On a phone the name is hidden: the button still says whose menu it is.
+        aria-label={`Account menu: ${user.name}`}
         onClick={() => setOpen((o) => !o)}
         data-testid="user-menu"
         className="inline-flex min-h-11 min-w-11 items-center justify-center gap-2 rounded-md px-2 text-sm font-semibold text-white hover:bg-white/10"
