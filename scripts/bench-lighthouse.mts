@@ -55,6 +55,15 @@ try {
     const score = (key: string) => Math.round((c?.[key]?.score ?? 0) * 100);
     const ok = score("performance") >= 95 && score("accessibility") === 100;
     console.log(`${name.padEnd(20)} ${String(score("performance")).padStart(5)} ${String(score("accessibility")).padStart(5)} ${String(score("best-practices")).padStart(5)}  ${ok ? "ok" : "below"}`);
+    // What an accessibility score below 100 is made of: each failed audit and the elements it names.
+    const audits = result?.lhr.audits ?? {};
+    for (const ref of c?.accessibility?.auditRefs ?? []) {
+      const audit = audits[ref.id];
+      if (!audit || ref.weight === 0 || audit.score === null || audit.score === 1) continue;
+      const items = ((audit.details as { items?: { node?: { snippet?: string; nodeLabel?: string } }[] } | undefined)?.items ?? []).slice(0, 3);
+      console.log(`    a11y: ${audit.id}: ${audit.title}`);
+      for (const item of items) console.log(`      ${item.node?.nodeLabel ?? ""} ${item.node?.snippet?.slice(0, 140) ?? ""}`);
+    }
   }
 } finally {
   await browser.close();
