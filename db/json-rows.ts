@@ -54,9 +54,17 @@ export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows
  */
 export function decodeRow<T extends PgTable>(table: T, raw: Record<string, unknown>): T["$inferSelect"] {
   const row: Record<string, unknown> = {};
-  for (const [key, column] of Object.entries(getTableColumns(table) as Record<string, Column>)) {
+  for (const [key, column] of columnsOf(table)) {
     const value = raw[column.name];
     row[key] = value === null || value === undefined ? null : column.mapFromDriverValue(value);
   }
   return row as T["$inferSelect"];
+}
+
+// A pull page decodes hundreds of rows of the same few tables: list each table's columns once.
+const columnLists = new WeakMap<PgTable, [string, Column][]>();
+function columnsOf(table: PgTable): [string, Column][] {
+  let list = columnLists.get(table);
+  if (!list) columnLists.set(table, (list = Object.entries(getTableColumns(table) as Record<string, Column>)));
+  return list;
 }
