@@ -4,6 +4,7 @@
 // sampling-frequency: ACI 318-19 §26.12.2.1 [memory: clause number], strength samples at least once a
 // day for each class of concrete; the small-quantity waiver is the building official's [memory].
 import { describe, expect, it } from "vitest";
+import { toCheckInput } from "@/lib/checks";
 import { mixCodeFinding } from "@/lib/checks/delivery";
 import { samplingFindings } from "@/lib/checks/sampling";
 import { GOVERNS } from "@/lib/checks/types";
@@ -38,6 +39,16 @@ describe("mix-code: the ticket's mix against the placement's [ASTM C94 §14; com
 
   it("an empty code is no code", () => {
     expect(mixCodeFinding(delivery({ mixCode: "" }), planned)).toBeNull();
+  });
+
+  it("a stored ticket's code is read trimmed; blank or missing is no code", () => {
+    const iso = "2026-07-14T15:35:00.000Z";
+    const codeOf = (mixCode: unknown) =>
+      toCheckInput({ project: {}, mixes: [], placements: [], deliveries: [{ id: "d1", batchedAt: iso, arrivedAt: iso, mixCode }] }).deliveries[0].mixCode;
+    expect(codeOf("  LC-5000-B ")).toBe("LC-5000-B");
+    expect(codeOf("   ")).toBeNull();
+    expect(codeOf(null)).toBeNull();
+    expect(codeOf(42)).toBeNull();
   });
 });
 
