@@ -9,7 +9,7 @@ import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { FindingNotice } from "@/components/findings/finding-notice";
-import { curingMinimumC } from "@/lib/checks/cold-weather";
+import { coldWeatherCautions, curingMinimumC } from "@/lib/checks/cold-weather";
 import { formatLength, formatTemperature } from "@/lib/concrete";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
@@ -121,7 +121,10 @@ export function CuringLog({ placement, project, checks }: { placement: LocalReco
         })}
       </ul>
       {cold.length === 0 ? (
-        <p className="mt-3 text-sm text-muted">In cold weather, vent combustion heaters outside: their exhaust carries carbon monoxide.</p>
+        // The rulebook's heater caution (lib/checks), the words the cold-weather finding carries.
+        <p className="mt-3 text-sm text-muted" data-testid="curing-heater-caution">
+          <span className="font-medium">In cold weather:</span> {coldWeatherCautions(units)[0]}
+        </p>
       ) : null}
     </Section>
   );

@@ -1,4 +1,6 @@
-// Cold- and hot-weather temperature limits (ACI 306R / 306.1, ACI 305.1, ACI 301).
+// Cold-weather temperature limits (ACI 306R / 306.1): the minimum by section, the definition of cold
+// weather and the protection period. The temperature at discharge is in ./discharge-temperature.ts.
+// The cautions that go with cold-weather work are the rulebook's (lib/checks/cold-weather.ts).
 import { ConcreteInputError, assertFinite, assertPositive } from "./errors";
 import { cToF, fToC, formatTemperature, mmToIn, type UnitSystem } from "./units";
 
@@ -120,8 +122,9 @@ export function isColdWeather(input: ColdWeatherInput): ColdWeatherResult {
     let run = 0;
     let warmDayBroke = false;
     for (let i = days.length - 1; i >= 0; i--) {
-      const warmHours = input.dailyWarmHours?.[i] ?? null;
-      if (warmHours !== null && warmHours > WARM_HOURS_LIMIT) {
+      // Hours not known count as none: only a day known to be warm breaks the run.
+      const warmHours = input.dailyWarmHours?.[i] ?? 0;
+      if (warmHours > WARM_HOURS_LIMIT) {
         warmDayBroke = true;
         break;
       }
@@ -146,12 +149,14 @@ export function isColdWeather(input: ColdWeatherInput): ColdWeatherResult {
     throw new ConcreteInputError("forecastMinAirTempC", "Enter an observed or forecast air temperature");
   }
   // "Has fallen to, or is expected to fall below": reaching the limit counts once observed.
-  const lowestObserved = observed.length > 0 ? Math.min(...observed) : undefined;
-  if (lowestObserved !== undefined && inUnits(lowestObserved, unitSystem) <= limit) {
+  // With nothing observed (or no forecast) the lowest is +∞, which is below no limit.
+  const lowestObserved = Math.min(...observed);
+  if (inUnits(lowestObserved, unitSystem) <= limit) {
     return { cold: true, limit, reason: `Air temperature fell to ${show(lowestObserved)}, at or below ${limitText}` };
   }
-  if (forecast !== undefined && inUnits(forecast, unitSystem) < limit) {
-    return { cold: true, limit, reason: `Air temperature is forecast to fall to ${show(forecast)}, below ${limitText}` };
+  const forecastLow = forecast ?? Number.POSITIVE_INFINITY;
+  if (inUnits(forecastLow, unitSystem) < limit) {
+    return { cold: true, limit, reason: `Air temperature is forecast to fall to ${show(forecastLow)}, below ${limitText}` };
   }
   return { cold: false, limit, reason: `Air temperature stays above ${limitText} during the protection period` };
 }
@@ -167,7 +172,9 @@ export function hoursAbove(readings: { at: Date; tempC: number }[], limitC: numb
     const a = sorted[i - 1];
     const b = sorted[i];
     const span = (b.at.getTime() - a.at.getTime()) / 3_600_000;
-    if (span <= 0 || span > maxGapHours) continue;
+    // Sorted, so span ≥ 0; two readings at the same instant add nothing either way.
+    if (span > maxGapHours) continue;
+    // Stryker disable next-line EqualityOperator: with one end exactly at the limit, the crossing share below is the whole span too.
     if (a.tempC > limitC && b.tempC > limitC) hours += span;
     else if (a.tempC > limitC || b.tempC > limitC) {
       // The share of the interval on the warm side of the crossing.
@@ -176,56 +183,6 @@ export function hoursAbove(readings: { at: Date; tempC: number }[], limitC: numb
     }
   }
   return hours;
-}
-
-export interface DischargeTempCheck {
-  ok: boolean;
-  tooHot: boolean;
-  tooCold: boolean;
-  /** The limit the verdict refers to: the minimum when too cold, otherwise the maximum. */
-  limitC: number;
-  maxC: number;
-  minC?: number;
-  message: string;
-}
-
-// ACI 305.1-14 §3.3.1 / ACI 301: 35 °C (95 °F) maximum at discharge; minimum from ACI 306 by section.
-export function checkConcreteTempAtDischarge({
-  concreteTempC,
-  maxC = 35,
-  minC,
-  leastDimensionMm,
-  unitSystem = "SI",
-}: {
-  concreteTempC: number;
-  maxC?: number;
-  /** Pass in cold weather only; otherwise taken from leastDimensionMm when that is given. */
-  minC?: number;
-  leastDimensionMm?: number;
-  unitSystem?: UnitSystem;
-}): DischargeTempCheck {
-  assertFinite(concreteTempC, "concreteTempC", "Concrete temperature");
-  assertFinite(maxC, "maxC", "Maximum concrete temperature");
-  const minimumC =
-    minC ?? (leastDimensionMm !== undefined ? minimumConcreteTempC(leastDimensionMm, unitSystem) : undefined);
-  if (minimumC !== undefined) assertFinite(minimumC, "minC", "Minimum concrete temperature");
-  const tooHot = concreteTempC > maxC;
-  const tooCold = minimumC !== undefined && concreteTempC < minimumC;
-  const show = (tempC: number) => formatTemperature(tempC, unitSystem, 1);
-  const limitC = tooCold && minimumC !== undefined ? minimumC : maxC;
-  let message: string;
-  if (tooHot) message = `Concrete at ${show(concreteTempC)} is above the ${show(maxC)} maximum at discharge`;
-  else if (tooCold) message = `Concrete at ${show(concreteTempC)} is below the ${show(limitC)} minimum for this section`;
-  else message = `Concrete at ${show(concreteTempC)} is within the temperature limits`;
-  return {
-    ok: !tooHot && !tooCold,
-    tooHot,
-    tooCold,
-    limitC,
-    maxC,
-    ...(minimumC !== undefined ? { minC: minimumC } : {}),
-    message,
-  };
 }
 
 export type ProtectionServiceCategory =
@@ -252,29 +209,4 @@ export function protectionPeriodDays({
   if (serviceCategory === "full-load-exposed") return null;
   const [normal, accelerated] = PROTECTION_DAYS[serviceCategory];
   return acceleratedSet ? accelerated : normal;
-}
-
-const GOVERNANCE = "Project specifications, local codes and the engineer of record govern over these defaults";
-
-// ACI 306R practice and PCA cold-weather guidance [common practice]: cautions shown with cold-weather placements.
-export function coldWeatherCautions(): string[] {
-  return [
-    "Vent combustion heaters in enclosures to the outside: their exhaust carries carbon monoxide",
-    "Protect fresh concrete from freezing until it reaches about 3.5 MPa (500 psi)",
-    "Do not place concrete on frozen ground or against ice on forms or reinforcement",
-    "Remove protection gradually so the concrete does not cool faster than the allowed drop",
-    GOVERNANCE,
-  ];
-}
-
-// ACI 305R ch. 3–4 [memory] and crew safety [common practice]: cautions shown with hot-weather placements.
-export function hotWeatherCautions(): string[] {
-  return [
-    "Watch crews for heat stress: water, shade and rest breaks",
-    "Cool the materials, use a retarder and place in the cooler hours",
-    "Dampen the subgrade and forms without leaving standing water",
-    "Use windbreaks, sunshades, fogging or an evaporation reducer when evaporation is high",
-    "Start curing promptly and shade the test cylinders",
-    GOVERNANCE,
-  ];
 }

@@ -4,6 +4,7 @@ export * from "./units";
 export * from "./psychro";
 export * from "./evaporation";
 export * from "./cold-weather";
+export * from "./discharge-temperature";
 export * from "./delivery";
 export * from "./tolerance";
 export * from "./yield";

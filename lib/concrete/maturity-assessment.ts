@@ -31,7 +31,10 @@ export type MaturityAssessment = {
   reason: string | null;
 };
 
-const byTime = (a: TemperatureReading, b: TemperatureReading) => a.at.getTime() - b.at.getTime();
+// A declaration, not an arrow constant: its mutants are switched per call, which StrykerJS can test.
+function byTime(a: TemperatureReading, b: TemperatureReading): number {
+  return a.at.getTime() - b.at.getTime();
+}
 
 export function assessPlacementMaturity({
   sensors,

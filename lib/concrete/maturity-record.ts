@@ -36,8 +36,8 @@ export function timeToMaturity(
     if (hi === 0) return { status: "reached", at: series[0].at };
     const before = series[hi - 1];
     const after = series[hi];
-    const span = after.maturity - before.maturity;
-    const fraction = span === 0 ? 1 : (targetMaturity - before.maturity) / span;
+    // before < target <= after here (hi is the first point at or above it), so the span is never zero.
+    const fraction = (targetMaturity - before.maturity) / (after.maturity - before.maturity);
     const ms = before.at.getTime() + fraction * (after.at.getTime() - before.at.getTime());
     return { status: "reached", at: new Date(ms) };
   }
@@ -56,7 +56,7 @@ export type ReadingGap = { from: Date; to: Date; minutes: number; kind: "gap" | 
 
 /** The usual spacing of a record: the median interval between readings, in minutes (null under 2 readings). */
 export function loggingIntervalMinutes(times: Date[]): number | null {
-  if (times.length < 2) return null;
+  // Under two readings there is no step, so the empty case below answers null.
   const steps = times
     .slice(1)
     .map((t, i) => (t.getTime() - times[i].getTime()) / MS_PER_MINUTE)

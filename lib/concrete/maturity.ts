@@ -51,7 +51,9 @@ export const DEFAULT_MATURITY_SETTINGS: MaturitySettings = {
 };
 
 /** The unit of the maturity index a method gives. */
-export const maturityUnit = (method: MaturityMethod): string => (method === "nurse-saul" ? "°C·h" : "h");
+export function maturityUnit(method: MaturityMethod): string {
+  return method === "nurse-saul" ? "°C·h" : "h";
+}
 
 // The index gained over one interval: C1074 Nurse-Saul (°C·h) or Arrhenius equivalent age (h at Ts).
 function intervalGain(hours: number, meanC: number, settings: MaturitySettings): number {
@@ -141,6 +143,7 @@ export function fitLogStrengthMaturity(points: { maturity: number; strength: num
   let syy = 0;
   xs.forEach((x, i) => {
     sxx += (x - meanX) ** 2;
+    // Stryker disable next-line ArithmeticOperator: Σ(x ∓ x̄)(y − ȳ) and Σ(x − x̄)(y ∓ ȳ) are equal, since Σ(x − x̄) = Σ(y − ȳ) = 0.
     sxy += (x - meanX) * (ys[i] - meanY);
     syy += (ys[i] - meanY) ** 2;
   });

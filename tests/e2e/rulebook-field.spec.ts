@@ -82,6 +82,11 @@ test("an inch-pound project's field screens judge by the rulebook, offline, and 
   await expect(rows.filter({ hasText: "54 °F" }).getByTestId("curing-verdict")).toHaveAttribute("data-ok", "no");
   await expect(rows.filter({ hasText: "54 °F" }).getByTestId("curing-finding")).toContainText("minimum 55 °F");
 
+  // No cold weather on this day: the curing log still shows the rulebook's heater caution, in its words.
+  await expect(page.getByTestId("curing-heater-caution")).toContainText(
+    "In cold weather: Vent combustion heaters in enclosures to the outside: their exhaust carries carbon monoxide.",
+  );
+
   // A truck with only the discharge start: minutes against the limit, no "in time" verdict.
   await placement.addTruck({ ticket: `T-${stamp}`, volume: "9" });
   const truck = page.locator(`[data-testid="delivery-row"][data-ticket="T-${stamp}"]`);

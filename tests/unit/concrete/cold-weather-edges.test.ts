@@ -1,11 +1,7 @@
-// Branches of the cold-weather definitions and the discharge-temperature check that the main
-// file does not reach: observed-only readings, the reasons' wording, limits at their edge.
+// Branches of the cold-weather definitions that the main file does not reach: observed-only readings, the reasons' wording, limits at their edge.
 import { describe, it, expect } from "vitest";
 
 import {
-  checkConcreteTempAtDischarge,
-  coldWeatherCautions,
-  hotWeatherCautions,
   hoursAbove,
   isColdWeather,
 } from "../../../lib/concrete/cold-weather";
@@ -71,49 +67,5 @@ describe("hoursAbove: straight lines between readings [computed by hand]", () =>
     expect(hoursAbove(pair(3), 10)).toBe(3);
     expect(hoursAbove(pair(3.5), 10)).toBe(0);
     expect(hoursAbove(pair(3.5), 10, 4)).toBe(3.5);
-  });
-});
-
-describe("checkConcreteTempAtDischarge", () => {
-  it("accepts concrete exactly at the section minimum and says it is within the limits [src: ACI 306.1 Table 3.1, minimum as placed]", () => {
-    const result = checkConcreteTempAtDischarge({ concreteTempC: 13, leastDimensionMm: 250 });
-    expect(result).toMatchObject({ ok: true, tooCold: false, tooHot: false, limitC: 35, minC: 13 });
-    expect(result.message).toBe("Concrete at 13.0 °C is within the temperature limits");
-  });
-
-  it("names the section minimum when too cold [src: ACI 306.1 Table 3.1]", () => {
-    const result = checkConcreteTempAtDischarge({ concreteTempC: 11, leastDimensionMm: 250 });
-    expect(result.message).toBe("Concrete at 11.0 °C is below the 13.0 °C minimum for this section");
-  });
-
-  it("refers to the maximum when the concrete is not too cold, and has no minimum unless one applies [src: ACI 305.1-14 §3.3.1]", () => {
-    const thick = checkConcreteTempAtDischarge({ concreteTempC: 11, leastDimensionMm: 600 });
-    expect(thick).toMatchObject({ ok: true, limitC: 35, minC: 10 });
-    const warm = checkConcreteTempAtDischarge({ concreteTempC: 20 });
-    expect("minC" in warm).toBe(false);
-    expect(warm.limitC).toBe(35);
-  });
-});
-
-describe("cautions say what to do", () => {
-  it("cold weather: no concrete on frozen ground or ice, remove protection gradually [memory: ACI 306R; common practice]", () => {
-    const cautions = coldWeatherCautions();
-    expect(cautions).toHaveLength(5);
-    expect(cautions[0]).toMatch(/Vent combustion heaters.*carbon monoxide/);
-    expect(cautions[1]).toMatch(/freezing until it reaches about 3\.5 MPa \(500 psi\)/);
-    expect(cautions[2]).toMatch(/frozen ground or against ice/);
-    expect(cautions[3]).toMatch(/Remove protection gradually/);
-    expect(cautions[4]).toMatch(/engineer of record govern/);
-  });
-
-  it("hot weather: heat stress, cool materials, damp subgrade, wind and sun protection, prompt curing [memory: ACI 305R ch. 3–4; common practice]", () => {
-    const cautions = hotWeatherCautions();
-    expect(cautions).toHaveLength(6);
-    expect(cautions[0]).toMatch(/heat stress: water, shade and rest breaks/);
-    expect(cautions[1]).toMatch(/Cool the materials, use a retarder and place in the cooler hours/);
-    expect(cautions[2]).toMatch(/Dampen the subgrade and forms without leaving standing water/);
-    expect(cautions[3]).toMatch(/windbreaks, sunshades, fogging or an evaporation reducer/);
-    expect(cautions[4]).toMatch(/curing promptly and shade the test cylinders/);
-    expect(cautions[5]).toMatch(/engineer of record govern/);
   });
 });

@@ -70,6 +70,20 @@ describe("calibrateFromBreaks (ASTM C1074 strength–maturity relationship)", ()
     expect(!cal.ok && cal.reason).toBe("The mix has breaks at 3 ages; a maturity calibration needs at least 4.");
   });
 
+  it("one age is '1 age'; ages entered out of order come back in order, with the highest mean strength [computed by hand]", () => {
+    const one = calibrateFromBreaks([{ ageDays: 7, strengthMPa: 20 }]);
+    expect(!one.ok && one.reason).toBe("The mix has breaks at 1 age; a maturity calibration needs at least 4.");
+    const cal = calibrateFromBreaks([...exact].reverse());
+    expect(cal.points.map((p) => p.ageDays)).toEqual([1, 3, 7, 14, 28]);
+    // The 28-day mean lies on the curve: −45 + 20·log10(15 456) = 38.78 MPa.
+    expect(cal.ok && cal.maxStrengthMPa).toBeCloseTo(a + b * Math.log10(15_456), 9);
+  });
+
+  it("equal strengths at every age (b = 0) do not calibrate: strength must rise with maturity", () => {
+    const flat = calibrateFromBreaks(ages.map((ageDays) => ({ ageDays, strengthMPa: 25 })));
+    expect(flat).toMatchObject({ ok: false, reason: "Strength does not rise with maturity in these breaks, so they cannot calibrate the mix." });
+  });
+
   it("refuses breaks that do not gain strength, and a bad age by name", () => {
     const flat = calibrateFromBreaks(ages.map((ageDays) => ({ ageDays, strengthMPa: 30 - ageDays / 10 })));
     expect(flat.ok).toBe(false);
@@ -98,6 +112,15 @@ describe("estimates never leave the calibrated range (ASTM C1074)", () => {
     const e = estimateWithinCalibration(fit, 100);
     expect(e.status).toBe("below-range");
     expect(e.status === "below-range" && e.belowMPa).toBeCloseTo(27.474, 3);
+  });
+
+  it("exactly at the ends of the calibrated range is an estimate, not out of range [computed by hand]", () => {
+    expect(estimateWithinCalibration(fit, 500)).toEqual({ status: "estimate", strengthMPa: -40 + 25 * Math.log10(500) });
+    expect(estimateWithinCalibration(fit, 10_000)).toEqual({ status: "estimate", strengthMPa: 60 });
+  });
+
+  it("a flat curve (b = 0) has no inverse: refused as input", () => {
+    expect(() => maturityForStrength({ ...fit, b: 0 }, 30)).toThrow("The calibration curve must rise with maturity");
   });
 
   it("inverts the curve for a target: 35 MPa → M = 1000 [computed by hand]", () => {

@@ -78,6 +78,21 @@ describe("timeToMaturity: interpolation inside the record, prediction after it",
     expect(s.at(-1)!.maturity).toBeCloseTo(42.13, 2);
   });
 
+  it("a target equal to the last point's maturity is reached at that reading, not predicted", () => {
+    expect(timeToMaturity(series, 300)).toEqual({ status: "reached", at: new Date(start + 20 * HOUR) });
+  });
+
+  it("on a plateau (an interval at the 0 °C datum adds nothing) the target is reached when first met [computed by hand]", () => {
+    // 20 °C for 5 h → 100 °C·h; 0 °C from 5 h to 8 h → still 100; 20 °C again to 13 h → 200 °C·h.
+    const plateau = maturitySeries([reading(0, 20), reading(5, 20), reading(5, 0), reading(8, 0), reading(8, 20), reading(13, 20)]);
+    expect(timeToMaturity(plateau, 100)).toEqual({ status: "reached", at: new Date(start + 5 * HOUR) });
+    expect(timeToMaturity(plateau, 150)).toEqual({ status: "reached", at: new Date(start + 10.5 * HOUR) });
+  });
+
+  it("refuses an empty series with its own message", () => {
+    expect(() => timeToMaturity([], 100)).toThrow("A maturity series needs at least one point");
+  });
+
   it("gives no time when the last temperature is at or below the datum", () => {
     const cold = maturitySeries([reading(0, 5), reading(5, -2)]);
     expect(timeToMaturity(cold, 500)).toEqual({ status: "not-gaining", assumedTempC: -2 });
@@ -90,6 +105,20 @@ describe("reading gaps and stopped sensors", () => {
   it("the logging interval is the median spacing", () => {
     expect(loggingIntervalMinutes(every15(10))).toBe(15);
     expect(loggingIntervalMinutes([new Date(start)])).toBeNull();
+    expect(loggingIntervalMinutes([])).toBeNull();
+  });
+
+  it("two readings give their spacing; an even count of steps takes the mean of the middle two [median, computed by hand]", () => {
+    const min = (m: number) => new Date(start + m * 60_000);
+    expect(loggingIntervalMinutes([min(0), min(20)])).toBe(20);
+    // Steps 10 and 20 → median 15.
+    expect(loggingIntervalMinutes([min(0), min(10), min(30)])).toBe(15);
+    // Steps 30, 10, 15 (not in order) → sorted 10, 15, 30 → median 15.
+    expect(loggingIntervalMinutes([min(0), min(30), min(40), min(55)])).toBe(15);
+    // Repeated timestamps (a step change) are not intervals: steps 0, 0, 15 → 15.
+    expect(loggingIntervalMinutes([min(0), min(0), min(0), min(15)])).toBe(15);
+    // Only repeated timestamps: no interval at all.
+    expect(loggingIntervalMinutes([min(5), min(5)])).toBeNull();
   });
 
   it("a 2-hour hole in a 15-minute record is one gap of 120 minutes", () => {
@@ -110,6 +139,18 @@ describe("reading gaps and stopped sensors", () => {
     const now = new Date(start + 3 * HOUR);
     expect(findReadingGaps(times, 15, now)).toEqual([{ kind: "stopped", from: times[3], to: now, minutes: 135 }]);
     expect(findReadingGaps(times, 15, new Date(start + 50 * 60_000))).toEqual([]);
+  });
+
+  it("a hole of exactly 1.5 intervals (22.5 min at 15 min) is still within the slack; just over it is a gap [product choice: half an interval]", () => {
+    const t0 = new Date(start);
+    expect(findReadingGaps([t0, new Date(start + 22.5 * 60_000)], 15)).toEqual([]);
+    expect(findReadingGaps([t0, new Date(start + 22.5 * 60_000 + 1)], 15)).toHaveLength(1);
+    expect(findReadingGaps([t0], 15, new Date(start + 22.5 * 60_000))).toEqual([]);
+    expect(findReadingGaps([t0], 15, new Date(start + 22.5 * 60_000 + 1))).toHaveLength(1);
+  });
+
+  it("no readings at all: nothing to measure a stop from", () => {
+    expect(findReadingGaps([], 15, new Date(start))).toEqual([]);
   });
 
   it("refuses a non-positive interval", () => {

@@ -5,6 +5,7 @@ import {
   equivalentAgeHours,
   estimateStrength,
   fitLogStrengthMaturity,
+  maturityUnit,
   temperatureTimeFactor,
   type TemperatureReading,
 } from "../../../lib/concrete/maturity";
@@ -111,5 +112,22 @@ describe("fitLogStrengthMaturity and estimateStrength", () => {
       ]),
     ).toThrow("Calibration points need at least two different maturities");
     expect(() => estimateStrength({ a: 0, b: 1 }, 0)).toThrow(ConcreteInputError);
+  });
+});
+
+describe("maturityUnit and the fit of equal strengths", () => {
+  it("Nurse-Saul gives °C·h, equivalent age gives hours [ASTM C1074: temperature-time factor in °C·h, equivalent age in h or days]", () => {
+    expect(maturityUnit("nurse-saul")).toBe("°C·h");
+    expect(maturityUnit("equivalent-age")).toBe("h");
+  });
+
+  it("equal strengths lie on a flat line exactly: b = 0, R² = 1 (nothing left unexplained) [computed by hand]", () => {
+    const fit = fitLogStrengthMaturity([
+      { maturity: 100, strength: 20 },
+      { maturity: 1000, strength: 20 },
+    ]);
+    expect(fit.b).toBe(0);
+    expect(fit.a).toBe(20);
+    expect(fit.rSquared).toBe(1);
   });
 });
