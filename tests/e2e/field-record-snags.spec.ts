@@ -45,6 +45,7 @@ test("a hold on a placement with trucks on it says how much concrete is already 
   const ines = new InspectionPage(await person(browser, DEMO.ines, { viewport: DESKTOP }));
   for (const [units, p] of Object.entries(PROJECTS)) {
     const stamp = `${units}-${Date.now().toString(36).toUpperCase()}`;
+    await new TodayPage(sam.page).open();
     const id = await new TodayPage(sam.page).planPlacement({ project: p.name, element: `E2E hold figure ${stamp}`, least: p.least, volume: "30", mixCode: p.mix });
     await expect(sam.page.getByTestId("placement-who-next")).toHaveText("This placement is planned. You can ask for inspection.");
 
