@@ -54,7 +54,8 @@ test("a hold on a placement with trucks on it says how much concrete is already 
       await sam.page.getByTestId("add-weather").click();
       const form = sam.page.getByTestId("weather-form");
       await expect(form).toBeVisible();
-      await expectInside(form, form.locator("input, select"));
+      // Inside the card's content box: inputs, their unit boxes, the "Now" button, the sun choices.
+      await expectInside(form, form.locator("input, select, button, label, fieldset, span"));
       const formBox = (await form.boundingBox())!;
       expect(formBox.x + formBox.width).toBeLessThanOrEqual(PHONE.width);
       expect(await sam.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
