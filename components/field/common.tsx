@@ -191,7 +191,7 @@ export function NowInput({
 }) {
   const now = () => onChange(type === "time" ? toTimeInput(new Date(), timeZone) : toLocalInput(new Date(), timeZone));
   return (
-    <div className="flex flex-col gap-1">
+    <div className="flex min-w-0 flex-col gap-1">
       <label className="text-sm font-semibold text-ink-800">
         {label}
         <div className="mt-1 flex gap-2">

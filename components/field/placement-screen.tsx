@@ -55,7 +55,7 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
   return (
     <div className="mt-4 border-t border-ink-200 pt-3" data-testid="placement-transitions">
       <p className="text-sm text-muted" data-testid="placement-who-next">
-        {describeAllowed(state)}
+        {describeAllowed(state, role)}
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
         {allowed.filter((to) => to !== "held" && to !== "signed").map((to) => (
@@ -75,7 +75,6 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
             {PLACEMENT_MOVE_WORDS.held.button}…
           </Button>
         ) : null}
-        {allowed.length === 0 ? <p className="text-sm text-ink-800">Your role on this project cannot move it from here.</p> : null}
       </div>
       {allowed.includes("ready") && readyBlockedBy.length > 0 ? (
         <p className="mt-2 text-sm text-ink-800" data-testid="ready-blocked">

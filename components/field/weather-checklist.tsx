@@ -76,14 +76,20 @@ export function Checklist({ checklist, canWrite }: { checklist: LocalRecord; can
                 </button>
               ))}
             </div>
-            <input
-              aria-label={`Note: ${str(item.label)}`}
-              placeholder="Note"
-              defaultValue={str(item.note)}
-              disabled={!canWrite}
-              onBlur={(e) => e.target.value !== str(item.note) && void answer(item, { note: e.target.value || null })}
-              className="mt-2 min-h-touch w-full rounded-lg border border-ink-300 px-3"
-            />
+            {/* Read-only (a signed placement, a reader's role): the note as text, wrapped in full, never cut off in a disabled box. */}
+            {canWrite ? (
+              <input
+                aria-label={`Note: ${str(item.label)}`}
+                placeholder="Note"
+                defaultValue={str(item.note)}
+                onBlur={(e) => e.target.value !== str(item.note) && void answer(item, { note: e.target.value || null })}
+                className="mt-2 min-h-touch w-full rounded-lg border border-ink-300 px-3"
+              />
+            ) : str(item.note) ? (
+              <p className="mt-2 whitespace-pre-wrap break-words text-base" data-testid="checklist-note">
+                {str(item.note)}
+              </p>
+            ) : null}
             <RecordPhotos projectId={checklist.projectId} recordType="checklist-items" recordId={item.id} canAdd={canWrite} />
           </li>
         ))}

@@ -80,7 +80,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
   });
 
   return (
-    <form onSubmit={onSubmit} className="mt-3 grid gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="weather-form" noValidate>
+    <form onSubmit={onSubmit} className="mt-3 grid grid-cols-1 gap-3 rounded-lg border-2 border-lichen-600 p-3 sm:grid-cols-2" data-testid="weather-form" noValidate>
       <NowInput label="Observed" type="datetime-local" value={v.observedAt} onChange={(x) => setValue("observedAt", x, { shouldDirty: true })} error={errors.observedAt?.message} timeZone={project.timeZone} testId="weather-observed-at" />
       <Field label="Air temperature" inputMode="decimal" unit={unitLabel("temperature", units)} error={errors.airTemp?.message} data-testid="weather-air-temp" {...register("airTemp")} />
       <Field label="Relative humidity" inputMode="decimal" unit="%" error={errors.rh?.message} data-testid="weather-rh" {...register("rh")} />
@@ -94,7 +94,7 @@ function ObservationForm({ placement, project, checks, onDone }: { placement: Lo
         data-testid="weather-concrete-temp"
         {...register("concreteTemp")}
       />
-      <fieldset>
+      <fieldset className="min-w-0">
         <legend className="text-sm font-semibold text-ink-800">Sun on the work</legend>
         <div className="mt-1 grid grid-cols-3 gap-2">
           {SUN_EXPOSURES.map((s) => (

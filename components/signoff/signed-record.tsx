@@ -3,50 +3,17 @@
 // A signed placement: the signature, who signed as what and when, the signature check code and whether the
 // record still matches it (recomputed by the server now), the amendments beside the original, and
 // the late edits this device made that were kept as conflicts rather than applied.
-import { useQueryClient } from "@tanstack/react-query";
 import { useLiveQuery } from "dexie-react-hooks";
 import { FilePenLine, Printer, ShieldAlert, ShieldCheck, WifiOff } from "lucide-react";
 import { useState } from "react";
 import { Section, formatDateTime, mayWrite } from "@/components/field/common";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
-import { callApi } from "@/lib/api/client";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useOnline, useSyncDb } from "@/lib/sync/client/react";
-import { SignOffDialog } from "./lazy-sign-off-dialog";
-import { amendmentsUrl, useVerification, type AmendmentRow, type SignOffRow } from "./use-sign-off";
-
-const roleLabel = (role: string) => ROLE_LABELS[role as ProjectRole] ?? role;
-
-export function SignatureBlock({ signOff, timeZone, testId }: { signOff: SignOffRow; timeZone: string; testId?: string }) {
-  return (
-    <div className="flex flex-col gap-2 sm:flex-row sm:items-start" data-testid={testId}>
-      {signOff.signatureImage ? (
-        // eslint-disable-next-line @next/next/no-img-element -- a data URL from the server, not an asset
-        <img
-          src={signOff.signatureImage}
-          alt={`Signature of ${signOff.typedName}`}
-          data-testid="signature-image"
-          className="h-24 w-full max-w-xs rounded-lg border border-ink-200 bg-white object-contain"
-        />
-      ) : null}
-      <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-base">
-        <dt className="text-sm text-muted">Signed by</dt>
-        <dd className="font-semibold" data-testid="signer-name">
-          {signOff.typedName}
-          {signOff.signerName && signOff.signerName !== signOff.typedName ? <span className="font-normal text-muted"> (account: {signOff.signerName})</span> : null}
-        </dd>
-        <dt className="text-sm text-muted">Role</dt>
-        <dd className="font-semibold" data-testid="signer-role">
-          {roleLabel(signOff.role)}
-        </dd>
-        <dt className="text-sm text-muted">Time</dt>
-        <dd className="font-semibold">{formatDateTime(signOff.signedAt, timeZone)}</dd>
-      </dl>
-    </div>
-  );
-}
+import { AmendmentCard, AmendmentForm } from "./amendments";
+import { SignatureBlock } from "./signature-block";
+import { useVerification } from "./use-sign-off";
 
 function HashLine({ hash, matches }: { hash: string; matches: boolean }) {
   return (
@@ -64,106 +31,6 @@ function HashLine({ hash, matches }: { hash: string; matches: boolean }) {
         </Notice>
       )}
     </div>
-  );
-}
-
-function AmendmentCard({ amendment, project, placementId }: { amendment: AmendmentRow; project: ProjectRow; placementId: string }) {
-  const [signing, setSigning] = useState(false);
-  const queryClient = useQueryClient();
-  const canSign = mayWrite(project, "amendment.write") && !amendment.signOff;
-  return (
-    <li className="rounded-lg border-2 border-ink-200 bg-white p-3" data-testid="amendment">
-      <p className="text-sm text-muted">
-        {amendment.authorName ?? "Someone"} · {formatDateTime(amendment.createdAt, project.timeZone)}
-      </p>
-      <p className="mt-1 text-base">
-        <span className="font-semibold">What changes:</span> <span data-testid="amendment-what">{amendment.what}</span>
-      </p>
-      <p className="mt-1 text-base">
-        <span className="font-semibold">Why:</span> {amendment.why}
-      </p>
-      {amendment.signOff ? (
-        <div className="mt-2 border-t border-ink-100 pt-2" data-testid="amendment-signed">
-          <SignatureBlock signOff={amendment.signOff} timeZone={project.timeZone} />
-          {amendment.matches === false ? (
-            <Notice tone="danger" title="This amendment changed after it was signed" className="mt-2" />
-          ) : (
-            <p className="mt-1 text-sm text-lichen-800">Signed amendment; its text matches the signature.</p>
-          )}
-        </div>
-      ) : (
-        <p className="mt-2 text-sm text-muted">Not signed.</p>
-      )}
-      {canSign ? (
-        <Button variant="secondary" className="mt-2" data-testid="sign-amendment" onClick={() => setSigning(true)}>
-          <FilePenLine className="h-5 w-5" aria-hidden="true" /> Sign this amendment
-        </Button>
-      ) : null}
-      <SignOffDialog
-        open={signing}
-        endpoint={`${amendmentsUrl(project.id, placementId)}/${amendment.id}/sign-off`}
-        baseVersion={amendment.version}
-        title="Sign the amendment"
-        summary={
-          <p className="text-base">
-            {amendment.what} <span className="text-muted">— {amendment.why}</span>
-          </p>
-        }
-        onClose={() => setSigning(false)}
-        onSigned={() => {
-          setSigning(false);
-          void queryClient.invalidateQueries({ queryKey: ["sign-off", project.id, placementId] });
-        }}
-      />
-    </li>
-  );
-}
-
-function AmendmentForm({ project, placementId, onDone }: { project: ProjectRow; placementId: string; onDone: () => void }) {
-  const [what, setWhat] = useState("");
-  const [why, setWhy] = useState("");
-  const [error, setError] = useState<{ message: string; fields?: Record<string, string> } | null>(null);
-  const [busy, setBusy] = useState(false);
-  const queryClient = useQueryClient();
-  const submit = async () => {
-    setBusy(true);
-    setError(null);
-    const res = await callApi(amendmentsUrl(project.id, placementId), { body: { id: crypto.randomUUID(), what: what.trim(), why: why.trim() } });
-    setBusy(false);
-    if (!res.ok) return setError(res.error);
-    await queryClient.invalidateQueries({ queryKey: ["sign-off", project.id, placementId] });
-    onDone();
-  };
-  const area = "min-h-24 w-full rounded-lg border border-ink-300 bg-white p-3 text-base";
-  return (
-    <form
-      className="mt-3 flex flex-col gap-3 rounded-lg border border-ink-200 bg-ink-50 p-3"
-      data-testid="amendment-form"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void submit();
-      }}
-    >
-      <label className="text-sm font-semibold text-ink-800">
-        What changes
-        <textarea className={area} value={what} onChange={(e) => setWhat(e.target.value)} data-testid="amendment-what-input" />
-        {error?.fields?.what ? <span className="text-danger-700">{error.fields.what}</span> : null}
-      </label>
-      <label className="text-sm font-semibold text-ink-800">
-        Why
-        <textarea className={area} value={why} onChange={(e) => setWhy(e.target.value)} data-testid="amendment-why-input" />
-        {error?.fields?.why ? <span className="text-danger-700">{error.fields.why}</span> : null}
-      </label>
-      {error && !error.fields ? <Notice tone="danger" title="Not added">{error.message}</Notice> : null}
-      <div className="flex gap-2">
-        <Button type="submit" disabled={busy || what.trim().length < 3 || why.trim().length < 3} data-testid="amendment-save">
-          Add the amendment
-        </Button>
-        <Button variant="secondary" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
-    </form>
   );
 }
 

@@ -4,6 +4,7 @@
 // date; the superintendent's answer; the inspector's close or reopen. The buttons shown are the moves
 // lib/site-visits/lifecycle allows this role (the server checks again).
 import { calendarDateText } from "@/lib/time/zone";
+import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -17,10 +18,11 @@ import { StateBadge } from "@/components/ui/state-badge";
 import { FINDING_MOVE_WORDS } from "@/lib/ui/vocabulary";
 import { transitionSiteRecordLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
+import { placementName } from "./visit-model";
 
 const NEEDS_LABEL = { response: "What was done to correct it", reason: "Why it is reopened" } as const;
 
-export function FindingCard({ finding, project }: { finding: LocalRecord; project: ProjectRow }) {
+export function FindingCard({ finding, project, placements = [] }: { finding: LocalRecord; project: ProjectRow; placements?: LocalRecord[] }) {
   const db = useSyncDb();
   const state = str(finding.state) as FindingState;
   const moves = allowedMoves("findings", state, (project.role ?? null) as ProjectRole | null);
@@ -50,6 +52,16 @@ export function FindingCard({ finding, project }: { finding: LocalRecord; projec
         <StateBadge kind="finding-severity" code={str(finding.severity)} testId="finding-severity" />
       </div>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
+        {finding.placementId ? (
+          <>
+            <dt className="text-muted">Placement</dt>
+            <dd data-testid="finding-placement-name">
+              <Link href={`/field/placement?id=${str(finding.placementId)}`} className="font-semibold text-lichen-800 underline">
+                {placementName(placements.find((p) => p.id === finding.placementId))}
+              </Link>
+            </dd>
+          </>
+        ) : null}
         <dt className="text-muted">Where</dt>
         <dd>{str(finding.location) || "—"}</dd>
         <dt className="text-muted">Requirement</dt>

@@ -3,28 +3,23 @@
 // The inspection log on this device: every visit report of the projects shown, newest first; the
 // inspector starts a new one here (works offline, same sync path as every field record).
 import { useLiveQuery } from "dexie-react-hooks";
-import { ChevronRight, Plus } from "lucide-react";
+import { ChevronRight } from "lucide-react";
 import Link from "next/link";
-import { useRouter } from "next/navigation";
-import { useState } from "react";
-import { Button } from "@/components/ui/button";
-import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
-import { mayWrite, str, todayLocal, useFieldContext, useProjects, writeErrorOf } from "@/components/field/common";
+import { formatDay, str, useFieldContext, useProjects } from "@/components/field/common";
 import { isOutstanding } from "@/lib/site-visits/lifecycle";
 import { StateBadge } from "@/components/ui/state-badge";
 import { FINDING_STATE_WORDS, textClassOf } from "@/lib/ui/vocabulary";
-import { createLocal, listByProject } from "@/lib/sync/client";
+import { listByProject } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
+import { NewVisit } from "./new-visit";
 
 export function VisitsScreen() {
   const db = useSyncDb();
-  const router = useRouter();
   const projects = useProjects();
   const { selectedProjectId } = useFieldContext();
   const shown = (projects ?? []).filter((p) => !selectedProjectId || p.id === selectedProjectId);
   const key = shown.map((p) => p.id).join(",");
-  const [error, setError] = useState<string | null>(null);
 
   const rows = useLiveQuery(async () => {
     const out = [];
@@ -39,36 +34,13 @@ export function VisitsScreen() {
     return out.sort((a, b) => str(b.visit.visitDate).localeCompare(str(a.visit.visitDate)));
   }, [db, key]);
 
-  const writer = shown.find((p) => mayWrite(p, "visit.write") && p.role === "inspector");
-  const start = async () => {
-    if (!writer) return;
-    setError(null);
-    try {
-      const { id } = await createLocal(db, "site-visits", writer.id, { visitDate: todayLocal() });
-      router.push(`/field/visit?id=${id}`);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
-
   return (
     <>
       <PageHeader
         title="Site visits"
         subtitle="The inspector's visit reports and their findings"
-        actions={
-          writer ? (
-            <Button data-testid="new-visit" onClick={() => void start()}>
-              <Plus className="h-5 w-5" aria-hidden="true" /> New visit
-            </Button>
-          ) : null
-        }
+        actions={<NewVisit projects={projects ?? []} shownId={selectedProjectId} />}
       />
-      {error ? (
-        <Notice tone="danger" title="Not started" className="mb-3">
-          {error}
-        </Notice>
-      ) : null}
       {rows === undefined ? (
         <p className="text-muted">Reading this device…</p>
       ) : rows.length === 0 ? (
@@ -82,7 +54,7 @@ export function VisitsScreen() {
               <Link href={`/field/visit?id=${visit.id}`} className="card flex items-center gap-3 p-4 hover:bg-ink-50" data-testid="visit-link">
                 <div className="min-w-0 flex-1">
                   <p className="flex flex-wrap items-center gap-2 text-lg font-bold text-ink-950">
-                    {str(visit.visitDate)} <StateBadge kind="site-visit" code={str(visit.state)} size="sm" testId="visit-state" />
+                    {formatDay(str(visit.visitDate))} <StateBadge kind="site-visit" code={str(visit.state)} size="sm" testId="visit-state" />
                   </p>
                   <p className="text-sm text-muted">
                     {project.name}

@@ -46,9 +46,10 @@ export function canTransition(from: PlacementState, to: PlacementState, role: Pr
 /**
  * What can happen next to a placement in `state`, in words: "This placement is ready for inspection.
  * Next: the superintendent can take it back to planned; the inspector can clear it to place or hold it."
- * Grouped by the roles that may make the moves; said plainly when there is no way on.
+ * Grouped by the roles that may make the moves; said plainly when there is no way on. With `viewer`,
+ * said to that person: "You can ask for inspection."
  */
-export function describeAllowed(state: PlacementState): string {
+export function describeAllowed(state: PlacementState, viewer?: ProjectRole | null): string {
   const groups = new Map<string, { roles: string[]; phrases: string[] }>();
   for (const t of TRANSITIONS.filter((t) => t.from === state)) {
     const roles = rolesFor(t);
@@ -56,7 +57,7 @@ export function describeAllowed(state: PlacementState): string {
     group.phrases.push(PLACEMENT_MOVE_WORDS[t.to].phrase);
     groups.set(roles.join(), group);
   }
-  return describeNextSteps("placement", placementStateLabel(state), [...groups.values()], "It cannot change state any more; correct it with an amendment.");
+  return describeNextSteps("placement", placementStateLabel(state), [...groups.values()], "It cannot change state any more; correct it with an amendment.", viewer);
 }
 
 /** The refusal when another role's move is tried: "Only the inspector can move a placement from “Ready for inspection” to “Held”." */

@@ -71,7 +71,7 @@ const phraseOf = (type: LifecycleType, to: string) => ((type === "site-visits" ?
  * What can happen next, in words: "This finding is correction reported. Next: the inspector can close
  * it or reopen it." Said plainly when there is no way on.
  */
-export function describeMoves(type: LifecycleType, state: string): string {
+export function describeMoves(type: LifecycleType, state: string, viewer?: ProjectRole | null): string {
   if (type === "site-visits" && state === "signed") return "This visit report is signed; add an amendment instead.";
   const groups = new Map<string, { roles: string[]; phrases: string[] }>();
   for (const m of movesOf(type).filter((m) => m.from === state)) {
@@ -81,7 +81,7 @@ export function describeMoves(type: LifecycleType, state: string): string {
     groups.set(roles.join(), group);
   }
   const whenNone = type === "site-visits" ? "It is signed through the sign-off." : "It cannot change state.";
-  const text = describeNextSteps(NOUN[type], labelOf(type, state), [...groups.values()], whenNone);
+  const text = describeNextSteps(NOUN[type], labelOf(type, state), [...groups.values()], whenNone, viewer);
   return type === "site-visits" && state === "submitted" ? `${text.slice(0, -1)}; it is signed through the sign-off.` : text;
 }
 

@@ -162,13 +162,26 @@ export const SITE_VISIT_MOVE_WORDS: Record<SiteVisitState, MoveWords> = {
 /**
  * "This placement is ready for inspection. Next: the inspector can clear it to place or hold it;
  * the superintendent can take it back to planned." Who may act comes from the caller (the
- * permission table); this only puts it in words.
+ * permission table); this only puts it in words. With `viewer` (the reader's role on the project)
+ * the reader's own moves come first and are said to them: "You can clear it to place or hold it;
+ * the superintendent can take it back to planned." A reader who cannot act is told so.
  */
-export function describeNextSteps(noun: string, stateLabel: string, steps: { roles: readonly string[]; phrases: readonly string[] }[], whenNone: string): string {
+export function describeNextSteps(
+  noun: string,
+  stateLabel: string,
+  steps: { roles: readonly string[]; phrases: readonly string[] }[],
+  whenNone: string,
+  viewer?: string | null,
+): string {
   const now = `This ${noun} is ${stateLabel.toLowerCase()}.`;
   if (steps.length === 0) return `${now} ${whenNone}`;
-  const parts = steps.map((s) => `the ${s.roles.join(" or the ")} can ${s.phrases.join(" or ")}`);
-  return `${now} Next: ${parts.join("; ")}.`;
+  const others = (list: typeof steps) => list.map((s) => `the ${s.roles.filter((r) => r !== viewer).join(" or the ")} can ${s.phrases.join(" or ")}`);
+  if (viewer === undefined) return `${now} Next: ${others(steps).join("; ")}.`;
+  const mine = steps.filter((s) => viewer !== null && s.roles.includes(viewer));
+  const rest = steps.filter((s) => !mine.includes(s));
+  if (mine.length === 0) return `${now} Nothing for you to do here; ${others(rest).join("; ")}.`;
+  const yours = `You can ${mine.flatMap((s) => s.phrases).join(" or ")}`;
+  return `${now} ${[yours, ...others(rest)].join("; ")}.`;
 }
 
 /**

@@ -1,4 +1,4 @@
-import { and, eq, gt, isNull } from "drizzle-orm";
+import { and, asc, eq, gt, isNull } from "drizzle-orm";
 import { db } from "@/db";
 import { invitations, memberships, projects, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
@@ -121,4 +121,18 @@ export async function findOpenInvitation(token: string) {
     .from(invitations)
     .where(and(eq(invitations.tokenHash, hashToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())));
   return row;
+}
+
+/**
+ * Invitations sent and not yet accepted nor expired, for the People page: the person has no account
+ * until they accept, so without this list an invitation just sent would be nowhere on the page.
+ */
+export async function listPendingInvitations(actor: SessionUser, now: Date = new Date()) {
+  authorizeAdmin(actor, "admin.users");
+  return db
+    .select({ id: invitations.id, name: invitations.name, email: invitations.email, role: invitations.role, projectName: projects.name, expiresAt: invitations.expiresAt })
+    .from(invitations)
+    .leftJoin(projects, eq(projects.id, invitations.projectId))
+    .where(and(isNull(invitations.acceptedAt), gt(invitations.expiresAt, now)))
+    .orderBy(asc(invitations.createdAt));
 }

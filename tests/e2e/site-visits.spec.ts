@@ -34,6 +34,9 @@ test("visit with a finding: open → answered → closed, then the report is sub
   // Ines starts a visit, fills the report and records a finding.
   await ines.page.goto("/field/visits");
   await ines.page.getByTestId("new-visit").click();
+  // The project shown in the switcher is preselected.
+  await expect(ines.page.getByTestId("new-visit-project").locator("option:checked")).toHaveText(PROJECT);
+  await ines.page.getByTestId("start-visit").click();
   await expect(ines.page.getByTestId("visit-title")).toContainText("Draft");
   await ines.page.getByTestId("visit-areasInspected").fill("Pump pit, north wall");
   await ines.page.getByTestId("visit-save").click();

@@ -49,7 +49,7 @@ test("a held placement has the same word and colours in Field, Review and the di
   const inField = await lookOf(fieldBadge);
   expect(inField).toEqual(want);
   await expect(sam.getByTestId("hold-banner")).toHaveAttribute("data-tone", HELD.tone);
-  await expect(sam.getByTestId("placement-who-next")).toHaveText("This placement is held. Next: the superintendent can ask for inspection.");
+  await expect(sam.getByTestId("placement-who-next")).toHaveText("This placement is held. You can ask for inspection.");
   await shot(sam, "field-held-390");
   await sam.setViewportSize({ width: 1440, height: 900 });
   await shot(sam, "field-held-1440");

@@ -133,6 +133,23 @@ describe("our own plain words (issue 15, item 11)", () => {
     expect(describeMoves("site-visits", "submitted")).toMatch(/^This visit report is submitted\. Next: the inspector can take it back to draft; it is signed through the sign-off\.$/);
   });
 
+  // Issue 17 item 9: the hint says what the reader can do next, in the permission table's terms
+  // (lib/auth/can.ts), never the state machine's codes [common practice: plain-language UI text].
+  it("says to the reader what they can do next, and who else can act", () => {
+    expect(describeAllowed("ready", "inspector")).toBe(
+      "This placement is ready for inspection. You can clear it to place or hold it; the superintendent can take it back to planned.",
+    );
+    expect(describeAllowed("held", "superintendent")).toBe("This placement is held. You can ask for inspection.");
+    expect(describeAllowed("held", "owner")).toBe("This placement is held. Nothing for you to do here; the superintendent can ask for inspection.");
+    expect(describeAllowed("held", null)).toBe("This placement is held. Nothing for you to do here; the superintendent can ask for inspection.");
+    expect(describeMoves("findings", "open", "superintendent")).toBe("This finding is open. You can report the correction; the inspector can close it.");
+    expect(describeMoves("findings", "answered", "superintendent")).toBe("This finding is correction reported. Nothing for you to do here; the inspector can close it or reopen it.");
+    expect(describeMoves("site-visits", "draft", "inspector")).toBe("This visit report is draft. You can submit it.");
+    for (const state of PLACEMENT_STATES) for (const role of ["superintendent", "inspector", "office", "owner"] as const) {
+      expect(describeAllowed(state, role)).not.toMatch(/can go to:|\((superintendent|inspector|office|owner)\)/);
+    }
+  });
+
   it("no other file keeps its own copy of the state words or the palette's hexes", () => {
     const roots = ["app", "components", "lib"];
     const files: string[] = [];

@@ -6,12 +6,14 @@ import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { listProjectsWithCounts, listUsers } from "@/lib/projects/admin";
 import { readAccountSettings } from "@/lib/users/admin-accounts";
+import { listPendingInvitations } from "@/lib/users/invitations";
+import { ROLE_LABELS } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "People" };
 
 export default async function AdminPeoplePage() {
   const user = await requireUser();
-  const [people, projects, settings] = await Promise.all([listUsers(user), listProjectsWithCounts(user), readAccountSettings()]);
+  const [people, projects, settings, pending] = await Promise.all([listUsers(user), listProjectsWithCounts(user), readAccountSettings(), listPendingInvitations(user)]);
   return (
     <>
       <PageHeader title="People" subtitle="Everyone with an account, and invitations to new people." />
@@ -33,6 +35,18 @@ export default async function AdminPeoplePage() {
                   <td className="px-3 py-2">{p.email}</td>
                   <td className="px-3 py-2">{p.disabled ? "Disabled" : p.hasPassword ? "Active" : "Invited"}</td>
                   <td className="px-3 py-2"><PersonStatus id={p.id} name={p.name} disabled={p.disabled} self={p.id === user.id} /></td>
+                </tr>
+              ))}
+              {/* Invited people have no account until they accept; the invitation shows at once (the form refreshes this page). */}
+              {pending.map((i) => (
+                <tr key={i.id} data-testid="pending-invitation">
+                  <td className="px-3 py-2 font-semibold">{i.name}</td>
+                  <td className="break-all px-3 py-2">{i.email}</td>
+                  <td className="px-3 py-2">
+                    Invitation not yet accepted
+                    {i.projectName ? <span className="block text-muted">{i.projectName}{i.role ? `, ${ROLE_LABELS[i.role]}` : ""}</span> : null}
+                  </td>
+                  <td className="px-3 py-2" />
                 </tr>
               ))}
             </tbody>
