@@ -3,6 +3,7 @@
 import dynamic from "next/dynamic";
 import { Notice } from "@/components/ui/notice";
 import { formatStrength, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
+import { CalibrationPoints } from "./calibration-points";
 import { MATURITY_CAUTIONS, chartSeries, estimateText, targetText, type MaturityView } from "@/lib/maturity/view";
 
 // recharts is heavy: the chart loads on demand, in the browser only.
@@ -60,6 +61,7 @@ export function MaturitySummary({
           R² = {calibration.fit.rSquared.toFixed(3)}; {view.settings.method === "nurse-saul" ? `Nurse-Saul, datum ${view.settings.datumC} °C` : `equivalent age at ${view.settings.referenceC} °C, E = ${(view.settings.activationEnergyJPerMol / 1000).toFixed(1)} kJ/mol`}.
         </p>
       ) : null}
+      {calibration ? <CalibrationPoints points={calibration.points} unit={view.unit} units={units} /> : null}
       <MaturityChart series={chartSeries(view)} unit={view.unit} units={units} timeZone={timeZone} />
       {view.findings.length > 0 ? (
         <ul className="flex flex-col gap-2" data-testid="maturity-findings">
