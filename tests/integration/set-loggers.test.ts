@@ -27,11 +27,10 @@ async function setup() {
 
 describe("a specimen set's logger must be a sensor of its placement", () => {
   it("a sensor of another project, or of another placement, is refused with a 400 naming it; nothing changes", async () => {
-    const { project, team, otherProject, placement } = await setup();
+    const { project, team, placement } = await setup();
     const set = await makeRecord("specimen-sets", project.id, team, { placementId: placement.id });
-    const otherTeam = (await projectWithTeam()).team;
-    const foreignPlacement = await makeRecord("placements", otherProject.id, otherTeam);
-    const foreign = await makeRecord("temperature-sensors", otherProject.id, otherTeam, { placementId: foreignPlacement.id });
+    const other = await projectWithTeam();
+    const foreign = await makeRecord("temperature-sensors", other.project.id, other.team);
     const neighbour = await makeRecord("temperature-sensors", project.id, team); // on a new placement of the same project
 
     const params = { projectId: project.id, type: "specimen-sets", id: set.id };
@@ -46,9 +45,9 @@ describe("a specimen set's logger must be a sensor of its placement", () => {
   });
 
   it("the sync push applies a set created with its placement's sensor and rejects one with a foreign sensor", async () => {
-    const { project, team, otherProject, placement, sensor } = await setup();
-    const otherTeam = (await projectWithTeam()).team;
-    const foreign = await makeRecord("temperature-sensors", otherProject.id, otherTeam);
+    const { project, team, placement, sensor } = await setup();
+    const other = await projectWithTeam();
+    const foreign = await makeRecord("temperature-sensors", other.project.id, other.team);
     const good: Record<string, unknown> = { ...validBody("specimen-sets", placement.id), sensorId: sensor.id };
     const bad: Record<string, unknown> = { ...validBody("specimen-sets", placement.id), sensorId: foreign.id };
     const mutations = [good, bad].map((args, i) => ({ id: i + 1, name: "create", recordType: "specimen-sets", projectId: project.id, recordId: args.id as string, args }));
