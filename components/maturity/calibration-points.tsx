@@ -6,7 +6,7 @@ export function CalibrationPoints({ points, unit, units }: { points: Calibration
   if (points.length === 0) return null;
   return (
     <div className="overflow-x-auto">
-      <table className="w-full text-left text-sm" data-testid="calibration-points">
+      <table className="w-full max-w-3xl text-left text-sm" data-testid="calibration-points">
         <caption className="pb-1 text-left font-semibold text-ink-800">Calibration points</caption>
         <thead className="bg-ink-50 text-ink-700">
           <tr>
@@ -19,8 +19,8 @@ export function CalibrationPoints({ points, unit, units }: { points: Calibration
         <tbody className="divide-y divide-ink-100">
           {points.map((p) => (
             <tr key={`${p.ageDays}:${p.logger ?? ""}:${p.maturity}`} data-testid="calibration-point" data-source={p.logger ? "logger" : "standard"}>
-              <td className="px-2 py-1 font-mono">{p.ageDays} d</td>
-              <td className="px-2 py-1 text-right font-mono">{formatStrength(p.strengthMPa, units)}{p.breaks > 1 ? ` (${p.breaks})` : ""}</td>
+              <td className="whitespace-nowrap px-2 py-1 font-mono">{p.ageDays} d</td>
+              <td className="whitespace-nowrap px-2 py-1 text-right font-mono">{formatStrength(p.strengthMPa, units)}{p.breaks > 1 ? ` (${p.breaks})` : ""}</td>
               <td className="px-2 py-1 text-right font-mono">{Math.round(p.maturity).toLocaleString("en-US")}</td>
               <td className="px-2 py-1">
                 <span className={p.logger ? "font-semibold text-ink-950" : "text-muted"}>{curingBasisLabel(p.logger)}</span>

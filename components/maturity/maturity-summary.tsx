@@ -57,7 +57,7 @@ export function MaturitySummary({
       </div>
       {calibration?.ok ? (
         <p className="text-sm text-muted" data-testid="maturity-calibration">
-          Calibration: {calibration.points.length} ages up to {formatStrength(calibration.maxStrengthMPa, units)}, S = {calibration.fit.a.toFixed(1)} + {calibration.fit.b.toFixed(2)}·log₁₀(M) in MPa,
+          Calibration: {new Set(calibration.points.map((p) => p.ageDays)).size} ages up to {formatStrength(calibration.maxStrengthMPa, units)}, S = {calibration.fit.a.toFixed(1)} + {calibration.fit.b.toFixed(2)}·log₁₀(M) in MPa,
           R² = {calibration.fit.rSquared.toFixed(3)}; {view.settings.method === "nurse-saul" ? `Nurse-Saul, datum ${view.settings.datumC} °C` : `equivalent age at ${view.settings.referenceC} °C, E = ${(view.settings.activationEnergyJPerMol / 1000).toFixed(1)} kJ/mol`}.
         </p>
       ) : null}

@@ -45,21 +45,31 @@ test("a set cured with a logger: picked on the phone, its break marked as from t
     await expect(row.getByTestId("reading-form")).toHaveCount(0);
   }
 
-  await page.getByTestId("add-field-test").click();
-  await page.getByTestId("field-test-sampled-at").fill("2026-11-24T08:00");
-  await page.getByTestId("field-test-slump").fill("4");
-  await page.getByTestId("field-test-cylinder-count").fill("2");
-  await page.getByTestId("field-test-cylinder-size").selectOption("100");
-  await page.getByTestId("field-test-set-code").fill(`LG-${stamp}`);
-  await page.getByTestId("field-test-ages").fill("7");
-  const curing = page.getByTestId("field-test-set-logger");
+  await sam.waitAllSaved();
+
+  // The inspector makes the cylinders at a field test, on her own phone (also set to Tokyo).
+  const ines = new InspectionPage(await (await browser.newContext({ viewport: PHONE, timezoneId: "Asia/Tokyo" })).newPage());
+  await signIn(ines.page, DEMO.ines);
+  await expect(async () => {
+    await ines.page.goto(`/field/placement?id=${id}`);
+    await expect(ines.page.locator(`[data-testid="sensor-row"][data-sensor="${sensor}"]`)).toBeVisible({ timeout: 8_000 });
+  }).toPass({ timeout: 90_000 });
+  await ines.page.getByTestId("add-field-test").click();
+  await ines.page.getByTestId("field-test-sampled-at").fill("2026-11-24T08:00");
+  await ines.page.getByTestId("field-test-slump").fill("4");
+  await ines.page.getByTestId("field-test-cylinder-count").fill("2");
+  await ines.page.getByTestId("field-test-cylinder-size").selectOption("100");
+  await ines.page.getByTestId("field-test-set-code").fill(`LG-${stamp}`);
+  await ines.page.getByTestId("field-test-ages").fill("7");
+  const curing = ines.page.getByTestId("field-test-set-logger");
   await expect(curing.locator("option")).toHaveText(["Standard curing", `Cured with the set: ${sensor}`]);
   await curing.selectOption({ label: `Cured with the set: ${sensor}` });
-  await page.getByTestId("field-test-cylinders").screenshot({ path: ".data/screenshots/set-logger-phone-form.png" });
-  await page.screenshot({ path: ".data/screenshots/set-logger-phone.png", fullPage: false });
-  await page.getByTestId("field-test-save").click();
-  await expect(page.getByTestId("field-test-form")).toHaveCount(0);
-  await sam.waitAllSaved();
+  await ines.page.getByTestId("field-test-cylinders").screenshot({ path: ".data/screenshots/set-logger-phone-form.png" });
+  await curing.evaluate((el) => el.scrollIntoView({ block: "center" }));
+  await ines.page.screenshot({ path: ".data/screenshots/set-logger-phone.png" });
+  await ines.page.getByTestId("field-test-save").click();
+  await expect(ines.page.getByTestId("field-test-form")).toHaveCount(0);
+  await ines.waitAllSaved();
 
   // Stored on the project's clock: 00:30 in Chicago (CST, UTC−6) on 25 Nov is 06:30 UTC, whatever the phone's zone.
   const office = await (await browser.newContext({ viewport: DESKTOP, timezoneId: "America/Chicago" })).newPage();
@@ -92,7 +102,7 @@ test("a set cured with a logger: picked on the phone, its break marked as from t
   await expect(points.locator('[data-testid="calibration-point"][data-source="standard"]').first()).toContainText("Standard curing");
   await points.screenshot({ path: ".data/screenshots/set-logger-calibration-desktop.png" });
   await office.setViewportSize(PHONE);
-  await points.scrollIntoViewIfNeeded();
+  await points.evaluate((el) => el.scrollIntoView({ block: "center" }));
   await office.screenshot({ path: ".data/screenshots/set-logger-calibration-phone.png" });
   await office.goto(`/projects/${LARKSPUR}/lab?placement=${id}`);
   await expect(card).toBeVisible({ timeout: 30_000 });
