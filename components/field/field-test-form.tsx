@@ -1,5 +1,6 @@
 "use client";
 
+import { useLiveQuery } from "dexie-react-hooks";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { FindingList } from "@/components/findings/finding-notice";
@@ -7,7 +8,8 @@ import { nominalCylinderText } from "@/components/lab/format";
 import { Field } from "@/components/ui/field";
 import { concreteYield, formatVolume, type UnitSystem } from "@/lib/concrete";
 import { CYLINDER_DIAMETERS_MM } from "@/lib/records/enums";
-import { createLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { SetLoggerSelect } from "@/components/maturity/set-logger-select";
+import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { writeTx } from "@/lib/sync/client/mutate";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
@@ -44,6 +46,7 @@ type Values = {
   cylinderDiameterMm: string;
   setCode: string;
   testAges: string;
+  sensorId: string;
 };
 
 // Where a refused field of the test or of its specimen set is shown in this form.
@@ -80,9 +83,11 @@ export function FieldTestForm({
       cylinderDiameterMm: "150",
       setCode: "",
       testAges: defaultTestAges(mix),
+      sensorId: "",
     },
   });
   useDirtyGuard("field-test-new", formState.isDirty);
+  const sensors = useLiveQuery(() => listByParent(db, "temperature-sensors", "placementId", placement.id), [db, placement.id]) ?? [];
   const errors = formState.errors;
   const v = useWatch({ control }) as Values;
   const results: Results = {
@@ -139,6 +144,7 @@ export function FieldTestForm({
           count: cylinders,
           castAt: sampledAt,
           testAgesDays: parseAges(f.testAges),
+          sensorId: f.sensorId || null,
         });
       }
       });
@@ -207,6 +213,7 @@ export function FieldTestForm({
           <>
             <Field label="Set id" placeholder="as written on the cylinders" error={errors.setCode?.message} data-testid="field-test-set-code" {...register("setCode")} />
             <Field label="Test ages" unit="days" hint="Separated by commas" error={errors.testAges?.message} data-testid="field-test-ages" {...register("testAges")} />
+            <SetLoggerSelect sensors={sensors} error={errors.sensorId?.message} testId="field-test-set-logger" {...register("sensorId")} />
           </>
         ) : null}
       </fieldset>

@@ -52,7 +52,7 @@ export function LabWorkspace({ projectId, placementId, unitSystem, timeZone }: {
           <p className="text-muted" data-testid="no-sets">No specimen sets here yet. The inspector records them in the field.</p>
         ) : (
           sets.data!.sets.map((s) => (
-            <SetCard key={s.id} projectId={projectId} set={s} unitSystem={unitSystem} timeZone={timeZone} canEnterBreaks={sets.data!.canEnterBreaks} acceptance={s.placement.mixId ? (byMix.get(s.placement.mixId) ?? null) : null} />
+            <SetCard key={s.id} projectId={projectId} set={s} unitSystem={unitSystem} timeZone={timeZone} canEnterBreaks={sets.data!.canEnterBreaks} canEditSets={sets.data!.canEditSets} acceptance={s.placement.mixId ? (byMix.get(s.placement.mixId) ?? null) : null} />
           ))
         )}
       </section>

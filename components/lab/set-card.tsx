@@ -8,15 +8,16 @@ import { dueAt } from "@/lib/lab/due";
 import type { LabSetView } from "@/lib/lab/queries";
 import type { MixAcceptance } from "@/lib/checks/strength";
 import { BreakForm } from "./break-form";
+import { SetCuring } from "./set-curing";
 import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";
 
 // recharts loads on demand: the figures beside the chart are what the first paint needs.
 const StrengthAgeChart = dynamic(() => import("./charts").then((m) => m.StrengthAgeChart), { ssr: false });
 
-type Props = { projectId: string; set: LabSetView; unitSystem: UnitSystem; timeZone: string; canEnterBreaks: boolean; acceptance: MixAcceptance | null };
+type Props = { projectId: string; set: LabSetView; unitSystem: UnitSystem; timeZone: string; canEnterBreaks: boolean; canEditSets?: boolean; acceptance: MixAcceptance | null };
 
 /** One specimen set: its cylinders, breaks, strength tests, a strength-age chart and break entry. */
-export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreaks, acceptance }: Props) {
+export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreaks, canEditSets = false, acceptance }: Props) {
   const lowSets = new Set(acceptance?.flags.filter((f) => f.kind === "individual").map((f) => f.setCode));
   const low = lowSets.has(set.setCode);
   return (
@@ -28,6 +29,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
         {low ? <span className={`ml-auto inline-flex items-center gap-1 text-sm font-semibold ${TONES[SEVERITY_WORDS.warning.tone].textClass}`} data-testid="set-low"><VocabularyIcon name={SEVERITY_WORDS.warning.icon} />Low strength test</span> : null}
       </header>
       <p className="mt-1 text-sm">Test ages: {[...set.testAgesDays].sort((a, b) => a - b).map((age) => `${age} d (due ${dateText(dueAt(new Date(set.castAt), age), timeZone)})`).join(" · ")}</p>
+      <SetCuring projectId={projectId} set={set} canEdit={canEditSets && set.placement.state !== "signed"} />
       <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div>
           {set.breaks.length === 0 ? <p className="text-sm text-muted">No breaks yet.</p> : (

@@ -9,6 +9,7 @@ import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/clie
 import { useSyncDb } from "@/lib/sync/client/react";
 import type { SyncDb } from "@/lib/sync/client";
 import { buildMaturityView } from "@/lib/maturity/view";
+import type { MixBreak } from "@/lib/maturity/set-maturity";
 import { MaturitySummary, targetInputOf, targetMPaOf } from "./maturity-summary";
 import { SensorForm, SensorRow } from "./sensor-forms";
 
@@ -17,18 +18,26 @@ import { SensorForm, SensorRow } from "./sensor-forms";
 async function loadRecords(db: SyncDb, placementId: string, mixId: string | null) {
   const sensors = await listByParent(db, "temperature-sensors", "placementId", placementId);
   const batches = (await Promise.all(sensors.map((s) => listByParent(db, "sensor-readings", "sensorId", s.id)))).flat();
-  const breaks: { ageDays: number; strengthMPa: number }[] = [];
+  const breaks: MixBreak[] = [];
+  const loggerIds = new Set<string>();
   if (mixId) {
     const placements = (await db.records("placements").where("mixId").equals(mixId).toArray()).filter((p) => !p.deletedAt);
     for (const p of placements) {
       for (const set of await listByParent(db, "specimen-sets", "placementId", p.id)) {
+        const sensorId = typeof set.sensorId === "string" ? set.sensorId : null;
+        if (sensorId) loggerIds.add(sensorId);
         for (const b of await listByParent(db, "breaks", "specimenSetId", set.id)) {
-          if (typeof b.ageDays === "number" && typeof b.strengthMPa === "number") breaks.push({ ageDays: b.ageDays, strengthMPa: b.strengthMPa });
+          if (typeof b.ageDays === "number" && typeof b.strengthMPa === "number") {
+            breaks.push({ ageDays: b.ageDays, strengthMPa: b.strengthMPa, testedAt: b.testedAt as string, castAt: set.castAt as string, sensorId });
+          }
         }
       }
     }
   }
-  return { sensors, batches, breaks };
+  // The loggers cured with the mix's sets (any placement), with every reading: the calibration's maturities.
+  const loggerSensors = (await db.records("temperature-sensors").bulkGet([...loggerIds])).filter((s): s is LocalRecord => s !== undefined);
+  const loggerBatches = (await Promise.all(loggerSensors.map((s) => listByParent(db, "sensor-readings", "sensorId", s.id)))).flat();
+  return { sensors, batches, breaks, loggers: { sensors: loggerSensors, batches: loggerBatches } };
 }
 
 /** The placement's temperature record and in-place strength estimate, on the phone, offline. */

@@ -3,6 +3,7 @@
 import dynamic from "next/dynamic";
 import { Notice } from "@/components/ui/notice";
 import { formatStrength, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
+import { CalibrationPoints } from "./calibration-points";
 import { MATURITY_CAUTIONS, chartSeries, estimateText, targetText, type MaturityView } from "@/lib/maturity/view";
 
 // recharts is heavy: the chart loads on demand, in the browser only.
@@ -56,10 +57,11 @@ export function MaturitySummary({
       </div>
       {calibration?.ok ? (
         <p className="text-sm text-muted" data-testid="maturity-calibration">
-          Calibration: {calibration.points.length} ages up to {formatStrength(calibration.maxStrengthMPa, units)}, S = {calibration.fit.a.toFixed(1)} + {calibration.fit.b.toFixed(2)}·log₁₀(M) in MPa,
+          Calibration: {new Set(calibration.points.map((p) => p.ageDays)).size} ages up to {formatStrength(calibration.maxStrengthMPa, units)}, S = {calibration.fit.a.toFixed(1)} + {calibration.fit.b.toFixed(2)}·log₁₀(M) in MPa,
           R² = {calibration.fit.rSquared.toFixed(3)}; {view.settings.method === "nurse-saul" ? `Nurse-Saul, datum ${view.settings.datumC} °C` : `equivalent age at ${view.settings.referenceC} °C, E = ${(view.settings.activationEnergyJPerMol / 1000).toFixed(1)} kJ/mol`}.
         </p>
       ) : null}
+      {calibration ? <CalibrationPoints points={calibration.points} unit={view.unit} units={units} /> : null}
       <MaturityChart series={chartSeries(view)} unit={view.unit} units={units} timeZone={timeZone} />
       {view.findings.length > 0 ? (
         <ul className="flex flex-col gap-2" data-testid="maturity-findings">

@@ -3,6 +3,7 @@
 import { useMemo, useState } from "react";
 import type { UnitSystem } from "@/lib/concrete";
 import { buildMaturityView } from "@/lib/maturity/view";
+import type { MixBreak, SetLoggers } from "@/lib/maturity/set-maturity";
 import { MaturitySummary, targetInputOf, targetMPaOf } from "./maturity-summary";
 
 type Row = Record<string, unknown>;
@@ -17,7 +18,7 @@ export function OfficeMaturity({
   project: Row & { unitSystem: string; timeZone: string };
   placement: Row & { id: string };
   mixCode: string | null;
-  records: { sensors: Row[]; batches: Row[]; breaks: { ageDays: number; strengthMPa: number }[] };
+  records: { sensors: Row[]; batches: Row[]; breaks: MixBreak[]; loggers?: SetLoggers };
 }) {
   const units: UnitSystem = project.unitSystem === "IP" ? "IP" : "SI";
   const [target, setTarget] = useState(() => targetInputOf(project.maturityTargetMPa, units));

@@ -52,13 +52,14 @@ function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord; project
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
-  const { register, control, handleSubmit, setValue, formState } = useForm<ReadingValues>({ defaultValues: { at: toLocalInput(new Date()), temp: "" } });
+  const { register, control, handleSubmit, setValue, formState } = useForm<ReadingValues>({ defaultValues: { at: toLocalInput(new Date(), project.timeZone), temp: "" } });
   const at = useWatch({ control, name: "at" });
   const onSubmit = handleSubmit(async (f) => {
     setFailure(null);
     try {
       const tempC = toSI("temperature", f.temp, units);
-      const when = fromLocalInput(f.at);
+      // The project's wall clock (lib/time/zone through common.tsx), whatever zone the phone is set to.
+      const when = fromLocalInput(f.at, project.timeZone);
       await createLocal(db, "sensor-readings", sensor.projectId, { sensorId: sensor.id, source: "manual", readings: [[when ?? "", tempC]] });
       onDone();
     } catch (error) {
@@ -67,7 +68,7 @@ function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord; project
   });
   return (
     <form onSubmit={onSubmit} className="mt-2 grid gap-3 sm:grid-cols-2" data-testid="reading-form" noValidate>
-      <NowInput label="Read at" type="datetime-local" value={at} onChange={(x) => setValue("at", x)} testId="reading-at" />
+      <NowInput label="Read at" type="datetime-local" value={at} onChange={(x) => setValue("at", x)} timeZone={project.timeZone} testId="reading-at" />
       <Field label="Temperature" inputMode="decimal" unit={unitLabel("temperature", units)} data-testid="reading-temp" {...register("temp")} />
       <FormFooter failure={failure} saveLabel="Save reading" saveTestId="reading-save" submitting={formState.isSubmitting} onCancel={onDone} />
     </form>

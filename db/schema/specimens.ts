@@ -1,6 +1,7 @@
 import { doublePrecision, index, integer, pgTable, uuid, varchar } from "drizzle-orm/pg-core";
 import { instantColumn, syncedColumns } from "./columns";
 import { deliveries } from "./deliveries";
+import { temperatureSensors } from "./maturity";
 import { placements } from "./placements";
 import { syncedConstraints } from "./synced";
 
@@ -21,6 +22,11 @@ export const specimenSets = pgTable(
     initialCuringMinC: doublePrecision("initial_curing_min_c"),
     initialCuringMaxC: doublePrecision("initial_curing_max_c"),
     testAgesDays: integer("test_ages_days").array().notNull(),
+    /**
+     * The logger that cured with the set (cast in a field-cured cylinder or placed beside it); null:
+     * standard curing. The calibration reads this sensor's record from the cast to each break.
+     */
+    sensorId: uuid("sensor_id").references(() => temperatureSensors.id),
   },
   (t) => [...syncedConstraints("specimen_sets", t), index("specimen_sets_placement_idx").on(t.placementId)],
 );

@@ -12,4 +12,5 @@ export * from "./strength";
 export * from "./maturity";
 export * from "./maturity-calibration";
 export * from "./maturity-record";
+export * from "./maturity-interval";
 export * from "./maturity-assessment";

@@ -15,8 +15,18 @@ export const MIN_CALIBRATION_AGES = 4;
 // ASTM C511 / C31 [memory]: standard moist curing at 23.0 ± 2.0 °C (73.5 ± 3.5 °F).
 export const STANDARD_CURE_C = 23;
 
-export type CalibrationBreak = { ageDays: number; strengthMPa: number };
-export type CalibrationPoint = { ageDays: number; maturity: number; strengthMPa: number; breaks: number };
+export type CalibrationBreak = {
+  ageDays: number;
+  strengthMPa: number;
+  /** The maturity its set's logger recorded from the cast to this break; absent: standard curing. */
+  maturity?: number;
+  /** The logger's name when `maturity` came from it. */
+  logger?: string | null;
+  /** Why a set with a logger was taken at standard curing for this break (shown beside the point). */
+  note?: string | null;
+};
+/** `logger`: the sensor the point's maturity came from (null: standard curing); `notes`: why not, when it was meant to. */
+export type CalibrationPoint = { ageDays: number; maturity: number; strengthMPa: number; breaks: number; logger: string | null; notes: string[] };
 
 export type Calibration =
   | { ok: true; fit: StrengthMaturityFit; points: CalibrationPoint[]; settings: MaturitySettings; maxStrengthMPa: number }
@@ -36,7 +46,8 @@ export function standardCureMaturity(
 /**
  * ASTM C1074 calibration: the mean strength at each test age against the maturity of that age,
  * fitted as S = a + b·log10(M). Fewer than four ages gives no calibration, with the reason.
- * `maturityAtAge` replaces the standard-cure maturity when a logger record is attached to the set.
+ * `maturityAtAge` replaces the standard-cure maturity of an age; a break that carries its own
+ * `maturity` (its set's logger) is a point of its own per age and logger, averaged over its breaks.
  */
 export function calibrateFromBreaks(
   breaks: CalibrationBreak[],
@@ -47,18 +58,28 @@ export function calibrateFromBreaks(
     assertPositive(b.ageDays, `breaks[${i}].ageDays`, "Test age");
     assertNonNegative(b.strengthMPa, `breaks[${i}].strengthMPa`, "Strength");
   });
-  const byAge = new Map<number, number[]>();
-  for (const b of breaks) byAge.set(b.ageDays, [...(byAge.get(b.ageDays) ?? []), b.strengthMPa]);
-  const points = [...byAge.entries()]
-    .sort(([a], [b]) => a - b)
-    .map(([ageDays, strengths]) => ({
-      ageDays,
-      maturity: maturityAtAge(ageDays),
-      strengthMPa: strengths.reduce((sum, s) => sum + s, 0) / strengths.length,
-      breaks: strengths.length,
-    }));
-  if (points.length < MIN_CALIBRATION_AGES) {
-    const have = points.length === 1 ? "1 age" : `${points.length} ages`;
+  const groups = new Map<string, CalibrationBreak[]>();
+  for (const b of breaks) {
+    const key = `${b.ageDays}|${typeof b.maturity === "number" ? (b.logger ?? "") : ""}|${typeof b.maturity === "number" ? "logger" : "standard"}`;
+    groups.set(key, [...(groups.get(key) ?? []), b]);
+  }
+  const mean = (xs: number[]) => xs.reduce((sum, x) => sum + x, 0) / xs.length;
+  const points: CalibrationPoint[] = [...groups.values()]
+    .map((group) => {
+      const fromLogger = typeof group[0].maturity === "number";
+      return {
+        ageDays: group[0].ageDays,
+        maturity: fromLogger ? mean(group.map((b) => b.maturity!)) : maturityAtAge(group[0].ageDays),
+        strengthMPa: mean(group.map((b) => b.strengthMPa)),
+        breaks: group.length,
+        logger: fromLogger ? (group[0].logger ?? null) : null,
+        notes: [...new Set(group.map((b) => b.note).filter((n): n is string => typeof n === "string" && n !== ""))],
+      };
+    })
+    .sort((p, q) => p.ageDays - q.ageDays || p.maturity - q.maturity);
+  const ages = new Set(points.map((p) => p.ageDays)).size;
+  if (ages < MIN_CALIBRATION_AGES) {
+    const have = ages === 1 ? "1 age" : `${ages} ages`;
     return {
       ok: false,
       reason: `The mix has breaks at ${have}; a maturity calibration needs at least ${MIN_CALIBRATION_AGES}.`,

@@ -2,7 +2,7 @@
 // acceptance per mix. Every read is scoped to a project the user may read (lib/auth).
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { breaks, mixDesigns, placements, projects, specimenSets } from "@/db/schema";
+import { breaks, mixDesigns, placements, projects, specimenSets, temperatureSensors } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
 import { authorize } from "@/lib/auth/authorize";
 import { can } from "@/lib/auth/can";
@@ -27,6 +27,7 @@ type SetRow = LabSet & {
   cylinderLengthMm: number;
   initialCuringMinC: number | null;
   initialCuringMaxC: number | null;
+  sensorId: string | null;
   version: number;
   placement: { id: string; element: string; level: string; mixId: string | null; state: string };
 };
@@ -63,7 +64,17 @@ async function projectMixes(projectId: string) {
     .orderBy(asc(mixDesigns.code));
 }
 
-export type LabSetView = SetRow & { mixCode: string | null; breaks: LabBreak[]; tests: StrengthTestRow[] };
+/** A set's placement's sensors: the loggers the set may be cured with (the set's `sensorId`). */
+export type LabSetView = SetRow & { mixCode: string | null; breaks: LabBreak[]; tests: StrengthTestRow[]; sensors: { id: string; name: string }[] };
+
+async function placementSensors(projectId: string, placementIds: string[]) {
+  if (!placementIds.length) return [];
+  return db
+    .select({ id: temperatureSensors.id, name: temperatureSensors.name, placementId: temperatureSensors.placementId })
+    .from(temperatureSensors)
+    .where(and(eq(temperatureSensors.projectId, projectId), inArray(temperatureSensors.placementId, placementIds), isNull(temperatureSensors.deletedAt)))
+    .orderBy(asc(temperatureSensors.name));
+}
 
 /** The specimen sets of a project (optionally of one placement) with their breaks and strength tests. */
 export async function getProjectSets(user: SessionUser, projectId: string, query: unknown) {
@@ -71,16 +82,19 @@ export async function getProjectSets(user: SessionUser, projectId: string, query
   const { project, role } = await projectOrThrow(user, projectId);
   const [{ sets, breaks: breakRows }, mixes] = await Promise.all([loadProjectLab(projectId, q.placement), projectMixes(projectId)]);
   const tests = strengthTests(sets, breakRows);
+  const sensors = await placementSensors(projectId, [...new Set(sets.map((s) => s.placement.id))]);
   const mixCode = new Map(mixes.map((m) => [m.id, m.code]));
   const views: LabSetView[] = sets.map((s) => ({
     ...s,
     mixCode: s.placement.mixId ? (mixCode.get(s.placement.mixId) ?? null) : null,
     breaks: breakRows.filter((b) => b.specimenSetId === s.id),
     tests: tests.filter((t) => t.setId === s.id),
+    sensors: sensors.filter((x) => x.placementId === s.placement.id).map(({ id, name }) => ({ id, name })),
   }));
   return {
     project: { id: project.id, name: project.name, unitSystem: project.unitSystem, timeZone: project.timeZone },
     canEnterBreaks: can(user, "break.write", role) || can(user, "record.correct", role),
+    canEditSets: can(user, "specimen.write", role) || can(user, "record.correct", role),
     sets: views,
   };
 }

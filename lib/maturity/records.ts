@@ -40,7 +40,13 @@ export async function readMaturityRecords(tx: Executor, projectId: string, place
   const batches = until ? rows.map((b) => ({ ...b, readings: b.readings.filter(([at]) => Date.parse(at) < until.getTime()) })) : rows;
   const mixBreaks = mixId
     ? await tx
-        .select({ ageDays: breaks.ageDays, strengthMPa: breaks.strengthMPa })
+        .select({
+          ageDays: breaks.ageDays,
+          strengthMPa: breaks.strengthMPa,
+          testedAt: breaks.testedAt,
+          castAt: specimenSets.castAt,
+          sensorId: specimenSets.sensorId,
+        })
         .from(breaks)
         .innerJoin(specimenSets, eq(specimenSets.id, breaks.specimenSetId))
         .innerJoin(placements, eq(placements.id, specimenSets.placementId))
@@ -54,11 +60,27 @@ export async function readMaturityRecords(tx: Executor, projectId: string, place
           ),
         )
     : [];
+  const valid = mixBreaks.filter((b) => typeof b.strengthMPa === "number");
   return {
     sensors: sensors.map((s) => ({ id: s.id, name: s.name, location: s.location, loggingIntervalMinutes: s.loggingIntervalMinutes, endedAt: iso(s.endedAt) })),
     batches,
-    breaks: mixBreaks.filter((b): b is { ageDays: number; strengthMPa: number } => typeof b.strengthMPa === "number"),
+    breaks: valid.map((b) => ({ ...b, testedAt: iso(b.testedAt), castAt: iso(b.castAt) })),
+    loggers: await readSetLoggers(tx, projectId, [...new Set(valid.map((b) => b.sensorId).filter((id): id is string => id !== null))]),
   };
+}
+
+/** The loggers attached to specimen sets and all their readings (a break may come after `until`). */
+async function readSetLoggers(tx: Executor, projectId: string, ids: string[]) {
+  if (!ids.length) return { sensors: [], batches: [] };
+  const sensors = await tx
+    .select({ id: temperatureSensors.id, name: temperatureSensors.name, deletedAt: temperatureSensors.deletedAt })
+    .from(temperatureSensors)
+    .where(and(eq(temperatureSensors.projectId, projectId), inArray(temperatureSensors.id, ids)));
+  const batches = await tx
+    .select({ id: sensorReadings.id, sensorId: sensorReadings.sensorId, readings: sensorReadings.readings })
+    .from(sensorReadings)
+    .where(and(eq(sensorReadings.projectId, projectId), inArray(sensorReadings.sensorId, ids), isNull(sensorReadings.deletedAt)));
+  return { sensors: sensors.map((s) => ({ ...s, deletedAt: iso(s.deletedAt) })), batches };
 }
 
 export async function loadMaturityRecords(user: SessionUser, projectId: string, placementId: string, mixId: string | null) {

@@ -15,6 +15,7 @@ import {
 import { localTimeText, maturityColdFindings, maturityGapFindings, maturityTargetFindings, type CheckSensor } from "@/lib/checks/maturity";
 import { toCheckProject } from "@/lib/checks/records";
 import type { CheckPlacement, CheckProject, Finding } from "@/lib/checks/types";
+import { calibrationBreaks, type MixBreak, type SetLoggers } from "./set-maturity";
 
 type Row = Record<string, unknown>;
 const numberOr = <T,>(v: unknown, fallback: T): number | T => (typeof v === "number" && Number.isFinite(v) ? v : fallback);
@@ -36,8 +37,10 @@ export type MaturityInput = {
   sensors: Row[];
   /** Batches (records of type sensor-readings): `readings` as [ISO instant, °C] pairs. */
   batches: Row[];
-  /** Breaks of the placement's mix (any placement), standard-cured. */
-  breaks: { ageDays: number; strengthMPa: number }[];
+  /** Breaks of the placement's mix (any placement), with their set's cast time and logger when known. */
+  breaks: MixBreak[];
+  /** The loggers attached to those sets and their readings; a set without one is standard-cured. */
+  loggers?: SetLoggers;
   targetMPa: number | null;
   now: Date;
 };
@@ -62,7 +65,7 @@ export function buildMaturityView(input: MaturityInput): MaturityView {
     if (!list || !Array.isArray(batch.readings)) continue;
     for (const [at, tempC] of batch.readings as [string, number][]) list.push({ at: new Date(at), tempC });
   }
-  const calibration = input.mixCode === null ? null : calibrateFromBreaks(input.breaks, settings);
+  const calibration = input.mixCode === null ? null : calibrateFromBreaks(calibrationBreaks(input.breaks, input.loggers, settings), settings);
   const assessment = assessPlacementMaturity({
     sensors: sensors.map((s) => ({ id: String(s.id), name: String(s.name), readings: bySensor.get(String(s.id)) ?? [] })),
     settings,

@@ -143,11 +143,12 @@ const DEFS: Record<RecordType, RecordDef> = {
     update: s.specimenSetUpdateSchema,
     action: "specimen.write",
     parent: placementLink,
-    refs: [deliveryRef],
+    // The logger cured with the set must be a sensor of the set's placement (same project).
+    refs: [deliveryRef, { field: "sensorId", type: "temperature-sensors", samePlacement: true }],
     frozenBy: "placementId",
     dateField: "castAt",
     dateKind: "instant",
-    mergeable: ["initialCuringMinC", "initialCuringMaxC"],
+    mergeable: ["initialCuringMinC", "initialCuringMaxC", "sensorId"],
   },
   breaks: {
     type: "breaks",

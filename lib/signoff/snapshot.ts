@@ -12,7 +12,7 @@ const BOOKKEEPING = new Set(["version", "changeSeq", "updatedAt", "updatedBy", "
 
 // Columns added after records were first signed: left out while empty, so a placement signed before
 // the column existed still hashes to what was signed (its rows read back with the column null).
-const ADDED_LATER = new Set(["mixCode", "testedBy", "notClearedReason"]);
+const ADDED_LATER = new Set(["mixCode", "testedBy", "notClearedReason", "sensorId"]);
 
 function content(row: Record<string, unknown>): Record<string, unknown> {
   return Object.fromEntries(Object.entries(row).filter(([key, value]) => !BOOKKEEPING.has(key) && !(ADDED_LATER.has(key) && value == null)));

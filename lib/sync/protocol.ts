@@ -7,7 +7,8 @@ import { RECORD_TYPES } from "@/lib/records/record-types";
 /** Bumped when the local store or the wire format changes; a mismatch makes the pull reset. */
 // 2: photos became a synced record type (a device that synced before pulls them all again).
 // 4: a ticket's mix code, why a truck went onto work not cleared, and who ran a field test (new fields; a device pulls every record again).
-export const SYNC_SCHEMA_VERSION = 4;
+// 5: a specimen set's logger (sensorId; a device pulls every record again).
+export const SYNC_SCHEMA_VERSION = 5;
 export const MAX_MUTATIONS_PER_PUSH = 100;
 export const MAX_CHANGES_PER_PULL = 500;
 /**

@@ -206,3 +206,6 @@ export const ELEMENT_TYPE_LABELS: Record<ElementType, string> = {
 
 /** The label of a stored element type; an unknown code reads "Other" rather than the code. */
 export const elementTypeLabel = (code: unknown): string => ELEMENT_TYPE_LABELS[String(code) as ElementType] ?? ELEMENT_TYPE_LABELS.other;
+
+/** How a specimen set was cured, for the set's choice and the calibration's points (maturity method). */
+export const curingBasisLabel = (loggerName: string | null): string => (loggerName ? `Cured with the set: ${loggerName}` : "Standard curing");

@@ -11,6 +11,8 @@ export const specimenSetFields = {
   castAt: instant("Cast time"),
   initialCuringMinC: temperatureC("Lowest initial-curing temperature").nullable(),
   initialCuringMaxC: temperatureC("Highest initial-curing temperature").nullable(),
+  /** The logger cured with the set; null: standard curing (lib/maturity/set-maturity.ts). */
+  sensorId: recordId("Temperature sensor").nullable(),
   testAgesDays: z
     .array(wholeNumber("Test age", 1, 365, "days"), { error: "Test ages must be a list of days, like 7, 28" })
     .min(1, "Enter at least one test age")
@@ -33,7 +35,7 @@ function checkCuringRange(
 
 export const specimenSetCreateSchema = z
   .object({ id: clientId, placementId: recordId("Placement"), ...specimenSetFields })
-  .partial({ deliveryId: true, initialCuringMinC: true, initialCuringMaxC: true })
+  .partial({ deliveryId: true, initialCuringMinC: true, initialCuringMaxC: true, sensorId: true })
   .superRefine(checkCuringRange);
 
 export const specimenSetUpdateSchema = z.object(specimenSetFields).partial().superRefine(checkCuringRange);

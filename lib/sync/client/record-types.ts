@@ -77,7 +77,7 @@ export const LOCAL_TYPES: Record<RecordType, LocalTypeDef> = {
     update: s.specimenSetUpdateSchema,
     parentField: "placementId",
     indexes: ["deliveryId"],
-    defaults: { deliveryId: null },
+    defaults: { deliveryId: null, sensorId: null },
   }),
   breaks: def({
     type: "breaks",

@@ -1,0 +1,37 @@
+import { formatStrength, type CalibrationPoint, type UnitSystem } from "@/lib/concrete";
+import { curingBasisLabel } from "@/lib/ui/vocabulary";
+
+/** The calibration's points: which maturity each came from (a set's logger or standard curing) and why not, when a logger fell short. */
+export function CalibrationPoints({ points, unit, units }: { points: CalibrationPoint[]; unit: string; units: UnitSystem }) {
+  if (points.length === 0) return null;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full max-w-3xl text-left text-sm" data-testid="calibration-points">
+        <caption className="pb-1 text-left font-semibold text-ink-800">Calibration points</caption>
+        <thead className="bg-ink-50 text-ink-700">
+          <tr>
+            <th className="px-2 py-1">Age</th>
+            <th className="px-2 py-1 text-right">Strength</th>
+            <th className="px-2 py-1 text-right">Maturity ({unit})</th>
+            <th className="px-2 py-1">Maturity from</th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-ink-100">
+          {points.map((p) => (
+            <tr key={`${p.ageDays}:${p.logger ?? ""}:${p.maturity}`} data-testid="calibration-point" data-source={p.logger ? "logger" : "standard"}>
+              <td className="whitespace-nowrap px-2 py-1 font-mono">{p.ageDays} d</td>
+              <td className="whitespace-nowrap px-2 py-1 text-right font-mono">{formatStrength(p.strengthMPa, units)}{p.breaks > 1 ? ` (${p.breaks})` : ""}</td>
+              <td className="px-2 py-1 text-right font-mono">{Math.round(p.maturity).toLocaleString("en-US")}</td>
+              <td className="px-2 py-1">
+                <span className={p.logger ? "font-semibold text-ink-950" : "text-muted"}>{curingBasisLabel(p.logger)}</span>
+                {p.notes.map((n) => (
+                  <span key={n} className="block text-xs text-caution-800" data-testid="calibration-point-note">{n}</span>
+                ))}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,2 @@
+ALTER TABLE "specimen_sets" ADD COLUMN "sensor_id" uuid;--> statement-breakpoint
+ALTER TABLE "specimen_sets" ADD CONSTRAINT "specimen_sets_sensor_id_temperature_sensors_id_fk" FOREIGN KEY ("sensor_id") REFERENCES "public"."temperature_sensors"("id") ON DELETE no action ON UPDATE no action;
