@@ -8,8 +8,7 @@ import { z } from "zod";
 import { db } from "@/db";
 import { checklistItems, checklists, diaryEntries, photos, signOffs, users } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import { authorize } from "@/lib/auth/authorize";
-import type { SessionUser } from "@/lib/auth/options";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { GOVERNS, citation } from "@/lib/checks";
@@ -18,7 +17,6 @@ import { isLocalDate, localDayRange } from "@/lib/time/zone";
 import { maturityOfPeriod } from "@/lib/maturity/records";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
-import { assertUuid } from "@/lib/records/guards";
 import { MAX_PHOTO_PIXELS, MAX_REPORT_PHOTOS, MAX_SIGNATURE_PIXELS, thumbnail } from "./thumbnails";
 import { DELIVERY_STATUS_WORDS, warningWord, wordFor } from "@/lib/ui/vocabulary";
 import { drawMaturitySection } from "./maturity-section";
@@ -44,10 +42,10 @@ function dataUrlBytes(url: string | null): { bytes: Buffer; type: string } | nul
   return m ? { bytes: Buffer.from(m[2], "base64"), type: m[1] } : null;
 }
 
-export async function buildDailyReport(user: SessionUser, projectId: string, rawDate: string | null): Promise<{ pdf: Uint8Array; filename: string }> {
-  assertUuid(projectId, "Project");
+export async function buildDailyReport(access: ProjectAccess, rawDate: string | null): Promise<{ pdf: Uint8Array; filename: string }> {
+  const projectId = access.project.id;
   const date = parseOrThrow(reportDateSchema, rawDate ?? undefined);
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
 
   const day = await loadDigestDay(projectId, date);
   const summary = summarizeDay(day);
@@ -101,7 +99,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
   l.text("DAILY PLACEMENT REPORT", { size: 8, bold: true, color: MUTED, gap: 4 });
   l.text(project.name, { size: 18, bold: true, gap: 4 });
   l.text(`${project.code} · ${summary.dateLong} · ${date}`, { size: 10, gap: 2 });
-  l.text(`Times in ${project.timeZone}. Generated ${dateTime(new Date())} by ${user.name ?? user.email}.`, { size: 7, color: MUTED, gap: 6 });
+  l.text(`Times in ${project.timeZone}. Generated ${dateTime(new Date())} by ${access.user.name ?? access.user.email}.`, { size: 7, color: MUTED, gap: 6 });
   if (summary.isEmpty) l.text("Nothing was recorded for this project on this date.", { size: 10, color: CAUTION, gap: 4 });
 
   // Weather

@@ -5,6 +5,7 @@ import { PlacementList } from "@/components/placements/placement-list";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { listPlacementsForScreen } from "@/lib/placements/queries";
@@ -29,9 +30,11 @@ export default async function ProjectPage({
   const date = rawDate && /^\d{4}-\d{2}-\d{2}$/.test(rawDate) ? rawDate : null;
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
+  let access: ProjectAccess;
   let data;
   try {
-    data = await getProjectForMember(user, projectId);
+    access = await accessTo(user, projectId);
+    data = await getProjectForMember(access);
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
       return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden">You are not a member of it. Ask your administrator if you should be.</Notice>;
@@ -39,7 +42,7 @@ export default async function ProjectPage({
     throw error;
   }
   const { project, role, members } = data;
-  const all = await listPlacementsForScreen(user, projectId);
+  const all = await listPlacementsForScreen(access);
   const placements = date ? all.filter((p) => p.plannedStart && localDay(new Date(p.plannedStart), project.timeZone) === date) : all;
   return (
     <>

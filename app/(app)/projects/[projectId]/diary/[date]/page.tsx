@@ -6,6 +6,7 @@ import { AuditTrail } from "@/components/review/audit-trail";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
@@ -19,7 +20,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
   const user = await requireUser();
   let data: DiaryReview;
   try {
-    data = await loadDiaryReview(user, projectId, date);
+    data = await loadDiaryReview(await accessTo(user, projectId), date);
   } catch (error) {
     if (error instanceof AppError && error.code === "forbidden") return <Notice tone="danger" title="This diary is not available to you.">{error.message}</Notice>;
     if (error instanceof AppError && (error.code === "not_found" || error.code === "invalid_input")) notFound();

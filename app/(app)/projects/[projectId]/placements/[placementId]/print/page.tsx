@@ -5,6 +5,7 @@ import { notFound } from "next/navigation";
 import { PrintButton } from "@/components/signoff/print-button";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatLength, formatTemperature, formatVolume, formatWaterVolume, formatSpeed, formatEvaporation, type UnitSystem } from "@/lib/concrete";
 import { AppError } from "@/lib/errors";
@@ -71,7 +72,7 @@ export default async function PlacementPrintPage({ params }: { params: Promise<{
   if (!/^[0-9a-f-]{36}$/i.test(projectId) || !/^[0-9a-f-]{36}$/i.test(placementId)) notFound();
   let data;
   try {
-    data = await loadPlacementPrint(user, projectId, placementId);
+    data = await loadPlacementPrint(await accessTo(user, projectId), placementId);
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
       return (

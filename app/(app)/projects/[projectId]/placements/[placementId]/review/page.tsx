@@ -10,6 +10,7 @@ import { Notice } from "@/components/ui/notice";
 import { OfficeMaturity } from "@/components/maturity/office-maturity";
 import { loadMaturityRecords } from "@/lib/maturity/records";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
 import { GOVERNS, citation } from "@/lib/checks";
@@ -27,15 +28,17 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
   const { projectId, placementId } = await params;
   const user = await requireUser();
   let data: PlacementReview;
+  let access: ProjectAccess;
   try {
-    data = await loadPlacementReview(user, projectId, placementId);
+    access = await accessTo(user, projectId);
+    data = await loadPlacementReview(access, placementId);
   } catch (error) {
     if (error instanceof AppError && error.code === "forbidden") return <Notice tone="danger" title="This placement is not available to you.">{error.message}</Notice>;
     if (error instanceof AppError && (error.code === "not_found" || error.code === "invalid_input")) notFound();
     throw error;
   }
   const { project, placement: p, mix, children, canCorrect } = data;
-  const maturity = await loadMaturityRecords(user, projectId, placementId, (p.mixId as string | null) ?? null);
+  const maturity = await loadMaturityRecords(access, placementId, (p.mixId as string | null) ?? null);
   const units = project.unitSystem;
   const tz = project.timeZone;
   const time = new Intl.DateTimeFormat("en-US", { timeZone: tz, hour: "numeric", minute: "2-digit" });
