@@ -13,7 +13,7 @@ import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { GOVERNS, citation } from "@/lib/checks";
 import { loadDigestDay } from "@/lib/digest/load";
-import { isLocalDate, localDayRange } from "@/lib/time/zone";
+import { formatInstant, isLocalDate, localDayRange } from "@/lib/time/zone";
 import { maturityOfPeriod } from "@/lib/maturity/records";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
@@ -51,9 +51,8 @@ export async function buildDailyReport(access: ProjectAccess, rawDate: string | 
   const summary = summarizeDay(day);
   const { project } = day;
   const units = project.unitSystem;
-  const time = (d: Date) => new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, hour: "numeric", minute: "2-digit" }).format(d);
-  const dateTime = (d: Date) =>
-    new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", year: "numeric", hour: "numeric", minute: "2-digit" }).format(d);
+  const time = (d: Date) => formatInstant(d, project.timeZone, "time");
+  const dateTime = (d: Date) => formatInstant(d, project.timeZone, "yearDayTime");
   const placementIds = day.placements.map((p) => p.id);
 
   const { start: dayStart, end: dayEnd } = localDayRange(date, project.timeZone);

@@ -10,12 +10,10 @@ import { requireUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { listPlacementsForScreen } from "@/lib/placements/queries";
 import { getProjectForMember } from "@/lib/projects/queries";
+import { localDate } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Project" };
 
-/** The project-local calendar day of an instant, as YYYY-MM-DD. */
-const localDay = (instant: Date, timeZone: string) =>
-  new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(instant);
 
 export default async function ProjectPage({
   params,
@@ -43,7 +41,7 @@ export default async function ProjectPage({
   }
   const { project, role, members } = data;
   const all = await listPlacementsForScreen(access);
-  const placements = date ? all.filter((p) => p.plannedStart && localDay(new Date(p.plannedStart), project.timeZone) === date) : all;
+  const placements = date ? all.filter((p) => p.plannedStart && localDate(new Date(p.plannedStart), project.timeZone) === date) : all;
   return (
     <>
       <PageHeader

@@ -12,6 +12,7 @@ import { requireUser } from "@/lib/auth/session";
 import { getDigestHistory, getDigestView, type DigestView } from "@/lib/digest/access";
 import { hourLabel } from "@/lib/digest/hours";
 import { AppError } from "@/lib/errors";
+import { instantFormatter } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Daily digest" };
 
@@ -31,7 +32,7 @@ export default async function DigestPage({ params }: { params: Promise<{ project
     throw error;
   }
   const { project } = view;
-  const when = new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const when = instantFormatter(project.timeZone, "dayTime");
   const recipients: RecipientItem[] = view.recipients.map((r) => ({
     id: r.id,
     email: r.email,

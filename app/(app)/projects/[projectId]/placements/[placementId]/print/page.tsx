@@ -11,6 +11,7 @@ import { formatLength, formatTemperature, formatVolume, formatWaterVolume, forma
 import { AppError } from "@/lib/errors";
 import { placementStateLabel } from "@/lib/ui/vocabulary";
 import { loadPlacementPrint } from "@/lib/signoff/print";
+import { formatInstant } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Placement record" };
 
@@ -22,10 +23,10 @@ function when(value: unknown, timeZone: string): string {
   if (!value) return "—";
   const d = value instanceof Date ? value : new Date(String(value));
   if (Number.isNaN(d.getTime())) return "—";
-  return new Intl.DateTimeFormat("en-US", { year: "numeric", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone, timeZoneName: "short" }).format(d);
+  return formatInstant(d, timeZone, "yearDayTimeZone");
 }
 const time = (value: unknown, timeZone: string) =>
-  value ? new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(new Date(String(value instanceof Date ? value.toISOString() : value))) : "—";
+  value ? formatInstant(value instanceof Date ? value : String(value), timeZone, "time") : "—";
 const answerWord = (a: unknown) => (a === "yes" ? "Yes" : a === "no" ? "No" : a === "na" ? "N/A" : "—");
 const roleWord = (r: string) => ROLE_LABELS[r as ProjectRole] ?? r;
 

@@ -3,7 +3,7 @@ import { elementTypeLabel } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StoredPhotos, type StoredPhoto } from "@/components/photos/stored-photos";
-import { AuditTrail } from "@/components/review/audit-trail";
+import { AuditTrail } from "@/components/audit/audit-trail";
 import { Correction } from "@/components/review/correction";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
@@ -17,6 +17,7 @@ import { GOVERNS, citation } from "@/lib/checks";
 import { AppError } from "@/lib/errors";
 import { StateBadge } from "@/components/ui/state-badge";
 import { SEVERITY_WORDS, severityOf, TONES, warningWord, wordFor } from "@/lib/ui/vocabulary";
+import { instantFormatter } from "@/lib/time/zone";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
 
 export const metadata: Metadata = { title: "Placement review" };
@@ -41,8 +42,8 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
   const maturity = await loadMaturityRecords(access, placementId, (p.mixId as string | null) ?? null);
   const units = project.unitSystem;
   const tz = project.timeZone;
-  const time = new Intl.DateTimeFormat("en-US", { timeZone: tz, hour: "numeric", minute: "2-digit" });
-  const dayTime = new Intl.DateTimeFormat("en-US", { timeZone: tz, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const time = instantFormatter(tz, "time");
+  const dayTime = instantFormatter(tz, "dayTime");
   const t = (v: unknown) => (v ? time.format(new Date(v as string)) : "—");
   const deliveries = children.deliveries as R[];
   const tests = children["field-tests"] as R[];
@@ -98,7 +99,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
           ]}
         />
         <div className="mt-2">
-          <AuditTrail projectId={projectId} recordId={p.id as string} timeZone={tz} label="Audit trail" />
+          <AuditTrail look="inline" projectId={projectId} recordId={p.id as string} timeZone={tz} label="Audit trail" />
         </div>
       </Section>
 
@@ -158,7 +159,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                     {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="waterAddedL" quantity="waterVolume" valueSI={water} unitSystem={units} label="Water added" testId={`correct-water-${d.ticketNumber}`} /> : null}
                   </span>,
                   <span key="s" className="flex flex-col items-start gap-0.5"><StateBadge kind="delivery" code={d.status as string} size="sm" testId="delivery-status" />{d.status === "rejected" && d.rejectReason ? <span className="text-xs">{d.rejectReason as string}</span> : null}</span>,
-                  <AuditTrail key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
+                  <AuditTrail look="inline" key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
                 ],
               };
             })}
@@ -184,7 +185,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
                 num(x.airTempC) === null ? "—" : formatTemperature(num(x.airTempC)!, units),
                 num(x.densityKgM3) === null ? "—" : formatDensity(num(x.densityKgM3)!, units),
                 (x.notes as string) || "",
-                <AuditTrail key="a" projectId={projectId} recordId={x.id as string} timeZone={tz} />,
+                <AuditTrail look="inline" key="a" projectId={projectId} recordId={x.id as string} timeZone={tz} />,
               ],
             }))}
           />
