@@ -49,7 +49,7 @@ export async function resolveMemberAccess(user: SessionUser, projectIds: string[
 
 /**
  * Throws forbidden unless the resolved access allows `action` (or one of `actions`), as can()
- * decides; returns the role. No query: the role was resolved once, at the door or by authorize().
+ * decides; returns the role. No query: the role was resolved once, at the door or by accessTo().
  */
 export function permit(access: ProjectAccess, action: Action | readonly Action[], message = DEFAULT_REFUSAL): ProjectRole {
   const { user, role } = access;
