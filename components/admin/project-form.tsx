@@ -11,6 +11,7 @@ import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import { projectSchema } from "@/lib/projects/schemas";
+import { deviceTimeZone } from "@/lib/time/zone";
 
 type FormIn = z.input<typeof projectSchema>;
 
@@ -19,7 +20,7 @@ export function ProjectForm() {
   const [message, setMessage] = useState<{ tone: "success" | "danger"; text: string } | null>(null);
   const form = useForm<FormIn>({
     resolver: zodResolver(projectSchema),
-    defaultValues: { timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone, unitSystem: "IP", siteAddress: "" },
+    defaultValues: { timeZone: deviceTimeZone(), unitSystem: "IP", siteAddress: "" },
   });
 
   const onSubmit = form.handleSubmit(async (values) => {

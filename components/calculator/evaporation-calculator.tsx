@@ -14,11 +14,11 @@ import {
   evaluate,
   fieldUnit,
   convertDraft,
-  rateByWind,
   weatherCautions,
   type Draft,
   type FieldName,
 } from "./evaporation-model";
+import { rateByWind } from "./evaporation-chart-model";
 import { EvaporationResult, ResultStrip } from "./evaporation-result";
 import { MeasureField } from "./measure-field";
 // recharts loads after the first paint (the result and guidance above it do not need it); the

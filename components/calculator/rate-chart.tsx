@@ -3,7 +3,8 @@
 import { useId } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, XAxis, YAxis } from "recharts";
 import { unitLabel, type UnitSystem } from "@/lib/concrete";
-import { chartSummary, formatRate, riskThresholds, type ChartPoint } from "./evaporation-model";
+import { chartSummary, type ChartPoint } from "./evaporation-chart-model";
+import { formatRate, riskThresholds } from "./evaporation-model";
 import { paletteHex } from "@/lib/ui/palette";
 
 // Palette values from tailwind.config.ts: SVG strokes need literal colours.

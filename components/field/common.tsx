@@ -12,7 +12,7 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from "@/lib/concrete";
 import { isLocalWriteError, listProjects, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useOptionalSyncDb } from "@/lib/sync/client/react";
-import { addDays as addLocalDays, isTimeZone, localDate, localDateTime, localDateTimeToInstant } from "@/lib/time/zone";
+import { addDays as addLocalDays, calendarDateText, deviceTimeZone, formatInstant, isTimeZone, localDate, localDateTime, localDateTimeToInstant } from "@/lib/time/zone";
 
 export type FieldContextValue = { selectedProjectId: string | null; selectProject: (id: string | null) => void };
 export const FieldContext = createContext<FieldContextValue>({ selectedProjectId: null, selectProject: () => {} });
@@ -50,7 +50,7 @@ export function formatTime(value: unknown, timeZone?: string): string {
   const d = new Date(value);
   if (Number.isNaN(d.getTime())) return "—";
   try {
-    return new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(d);
+    return formatInstant(d, timeZone, "time");
   } catch {
     return d.toLocaleTimeString();
   }
@@ -61,7 +61,7 @@ export function formatDateTime(value: unknown, timeZone?: string): string {
   const d = new Date(value);
   if (Number.isNaN(d.getTime())) return "—";
   try {
-    return new Intl.DateTimeFormat("en-US", { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone }).format(d);
+    return formatInstant(d, timeZone, "weekdayDayTime");
   } catch {
     return d.toLocaleString();
   }
@@ -69,13 +69,11 @@ export function formatDateTime(value: unknown, timeZone?: string): string {
 
 // Inputs show and read times on the project's wall clock (lib/time/zone), whatever zone the
 // device is set to; without a zone (screens not tied to a project) the device's clock is used.
-const zoneOf = (timeZone?: string) => (timeZone && isTimeZone(timeZone) ? timeZone : Intl.DateTimeFormat().resolvedOptions().timeZone);
+const zoneOf = (timeZone?: string) => (timeZone && isTimeZone(timeZone) ? timeZone : deviceTimeZone());
 
 /** A project-local calendar date (YYYY-MM-DD) in words: "Wed, Dec 2". */
 export function formatDay(date: string): string {
-  const t = Date.parse(`${date}T12:00:00Z`);
-  if (Number.isNaN(t)) return date;
-  return new Intl.DateTimeFormat("en-US", { weekday: "short", month: "short", day: "numeric", timeZone: "UTC" }).format(t);
+  return calendarDateText(date, "shortDate");
 }
 
 /** Value for an <input type="datetime-local"> from an instant, on the project's wall clock. */
@@ -230,6 +228,6 @@ export function NowInput({
 function ZoneHint({ value, timeZone }: { value: string; timeZone: string }) {
   const at = fromLocalInput(value, timeZone);
   if (!at) return null;
-  const text = new Intl.DateTimeFormat("en-US", { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone, timeZoneName: "short" }).format(new Date(at));
+  const text = formatInstant(at, timeZone, "weekdayDayTimeZone");
   return <p className="text-sm text-muted">{text} (project time)</p>;
 }

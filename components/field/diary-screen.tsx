@@ -17,6 +17,7 @@ import { createLocal, deleteLocal, listByParent, listByProject, updateLocal, typ
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { Section, addDays, mayWrite, dateInZone, num, str, unitSystemOf, useFieldContext, useProjects, writeErrorOf } from "./common";
+import { calendarDateText } from "@/lib/time/zone";
 
 type EntryValues = { weatherSummary: string; workDone: string; safetyNotes: string };
 
@@ -197,7 +198,7 @@ export function DiaryScreen() {
 
   return (
     <div className="flex flex-col gap-4">
-      <PageHeader title="Daily diary" subtitle={`${project.name} · ${new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric", year: "numeric", timeZone: "UTC" }).format(new Date(`${date}T12:00:00Z`))}`} />
+      <PageHeader title="Daily diary" subtitle={`${project.name} · ${calendarDateText(date, "longDate")}`} />
       <div className="flex gap-2">
         <Link href={nav(addDays(date, -1))} className="inline-flex min-h-touch items-center rounded-lg border border-ink-300 bg-white px-4 font-semibold" data-testid="diary-prev">
           Previous day

@@ -18,6 +18,7 @@ import { SyncProvider, useOfflineIdentity } from "@/lib/sync/client/react";
 import { finishPendingSignOut } from "@/lib/sync/client/erase";
 import { useOfflineAccess } from "@/lib/sync/client/use-offline-access";
 import { PinUnlock, SignInToOpen } from "./device-lock";
+import { ProjectPicker } from "@/components/ui/project-picker";
 import { FieldContext, useProjects } from "./common";
 
 const NAV = [
@@ -30,26 +31,11 @@ const NAV = [
 
 const PROJECT_KEY = "pw-field-project";
 
-function ProjectPicker({ value, onChange }: { value: string | null; onChange: (id: string | null) => void }) {
+function FieldProjectPicker({ value, onChange }: { value: string | null; onChange: (id: string | null) => void }) {
   const projects = useProjects();
   if (!projects || projects.length === 0) return null;
   return (
-    <label className="flex min-w-0 items-center">
-      <span className="sr-only">Project</span>
-      <select
-        data-testid="field-project-switcher"
-        value={value ?? ""}
-        onChange={(e) => onChange(e.target.value || null)}
-        className="min-h-11 min-w-0 max-w-[8.5rem] truncate rounded-md border border-ink-600 bg-ink-800 px-2 text-sm font-semibold text-white sm:max-w-xs"
-      >
-        <option value="">All my projects</option>
-        {projects.map((p) => (
-          <option key={p.id} value={p.id}>
-            {p.name}
-          </option>
-        ))}
-      </select>
-    </label>
+    <ProjectPicker look="header" testId="field-project-switcher" projects={projects} value={value ?? ""} onChange={(id) => onChange(id || null)} className="min-w-0 max-w-[8.5rem]" />
   );
 }
 
@@ -106,7 +92,7 @@ export function FieldShell({ children }: { children: React.ReactNode }) {
           <header className="no-print sticky top-0 z-20 border-b border-ink-800 bg-ink-900 text-white">
             <div className="mx-auto flex max-w-5xl items-center gap-2 px-3 py-2">
               <BrandLink href="/field/today" className="shrink-0" />
-              {identity ? <ProjectPicker value={selectedProjectId} onChange={selectProject} /> : null}
+              {identity ? <FieldProjectPicker value={selectedProjectId} onChange={selectProject} /> : null}
               <div className="ml-auto flex items-center gap-1">
                 <SyncStatus />
                 <ContrastToggle />

@@ -23,7 +23,7 @@ import { ConcreteInPlace } from "@/components/inspection/concrete-in-place";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { OpenFindings } from "@/components/findings/open-findings";
 import { ReadinessCheck, useReadiness } from "@/components/inspection/readiness-check";
-import { AuditTrail } from "@/components/signoff/audit-trail";
+import { AuditTrail } from "@/components/audit/audit-trail";
 import { PlacementSignOff } from "@/components/signoff/placement-sign-off";
 import { FieldMaturity } from "@/components/maturity/field-maturity";
 import { CuringLog } from "./curing-log";

@@ -19,6 +19,7 @@ import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, nu
 import { fieldFindings, placementFindings } from "./findings-model";
 import { PlanPlacementForm } from "./plan-placement-form";
 import { readFieldRecords } from "./use-findings";
+import { formatInstant } from "@/lib/time/zone";
 
 
 type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
@@ -62,9 +63,9 @@ export function TodayScreen() {
   const zone = shown[0]?.timeZone;
   let heading: string;
   try {
-    heading = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric", timeZone: zone }).format(new Date());
+    heading = formatInstant(new Date(), zone, "longDay");
   } catch {
-    heading = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric" }).format(new Date());
+    heading = formatInstant(new Date(), undefined, "longDay");
   }
   if (shown.length === 1 && zone) heading += ` · ${shown[0].name}`;
 

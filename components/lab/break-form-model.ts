@@ -3,6 +3,7 @@
 import { cylinderStrengthMPa, inToMm, kNToLbf, lbfToKN, mmToIn, type UnitSystem } from "@/lib/concrete";
 import { breakAgeDays, dueAt } from "@/lib/lab/due";
 import { breakCreateSchema } from "@/lib/records/schemas/specimens";
+import { localDateTime, localDateTimeToInstant } from "@/lib/time/zone";
 
 export type BreakFormValues = { testedAt: string; load: string; diameter: string; length: string; fractureType: string };
 
@@ -14,30 +15,13 @@ const num = (text: string) => {
   return t === "" ? undefined : Number(t);
 };
 
-/** A wall-clock time typed for the project's time zone ("2026-12-02T09:30") → the instant. */
-export function zonedToInstant(local: string, timeZone: string): Date | null {
-  if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/.test(local)) return null;
-  const guess = new Date(`${local}:00Z`);
-  const parts = new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }).formatToParts(guess);
-  const part = (type: string) => Number(parts.find((p) => p.type === type)!.value);
-  const shown = Date.UTC(part("year"), part("month") - 1, part("day"), part("hour"), part("minute"));
-  return new Date(guess.getTime() - (shown - guess.getTime()));
-}
-
-/** An instant as the wall-clock value of a datetime-local input in the project's time zone. */
-export function instantToZoned(instant: Date, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat("en-CA", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }).formatToParts(instant);
-  const p = (type: string) => parts.find((x) => x.type === type)!.value;
-  return `${p("year")}-${p("month")}-${p("day")}T${p("hour")}:${p("minute")}`;
-}
-
 export type SetForForm = { id: string; castAt: string | Date; cylinderDiameterMm: number; cylinderLengthMm: number; testAgesDays: number[]; testedAges: number[] };
 
 export function breakDefaults(set: SetForForm, units: UnitSystem, timeZone: string): BreakFormValues {
   const next = [...set.testAgesDays].sort((a, b) => a - b).find((age) => !set.testedAges.includes(age)) ?? set.testAgesDays[set.testAgesDays.length - 1];
   const size = (mm: number) => (units === "SI" ? String(mm) : String(Number(mmToIn(mm).toFixed(2))));
   return {
-    testedAt: instantToZoned(dueAt(new Date(set.castAt), next), timeZone),
+    testedAt: localDateTime(dueAt(new Date(set.castAt), next), timeZone),
     load: "",
     // The set records the nominal class (100 or 150 mm); inch-pound labs mould 4 in and 6 in cylinders.
     diameter: units === "SI" ? String(set.cylinderDiameterMm) : set.cylinderDiameterMm >= 150 ? "6" : "4",
@@ -48,7 +32,7 @@ export function breakDefaults(set: SetForForm, units: UnitSystem, timeZone: stri
 
 /** Form strings → the SI break record; NaN stays NaN so the schema names the field. */
 export function formToBreak(values: BreakFormValues, set: SetForForm, units: UnitSystem, timeZone: string, id: string) {
-  const testedAt = zonedToInstant(values.testedAt, timeZone);
+  const testedAt = localDateTimeToInstant(values.testedAt, timeZone);
   const load = num(values.load);
   const diameter = num(values.diameter);
   const length = num(values.length);

@@ -10,7 +10,8 @@ import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import type { UnitSystem } from "@/lib/concrete";
 import { breakAgeDays } from "@/lib/lab/due";
-import { breakDefaults, checkBreak, loadUnit, sizeUnit, zonedToInstant, type BreakFormValues, type SetForForm } from "./break-form-model";
+import { breakDefaults, checkBreak, loadUnit, sizeUnit, type BreakFormValues, type SetForForm } from "./break-form-model";
+import { localDateTimeToInstant } from "@/lib/time/zone";
 import { strengthText } from "./format";
 
 // ASTM C39 fracture patterns, recorded by number [memory: C39 figure].
@@ -38,7 +39,7 @@ export function BreakForm({ projectId, set, unitSystem, timeZone, judge }: { pro
   const form = useForm<BreakFormValues>({ defaultValues: breakDefaults(set, unitSystem, timeZone), resolver });
   const values = useWatch({ control: form.control }) as BreakFormValues;
   const preview = checkBreak(values, set, unitSystem, timeZone, id);
-  const testedAt = zonedToInstant(values.testedAt, timeZone);
+  const testedAt = localDateTimeToInstant(values.testedAt, timeZone);
   const age = testedAt ? breakAgeDays(new Date(set.castAt), testedAt, set.testAgesDays) : null;
   const lowCylinder = judge && age === judge.fcAgeDays && preview.strengthMPa !== null && preview.strengthMPa < judge.individualLimitMPa;
   const e = form.formState.errors;

@@ -1,5 +1,6 @@
 // Display helpers for the lab screens (project units, project time zone).
 import { formatStrength, mmToIn, type UnitSystem } from "@/lib/concrete";
+import { formatInstant } from "@/lib/time/zone";
 
 export const strengthText = (mpa: number | null | undefined, units: UnitSystem) =>
   mpa === null || mpa === undefined ? "—" : formatStrength(mpa, units);
@@ -10,11 +11,11 @@ export const cylinderText = (diameterMm: number, lengthMm: number | null, units:
 };
 
 export function dateTimeText(iso: string | Date, timeZone: string) {
-  return new Intl.DateTimeFormat("en-US", { timeZone, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" }).format(new Date(iso));
+  return formatInstant(iso, timeZone, "dayTime");
 }
 
 export function dateText(iso: string | Date, timeZone: string) {
-  return new Intl.DateTimeFormat("en-US", { timeZone, weekday: "short", month: "short", day: "numeric", year: "numeric" }).format(new Date(iso));
+  return formatInstant(iso, timeZone, "weekdayDate");
 }
 
 /** A set's nominal cylinder class: 100 or 150 mm, moulded as 4 × 8 or 6 × 12 in on inch-pound jobs. */

@@ -5,6 +5,7 @@ import clsx from "clsx";
 import Link from "next/link";
 import { useState } from "react";
 import { Notice } from "@/components/ui/notice";
+import { ProjectPicker } from "@/components/ui/project-picker";
 import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import type { LabQueue } from "@/lib/lab/queue";
@@ -35,10 +36,7 @@ export function LabQueueTable() {
     <section className="card" aria-labelledby="queue-title">
       <div className="flex flex-wrap items-end gap-3 border-b border-ink-100 p-3">
         <h2 id="queue-title" className="mr-auto text-lg font-bold">Tests by due date</h2>
-        <Select label="Project" value={projectId} onChange={(e) => setProjectId(e.target.value)} data-testid="queue-project">
-          <option value="">All my projects</option>
-          {query.data?.projects.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
-        </Select>
+        <ProjectPicker look="form" testId="queue-project" projects={query.data?.projects ?? []} value={projectId} onChange={setProjectId} />
         <Select label="Show" value={show} onChange={(e) => setShow(e.target.value as Show)} data-testid="queue-show">
           <option value="open">Not yet tested</option>
           <option value="overdue">Overdue only</option>

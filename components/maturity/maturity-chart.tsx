@@ -3,6 +3,7 @@
 import { CartesianGrid, Legend, Line, LineChart, XAxis, YAxis } from "recharts";
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
 import { paletteHex } from "@/lib/ui/palette";
+import { instantFormatter } from "@/lib/time/zone";
 
 const INK_600 = paletteHex("ink-600");
 const INK_200 = paletteHex("ink-200");
@@ -21,7 +22,7 @@ type Series = { id: string; name: string; points: { t: number; tempC: number; ma
 export function MaturityChart({ series, unit, units, timeZone }: { series: Series[]; unit: string; units: UnitSystem; timeZone: string }) {
   const drawn = series.filter((s) => s.points.length > 0);
   if (drawn.length === 0) return <p className="text-sm text-muted" data-testid="maturity-chart-empty">The chart appears when a sensor has readings.</p>;
-  const day = new Intl.DateTimeFormat("en-US", { timeZone, month: "short", day: "numeric", hour: "numeric" });
+  const day = instantFormatter(timeZone, "dayHour");
   const all = drawn.flatMap((s) => s.points.map((p) => p.t));
   const domain = [Math.min(...all), Math.max(...all)];
   const rows = (key: "tempC" | "maturity") =>

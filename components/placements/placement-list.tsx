@@ -2,10 +2,11 @@ import { StateBadge } from "@/components/ui/state-badge";
 import { formatVolume, type UnitSystem } from "@/lib/concrete/units";
 import type { PlacementListItem } from "@/lib/placements/queries";
 import { placementStateLabel, textClassOf } from "@/lib/ui/vocabulary";
+import { instantFormatter } from "@/lib/time/zone";
 
 export function PlacementList({ placements, unitSystem, timeZone }: { placements: PlacementListItem[]; unitSystem: UnitSystem; timeZone: string }) {
   if (placements.length === 0) return <p className="mt-2 text-muted" data-testid="no-placements">No placements yet.</p>;
-  const when = new Intl.DateTimeFormat("en-US", { timeZone, weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const when = instantFormatter(timeZone, "weekdayDayTime");
   return (
     <ul className="mt-2 divide-y divide-ink-100" data-testid="placement-list">
       {placements.map((p) => {

@@ -1,8 +1,6 @@
-import { and, eq } from "drizzle-orm";
 import { NextResponse, type NextRequest } from "next/server";
 import { z, type ZodType } from "zod";
-import { db } from "@/db";
-import { memberships, projects } from "@/db/schema";
+import { resolveAccess, type Project, type ProjectAccess } from "@/lib/auth/access";
 import { can, type Action } from "@/lib/auth/can";
 import type { SessionUser } from "@/lib/auth/options";
 import type { ProjectRole } from "@/lib/auth/roles";
@@ -11,7 +9,7 @@ import { AppError, forbidden, invalidInput } from "@/lib/errors";
 import { errorResponse, readBody } from "./handler";
 import { checkOrigin } from "./request-guard";
 
-export type Project = typeof projects.$inferSelect;
+export type { Project };
 
 export type ProjectRouteCtx<P, B> = {
   req: NextRequest;
@@ -19,6 +17,8 @@ export type ProjectRouteCtx<P, B> = {
   /** The user's role on the project; null only for an administrator on a project.manage route. */
   role: ProjectRole | null;
   project: Project;
+  /** { user, role, project } as one value, to hand to lib. */
+  access: ProjectAccess;
   params: P;
   body: B;
 };
@@ -40,21 +40,15 @@ export function parsePathIds<P extends Record<string, string>>(raw: P): P {
 /** One answer for a project that does not exist and one the user does not belong to: no existence oracle. */
 const projectNotFound = () => new AppError("not_found", "Project not found.");
 
-/** The project and the user's role on it, in one query. */
-export async function projectAccess(user: SessionUser, projectId: string, action: Action) {
-  const [row] = await db
-    .select({ project: projects, role: memberships.role })
-    .from(projects)
-    .leftJoin(memberships, and(eq(memberships.projectId, projects.id), eq(memberships.userId, user.id)))
-    .where(eq(projects.id, projectId))
-    .limit(1);
-  if (!row) throw projectNotFound();
-  const role = row.role ?? null;
-  if (!can(user, action, role)) {
-    if (role === null) throw projectNotFound();
+/** The door's policy on the one lookup: missing or foreign → 404, a member without the action → 403. */
+export async function projectAccess(user: SessionUser, projectId: string, action: Action): Promise<ProjectAccess> {
+  const access = await resolveAccess(user, projectId);
+  if (!access) throw projectNotFound();
+  if (!can(user, action, access.role)) {
+    if (access.role === null) throw projectNotFound();
     throw forbidden("Your role on this project does not allow that.");
   }
-  return { project: row.project, role };
+  return access;
 }
 
 /**
@@ -73,9 +67,9 @@ export function projectRoute<P extends { projectId: string }, B = undefined>(
       checkOrigin(req);
       const user = await requireUser(req);
       const params = parsePathIds((await context.params) ?? ({} as P));
-      const { project, role } = await projectAccess(user, params.projectId, options.action);
+      const access = await projectAccess(user, params.projectId, options.action);
       const body = await readBody(req, options);
-      const result = await handler({ req, user, role, project, params, body });
+      const result = await handler({ req, user, role: access.role, project: access.project, access, params, body });
       if (result instanceof Response) return result;
       return NextResponse.json(result ?? { ok: true });
     } catch (error) {

@@ -1,15 +1,10 @@
 // What the digest routes and screen may show or do for a signed-in user: the office manages
 // (digest.manage), an owner sees and changes only their own preferences, an administrator sees
 // who receives what. Project records (the preview) only go to the office.
-import { eq } from "drizzle-orm";
 import { z } from "zod";
-import { db } from "@/db";
-import { projects } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/options";
-import { authorize } from "@/lib/auth/authorize";
-import { can } from "@/lib/auth/can";
+import { allows, permit, type ProjectAccess } from "@/lib/auth/access";
 import type { ProjectRole } from "@/lib/auth/roles";
-import { AppError, notFound } from "@/lib/errors";
+import { AppError } from "@/lib/errors";
 import { logger } from "@/lib/log";
 import { buildDigest, digestLinks, type DigestMessage } from "./content";
 import { loadDigestDay } from "./load";
@@ -29,19 +24,12 @@ export type DigestView = {
   recipients: RecipientView[];
 };
 
-async function projectOrThrow(projectId: string) {
-  if (!z.guid().safeParse(projectId).success) throw notFound("Project");
-  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-  if (!project) throw notFound("Project");
-  return project;
-}
-
 /** Recipients as this user may see them: all for the office, their own for an owner (lib/auth/can.ts). */
-export async function getDigestView(user: SessionUser, projectId: string): Promise<DigestView> {
-  const project = await projectOrThrow(projectId);
-  const role = await authorize(user, "digest.read", projectId, undefined, "The digest settings are for the office and the project's owners.");
-  const canManage = can(user, "digest.manage", role);
-  const rows = await listRecipientRows(projectId);
+export async function getDigestView(access: ProjectAccess): Promise<DigestView> {
+  const { user, project } = access;
+  const role = permit(access, "digest.read", "The digest settings are for the office and the project's owners.");
+  const canManage = allows(access, "digest.manage");
+  const rows = await listRecipientRows(project.id);
   return {
     project: { id: project.id, name: project.name, timeZone: project.timeZone, digestHour: project.digestHour, today: localDate(new Date(), project.timeZone) },
     role,
@@ -50,18 +38,17 @@ export async function getDigestView(user: SessionUser, projectId: string): Promi
   };
 }
 
-export async function previewDigest(user: SessionUser, projectId: string, date: string): Promise<DigestMessage> {
-  await projectOrThrow(projectId);
-  await authorize(user, "digest.manage", projectId);
+export async function previewDigest(access: ProjectAccess, date: string): Promise<DigestMessage> {
+  permit(access, "digest.manage");
+  const projectId = access.project.id;
   const day = await loadDigestDay(projectId, date);
   return buildDigest(day, digestLinks(appOrigin(), projectId, date, null));
 }
 
-export async function sendDigestNow(user: SessionUser, projectId: string, date: string): Promise<SendReport> {
-  await projectOrThrow(projectId);
-  await authorize(user, "digest.manage", projectId);
+export async function sendDigestNow(access: ProjectAccess, date: string): Promise<SendReport> {
+  permit(access, "digest.manage");
   try {
-    return await sendDigest(projectId, date, { sentBy: user.id });
+    return await sendDigest(access.project.id, date, { sentBy: access.user.id });
   } catch (error) {
     if (error instanceof DigestSendError) {
       throw new AppError("unavailable", `The mail server did not accept the digest for ${error.failures.map((f) => f.email).join(", ")}. Nothing was recorded for them; try again.`);
@@ -70,11 +57,10 @@ export async function sendDigestNow(user: SessionUser, projectId: string, date: 
   }
 }
 
-export async function getDigestHistory(user: SessionUser, projectId: string): Promise<HistoryRow[]> {
-  await projectOrThrow(projectId);
+export async function getDigestHistory(access: ProjectAccess): Promise<HistoryRow[]> {
   // An administrator reads it only through a membership, like every project record (lib/auth/can.ts).
-  await authorize(user, "digest.manage", projectId);
-  return listSentDigests(projectId);
+  permit(access, "digest.manage");
+  return listSentDigests(access.project.id);
 }
 
 /** After a change of hours or recipients: requeue at once when this process runs the queue. */

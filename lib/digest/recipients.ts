@@ -5,9 +5,7 @@ import { z } from "zod";
 import { db, type Executor } from "@/db";
 import { transaction } from "@/db/transaction";
 import { digestRecipients, projects, users } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/options";
-import { authorize } from "@/lib/auth/authorize";
-import { can } from "@/lib/auth/can";
+import { allows, permit, type ProjectAccess } from "@/lib/auth/access";
 import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput, notFound } from "@/lib/errors";
 import { FIRST_DIGEST_HOUR, LAST_DIGEST_HOUR, hourLabel } from "./hours";
@@ -71,9 +69,10 @@ async function getRecipientOrThrow(tx: Executor, projectId: string, id: string):
   return row;
 }
 
-export async function addRecipient(user: SessionUser, projectId: string, input: z.output<typeof addRecipientSchema>) {
+export async function addRecipient(access: ProjectAccess, input: z.output<typeof addRecipientSchema>) {
+  permit(access, "digest.manage");
+  const { user, project: { id: projectId } } = access;
   return transaction(async (tx) => {
-    await authorize(user, "digest.manage", projectId, tx);
     const [row] = await tx
       .insert(digestRecipients)
       .values({ projectId, email: input.email, source: "added", hourOverride: input.hourOverride ?? null, sendEmptyDays: input.sendEmptyDays ?? true, addedBy: user.id })
@@ -86,12 +85,13 @@ export async function addRecipient(user: SessionUser, projectId: string, input: 
 }
 
 /** The office changes anyone's hour or empty-day choice; an owner changes their own and may resubscribe. */
-export async function updateRecipient(user: SessionUser, projectId: string, id: string, patch: z.output<typeof updateRecipientSchema>) {
+export async function updateRecipient(access: ProjectAccess, id: string, patch: z.output<typeof updateRecipientSchema>) {
+  permit(access, ["digest.manage", "digest.subscribe"]);
+  const { user, project: { id: projectId } } = access;
   return transaction(async (tx) => {
-    const role = await authorize(user, ["digest.manage", "digest.subscribe"], projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
-    const own = can(user, "digest.subscribe", role) && row.userId === user.id;
-    if (!can(user, "digest.manage", role) && !own) throw forbidden("You can change only your own digest settings.");
+    const own = allows(access, "digest.subscribe") && row.userId === user.id;
+    if (!allows(access, "digest.manage") && !own) throw forbidden("You can change only your own digest settings.");
     if (patch.subscribed !== undefined && !own) {
       throw forbidden("Only the recipient can subscribe or unsubscribe themselves; remove an added address instead.");
     }
@@ -110,9 +110,10 @@ export async function updateRecipient(user: SessionUser, projectId: string, id: 
   });
 }
 
-export async function removeRecipient(user: SessionUser, projectId: string, id: string) {
+export async function removeRecipient(access: ProjectAccess, id: string) {
+  permit(access, "digest.manage");
+  const { user, project: { id: projectId } } = access;
   await transaction(async (tx) => {
-    await authorize(user, "digest.manage", projectId, tx);
     const row = await getRecipientOrThrow(tx, projectId, id);
     if (row.source === "member") {
       throw conflict("Owners receive the digest through their membership; they can unsubscribe themselves.");
@@ -122,9 +123,10 @@ export async function removeRecipient(user: SessionUser, projectId: string, id: 
   });
 }
 
-export async function setProjectDigestHour(user: SessionUser, projectId: string, digestHour: number) {
+export async function setProjectDigestHour(access: ProjectAccess, digestHour: number) {
+  permit(access, "digest.manage");
+  const { user, project: { id: projectId } } = access;
   await transaction(async (tx) => {
-    await authorize(user, "digest.manage", projectId, tx);
     const [before] = await tx.select({ digestHour: projects.digestHour }).from(projects).where(eq(projects.id, projectId));
     if (!before) throw notFound("Project");
     await tx.update(projects).set({ digestHour, updatedAt: new Date() }).where(eq(projects.id, projectId));

@@ -3,7 +3,7 @@
 import { formatStrength, formatTemperature, formatVolume, formatWaterVolume, mmToIn, toDisplay, unitLabel } from "@/lib/concrete";
 import { placementStateLabel } from "@/lib/ui/vocabulary";
 import type { PlacementState } from "@/lib/records/enums";
-import { localDate } from "@/lib/time/zone";
+import { calendarDateText, instantFormatter, localDate } from "@/lib/time/zone";
 import { attention, type Finding } from "@/lib/checks";
 import { strengthTests } from "@/lib/checks/strength";
 import { dayFindings } from "@/lib/findings/load";
@@ -36,18 +36,13 @@ export type DigestSummary = {
 };
 
 function formatters(timeZone: string) {
-  const time = new Intl.DateTimeFormat("en-US", { timeZone, hour: "numeric", minute: "2-digit" });
-  const dayTime = new Intl.DateTimeFormat("en-US", { timeZone, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const time = instantFormatter(timeZone, "time");
+  const dayTime = instantFormatter(timeZone, "dayTime");
   return { time, dayTime };
 }
 
 function dateLabels(date: string) {
-  const [y, m, d] = date.split("-").map(Number);
-  const noonUtc = new Date(Date.UTC(y, m - 1, d, 12));
-  return {
-    dateLong: new Intl.DateTimeFormat("en-US", { timeZone: "UTC", weekday: "long", month: "long", day: "numeric", year: "numeric" }).format(noonUtc),
-    dateShort: new Intl.DateTimeFormat("en-US", { timeZone: "UTC", weekday: "short", month: "short", day: "numeric" }).format(noonUtc),
-  };
+  return { dateLong: calendarDateText(date, "longDate"), dateShort: calendarDateText(date, "shortDate") };
 }
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;

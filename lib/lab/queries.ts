@@ -2,25 +2,15 @@
 // acceptance per mix. Every read is scoped to a project the user may read (lib/auth).
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { breaks, mixDesigns, placements, projects, specimenSets, temperatureSensors } from "@/db/schema";
+import { breaks, mixDesigns, placements, specimenSets, temperatureSensors } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import { authorize } from "@/lib/auth/authorize";
-import { can } from "@/lib/auth/can";
-import type { SessionUser } from "@/lib/auth/options";
+import { allows, permit, type ProjectAccess } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
-import { assertUuid } from "@/lib/records/guards";
 import { acceptanceQuerySchema, setsQuerySchema } from "./schemas";
 import { mixAcceptance, strengthTests, type LabBreak, type LabSet, type MixAcceptance, type StrengthTestRow } from "@/lib/checks/strength";
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-async function projectOrThrow(user: SessionUser, projectId: string) {
-  assertUuid(projectId, "Project");
-  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-  if (!project) throw notFound("Project");
-  const role = await authorize(user, "project.read", projectId);
-  return { project, role };
-}
 
 type SetRow = LabSet & {
   deliveryId: string | null;
@@ -77,9 +67,11 @@ async function placementSensors(projectId: string, placementIds: string[]) {
 }
 
 /** The specimen sets of a project (optionally of one placement) with their breaks and strength tests. */
-export async function getProjectSets(user: SessionUser, projectId: string, query: unknown) {
+export async function getProjectSets(access: ProjectAccess, query: unknown) {
   const q = parseOrThrow(setsQuerySchema, query ?? {});
-  const { project, role } = await projectOrThrow(user, projectId);
+  permit(access, "project.read");
+  const { project } = access;
+  const projectId = project.id;
   const [{ sets, breaks: breakRows }, mixes] = await Promise.all([loadProjectLab(projectId, q.placement), projectMixes(projectId)]);
   const tests = strengthTests(sets, breakRows);
   const sensors = await placementSensors(projectId, [...new Set(sets.map((s) => s.placement.id))]);
@@ -93,8 +85,8 @@ export async function getProjectSets(user: SessionUser, projectId: string, query
   }));
   return {
     project: { id: project.id, name: project.name, unitSystem: project.unitSystem, timeZone: project.timeZone },
-    canEnterBreaks: can(user, "break.write", role) || can(user, "record.correct", role),
-    canEditSets: can(user, "specimen.write", role) || can(user, "record.correct", role),
+    canEnterBreaks: allows(access, "break.write") || allows(access, "record.correct"),
+    canEditSets: allows(access, "specimen.write") || allows(access, "record.correct"),
     sets: views,
   };
 }
@@ -103,9 +95,11 @@ export async function getProjectSets(user: SessionUser, projectId: string, query
  * ACI 318 acceptance per mix on one project: every mix that has specimen sets, or the one named
  * by `mix` (its id or code). An unknown mix is a 404.
  */
-export async function getProjectAcceptance(user: SessionUser, projectId: string, query: unknown): Promise<{ mixes: MixAcceptance[] }> {
+export async function getProjectAcceptance(access: ProjectAccess, query: unknown): Promise<{ mixes: MixAcceptance[] }> {
   const q = parseOrThrow(acceptanceQuerySchema, query ?? {});
-  const { project } = await projectOrThrow(user, projectId);
+  permit(access, "project.read");
+  const { project } = access;
+  const projectId = project.id;
   const [{ sets, breaks: breakRows }, allMixes] = await Promise.all([loadProjectLab(projectId), projectMixes(projectId)]);
   let mixes = allMixes.filter((m) => sets.some((s) => s.placement.mixId === m.id));
   if (q.mix) {

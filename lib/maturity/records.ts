@@ -4,8 +4,7 @@
 import { and, asc, eq, gte, inArray, isNull, lt } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { breaks, mixDesigns, placements, projects, sensorReadings, specimenSets, temperatureSensors } from "@/db/schema";
-import { authorize } from "@/lib/auth/authorize";
-import type { SessionUser } from "@/lib/auth/options";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
 import { assertUuid } from "@/lib/records/guards";
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
@@ -83,11 +82,10 @@ async function readSetLoggers(tx: Executor, projectId: string, ids: string[]) {
   return { sensors: sensors.map((s) => ({ ...s, deletedAt: iso(s.deletedAt) })), batches };
 }
 
-export async function loadMaturityRecords(user: SessionUser, projectId: string, placementId: string, mixId: string | null) {
-  assertUuid(projectId, "Project");
+export async function loadMaturityRecords(access: ProjectAccess, placementId: string, mixId: string | null) {
   assertUuid(placementId, "Placement");
-  await authorize(user, "project.read", projectId);
-  return readMaturityRecords(db, projectId, placementId, mixId);
+  permit(access, "project.read");
+  return readMaturityRecords(db, access.project.id, placementId, mixId);
 }
 
 /**

@@ -1,7 +1,6 @@
 // Server-side reads for the mix design screens, through the records' own read path.
 import type { mixDesigns } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/options";
-import { can } from "@/lib/auth/can";
+import { allows, type ProjectAccess } from "@/lib/auth/access";
 import { AppError } from "@/lib/errors";
 import { getProjectForMember } from "@/lib/projects/queries";
 import { getRecord, listRecords } from "@/lib/records/read";
@@ -10,24 +9,24 @@ import type { MixDesignValues } from "@/lib/records/schemas/mix-design";
 export type MixDesignRow = typeof mixDesigns.$inferSelect;
 
 /** The project and the user's role on it, or null when the user is not a member (or it does not exist). */
-export async function projectForScreen(user: SessionUser, projectId: string) {
+export async function projectForScreen(access: ProjectAccess) {
   try {
-    const { project, role } = await getProjectForMember(user, projectId);
-    return { project, role, canWriteMixes: can(user, "mix.write", role) };
+    const { project, role } = await getProjectForMember(access);
+    return { project, role, access, canWriteMixes: allows(access, "mix.write") };
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) return null;
     throw error;
   }
 }
 
-export async function listMixes(user: SessionUser, projectId: string): Promise<MixDesignRow[]> {
-  const { items } = await listRecords({ user }, "mix-designs", projectId, { limit: "200" });
+export async function listMixes(access: ProjectAccess): Promise<MixDesignRow[]> {
+  const { items } = await listRecords({ user: access.user, access }, "mix-designs", access.project.id, { limit: "200" });
   return (items as unknown as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
 }
 
-export async function getMix(user: SessionUser, projectId: string, id: string): Promise<MixDesignRow | null> {
+export async function getMix(access: ProjectAccess, id: string): Promise<MixDesignRow | null> {
   try {
-    return (await getRecord({ user }, "mix-designs", projectId, id)) as unknown as MixDesignRow;
+    return (await getRecord({ user: access.user, access }, "mix-designs", access.project.id, id)) as unknown as MixDesignRow;
   } catch (error) {
     if (error instanceof AppError && error.code === "not_found") return null;
     throw error;

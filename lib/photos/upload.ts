@@ -8,10 +8,9 @@ import { z } from "zod";
 import { db } from "@/db";
 import { photos } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput, notFound } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
@@ -44,8 +43,8 @@ async function findPhoto(projectId: string, photoId: string): Promise<PhotoRow |
 }
 
 /** Registers the photo (idempotent by id + hash) and returns where to PUT its bytes. */
-export async function requestPhotoUpload(user: SessionUser, projectId: string, photoId: string, input: unknown) {
-  assertUuid(projectId, "Project");
+export async function requestPhotoUpload(access: ProjectAccess, photoId: string, input: unknown) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(photoId, "Photo");
   const body = parseOrThrow(photoUploadSchema, input);
   const problem = photoProblem(body.contentType, body.sizeBytes);
@@ -54,8 +53,8 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
 
   // Usually the photo arrived through sync already (its metadata mutation); otherwise this creates
   // it through the one write path of records, with the same checks (role, record, signed freeze).
-  const row = await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
-    await authorize(user, "photo.add", projectId, tx);
+  permit(access, "photo.add");
+  const row = await inTransaction({ user, access }, getRecordDef("photos"), async (tx) => {
     const [existing] = await tx.select().from(photos).where(eq(photos.id, photoId)).for("update");
     if (existing) {
       if (existing.projectId !== projectId || existing.sha256 !== body.sha256) {
@@ -64,7 +63,7 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
       if (existing.deletedAt) throw conflict("This photo was deleted.", { reason: "deleted" });
       return existing;
     }
-    const { record } = await createRecord({ user, tx }, "photos", projectId, { ...body, id: photoId });
+    const { record } = await createRecord({ user, access, tx }, "photos", projectId, { ...body, id: photoId });
     return record as unknown as PhotoRow;
   });
   if (row.storedAt) return { stored: true as const, photoId };
@@ -73,10 +72,10 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
 }
 
 /** Verifies the uploaded object (exists, size, type, SHA-256) and marks the photo stored. */
-export async function completePhotoUpload(user: SessionUser, projectId: string, photoId: string) {
-  assertUuid(projectId, "Project");
+export async function completePhotoUpload(access: ProjectAccess, photoId: string) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(photoId, "Photo");
-  await authorize(user, "photo.add", projectId);
+  permit(access, "photo.add");
   const photo = await findPhoto(projectId, photoId);
   if (!photo || photo.deletedAt) throw notFound("Photo");
   if (photo.storedAt) return { stored: true, photoId };
@@ -95,7 +94,7 @@ export async function completePhotoUpload(user: SessionUser, projectId: string, 
   // between the check and the copy) go to the key only the server writes.
   const storedKey = storedPhotoKey(projectId, photoId, photo.sha256, photo.contentType as PhotoType);
   await writeObject(storedKey, bytes, photo.contentType);
-  const stored = await inTransaction({ user }, getRecordDef("photos"), async (tx) => {
+  const stored = await inTransaction({ user, access }, getRecordDef("photos"), async (tx) => {
     const changeSeq = await nextChangeSeq(tx, projectId);
     const [after] = await tx
       .update(photos)
@@ -111,10 +110,10 @@ export async function completePhotoUpload(user: SessionUser, projectId: string, 
 }
 
 /** A short-lived link to view a stored photo (members only). */
-export async function photoViewUrl(user: SessionUser, projectId: string, photoId: string) {
-  assertUuid(projectId, "Project");
+export async function photoViewUrl(access: ProjectAccess, photoId: string) {
+  const projectId = access.project.id;
   assertUuid(photoId, "Photo");
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
   const photo = await findPhoto(projectId, photoId);
   if (!photo || photo.deletedAt) throw notFound("Photo");
   if (!photo.storedAt) return { stored: false as const };

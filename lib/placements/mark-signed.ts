@@ -2,7 +2,7 @@
 // (lib/signoff/sign-off.ts signOffPlacement: typed name, drawn signature, re-entered password,
 // sign_offs row) calls it in the same transaction via ctx.tx.
 import { conflict } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
+import { authorizeIn } from "@/lib/auth/access";
 import { signedConflict } from "@/lib/records/db-errors";
 import { assertUuid, lockRecord } from "@/lib/records/guards";
 import { getRecordDef } from "@/lib/records/registry";
@@ -25,7 +25,7 @@ export async function markPlacementSigned(
   assertUuid(projectId, "Project");
   assertUuid(id, def.label);
   return inTransaction(ctx, def, async (tx) => {
-    await authorize(ctx.user, "placement.sign", projectId, tx);
+    await authorizeIn(ctx, "placement.sign", projectId, tx);
     const placement = await lockRecord(tx, def, projectId, id);
     if (placement.deletedAt) throw conflict("This placement was deleted.", { reason: "deleted" });
     if (placement.state === "signed") throw signedConflict();

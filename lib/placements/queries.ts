@@ -1,5 +1,5 @@
 import type { placements } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/options";
+import type { ProjectAccess } from "@/lib/auth/access";
 import { listMixes } from "@/lib/mixes/queries";
 import { listRecords } from "@/lib/records/read";
 
@@ -11,10 +11,10 @@ export type PlacementListItem = Pick<
 > & { mixCode: string | null };
 
 /** The project's placements in planned order with their mix codes, for the project page. */
-export async function listPlacementsForScreen(user: SessionUser, projectId: string): Promise<PlacementListItem[]> {
+export async function listPlacementsForScreen(access: ProjectAccess): Promise<PlacementListItem[]> {
   const [{ items }, mixes] = await Promise.all([
-    listRecords({ user }, "placements", projectId, { limit: "200" }),
-    listMixes(user, projectId),
+    listRecords({ user: access.user, access }, "placements", access.project.id, { limit: "200" }),
+    listMixes(access),
   ]);
   const codes = new Map(mixes.map((m) => [m.id, m.code]));
   return (items as unknown as PlacementRow[]).map((p) => ({

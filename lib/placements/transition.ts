@@ -5,10 +5,8 @@ import type { Executor } from "@/db";
 import { placements } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
-import { can } from "@/lib/auth/can";
-import type { ProjectRole } from "@/lib/auth/roles";
 import { conflict, forbidden } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
+import { accessIn, allows, permit } from "@/lib/auth/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedConflict } from "@/lib/records/db-errors";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
@@ -81,14 +79,15 @@ export async function transitionPlacement(
   assertUuid(id, def.label);
   const { to, reason, baseVersion } = parseOrThrow(transitionSchema, input);
   return inTransaction(ctx, def, async (tx) => {
-    const role: ProjectRole = await authorize(ctx.user, ANY_TRANSITION, projectId, tx);
+    const access = await accessIn(ctx, projectId, tx);
+    permit(access, ANY_TRANSITION);
     const placement = await lockRecord(tx, def, projectId, id);
     if (placement.deletedAt) throw conflict("This placement was deleted.", { reason: "deleted", currentVersion: placement.version });
     const from = placement.state as PlacementState;
     if (from === "signed") throw signedConflict();
     const transition = findTransition(from, to);
     if (!transition) throw conflict(describeAllowed(from), { reason: "state", allowed: TRANSITIONS.filter((t) => t.from === from).map((t) => t.to) });
-    if (!can(ctx.user, transition.action, role)) {
+    if (!allows(access, transition.action)) {
       throw forbidden(describeForbidden(transition));
     }
     if (to === "signed") {

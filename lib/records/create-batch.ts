@@ -2,17 +2,16 @@
 // rows read (and locked FOR SHARE) in one statement per table, then written with one multi-row
 // INSERT per table, one change-number reservation per project and one audit statement.
 // Only creates that pass every check of createRecord take this way, and the checks are the same
-// functions (guards.ts over a RowSource, can() through mayDoAny, derivedValues). Anything else (an
+// functions (guards.ts over a RowSource, can() through allows(), derivedValues). Anything else (an
 // id that exists, a refused link, a signed placement, a role that may not write, invalid input)
 // is left to createRecord, the one write path, which gives the answer and its message.
 import { inArray } from "drizzle-orm";
 import type { Transaction } from "@/db";
 import { insertMany } from "@/db/json-rows";
-import { projects } from "@/db/schema";
 import { writeAudits } from "@/lib/audit";
 import { datesAffected, refreshFindings } from "@/lib/findings/store";
-import { getRoles } from "@/lib/users/queries";
-import { mayDoAny, writeActions } from "./access";
+import { accessIn, allows, type ProjectAccess } from "@/lib/auth/access";
+import { writeActions } from "./access";
 import { reserveChangeSeqs } from "./change-seq";
 import { derivedValues, newRowValues } from "./compute";
 import { assertNotSigned, checkLinks, dbRows, type RowSource } from "./guards";
@@ -75,13 +74,9 @@ export async function planCreates(tx: Transaction, ctx: RecordContext, creates: 
   const wanted = new Map<string, Set<string>>();
   for (const p of parsed) idsToRead(p.def, p.values, wanted);
   const projectIds = [...new Set(parsed.map((p) => p.projectId))];
-  const [rows, roles, units] = [
-    await readRows(tx, wanted),
-    await getRoles(ctx.user.id, projectIds, tx),
-    parsed.some((p) => p.def.compute)
-      ? new Map((await tx.select({ id: projects.id, unitSystem: projects.unitSystem }).from(projects).where(inArray(projects.id, projectIds))).map((p) => [p.id, p.unitSystem]))
-      : new Map<string, "SI" | "IP">(),
-  ];
+  const rows = await readRows(tx, wanted);
+  const access = new Map<string, ProjectAccess>();
+  for (const id of projectIds) access.set(id, await accessIn(ctx, id, tx));
   const fallback = dbRows(tx);
   const source: RowSource = async (type, id, opts) => {
     const byId = rows.get(type);
@@ -93,12 +88,13 @@ export async function planCreates(tx: Transaction, ctx: RecordContext, creates: 
   const planned: PlannedCreate[] = [];
   for (const p of parsed) {
     const id = p.values.id as string;
-    if (!mayDoAny(ctx.user, roles.get(p.projectId) ?? null, writeActions(p.def.action))) break;
+    const on = access.get(p.projectId)!;
+    if (!writeActions(p.def.action).some((action) => allows(on, action))) break;
     if (rows.get(p.def.type)?.get(id)) break; // a retry or a clash: createRecord compares the payloads
     try {
       await checkLinks(tx, p.def, p.projectId, p.values, p.values, source);
       await assertNotSigned(tx, p.def, p.values, source);
-      p.derived = derivedValues(p.def, p.projectId, p.values, units.get(p.projectId) ?? "SI");
+      p.derived = derivedValues(p.def, p.projectId, p.values, on.project.unitSystem ?? "SI");
     } catch {
       break;
     }

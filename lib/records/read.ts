@@ -2,11 +2,10 @@
 import { and, asc, eq, getTableColumns, gte, inArray, isNull, lte, sql, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { db } from "@/db";
-import { projects } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
 import { invalidInput, notFound } from "@/lib/errors";
 import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
-import { authorize } from "@/lib/auth/authorize";
+import { accessIn, authorizeIn, permit } from "@/lib/auth/access";
 import { assertUuid } from "./guards";
 import { column, getRecordDef, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
@@ -63,7 +62,7 @@ export async function getRecord(
   assertUuid(projectId, "Project");
   assertUuid(id, def.label);
   const tx = ctx.tx ?? db;
-  await authorize(ctx.user, "project.read", projectId, tx);
+  await authorizeIn(ctx, "project.read", projectId, tx);
   const [row] = (await tx
     .select()
     .from(def.table)
@@ -130,8 +129,9 @@ export async function listRecords(ctx: RecordContext, type: string, projectId: s
     throw invalidInput("Only placements can be filtered by state.", { state: "Only placements have a state" });
   }
   const tx = ctx.tx ?? db;
-  await authorize(ctx.user, "project.read", projectId, tx);
-  const [project] = await tx.select({ timeZone: projects.timeZone }).from(projects).where(eq(projects.id, projectId));
+  const access = await accessIn(ctx, projectId, tx);
+  permit(access, "project.read");
+  const { project } = access;
   const conditions: SQL[] = [eq(def.table.projectId, projectId)];
   if (!q.includeDeleted) conditions.push(isNull(def.table.deletedAt));
   conditions.push(...dateConditions(def, q.from, q.to, project?.timeZone ?? "UTC"));

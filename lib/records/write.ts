@@ -12,7 +12,7 @@ import { writeAudit } from "@/lib/audit";
 import { conflict, invalidInput } from "@/lib/errors";
 import { datesAffected, refreshAfterWrite, refreshFindings } from "@/lib/findings/store";
 import { derivedValues, newRowValues } from "./compute";
-import { authorize } from "@/lib/auth/authorize";
+import { authorizeIn } from "@/lib/auth/access";
 import { writeActions } from "./access";
 import { nextChangeSeq } from "./change-seq";
 import { mapDbError } from "./db-errors";
@@ -119,7 +119,7 @@ export async function createRecord(
   const values = parseOrThrow(def.create, input);
   const id = values.id as string;
   return inTransaction(ctx, def, async (tx) => {
-    await authorize(ctx.user, writeActions(def.action), projectId, tx);
+    await authorizeIn(ctx, writeActions(def.action), projectId, tx);
     const [existing] = (await tx.select().from(def.table).where(eq(def.table.id, id)).for("update")) as RecordRow[];
     if (existing) {
       if (existing.projectId === projectId && samePayload(values, existing)) return { record: existing, created: false };
@@ -161,7 +161,7 @@ export async function updateRecord(
     throw invalidInput("Nothing to change: send the fields to change.", { patch: "Send at least one field to change" });
   }
   return inTransaction(ctx, def, async (tx) => {
-    await authorize(ctx.user, writeActions(def.action), projectId, tx);
+    await authorizeIn(ctx, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) {
       throw conflict(`This ${def.label.toLowerCase()} was deleted.`, { reason: "deleted", currentVersion: existing.version });
@@ -230,7 +230,7 @@ export async function deleteRecord(
   assertUuid(id, def.label);
   const { baseVersion: base } = parseOrThrow(deleteBodySchema, body);
   return inTransaction(ctx, def, async (tx) => {
-    await authorize(ctx.user, writeActions(def.action), projectId, tx);
+    await authorizeIn(ctx, writeActions(def.action), projectId, tx);
     const existing = await lockRecord(tx, def, projectId, id);
     if (existing.deletedAt) return existing;
     await assertNotSigned(tx, def, existing);

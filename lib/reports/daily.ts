@@ -2,25 +2,20 @@
 // (the digest's loader and summary, so the figures and warnings match the e-mail and the review
 // list), plus checklists, photo thumbnails (when the bytes are stored) and signatures.
 import { drawSiteStatus } from "./site-status";
-import { and, asc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
 import type { PDFImage } from "pdf-lib";
 import { z } from "zod";
-import { db } from "@/db";
-import { checklistItems, checklists, diaryEntries, photos, signOffs, users } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import { authorize } from "@/lib/auth/authorize";
-import type { SessionUser } from "@/lib/auth/options";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { formatEvaporation, formatLength, formatSpeed, formatTemperature } from "@/lib/concrete";
 import { GOVERNS, citation } from "@/lib/checks";
 import { loadDigestDay } from "@/lib/digest/load";
-import { isLocalDate, localDayRange } from "@/lib/time/zone";
-import { maturityOfPeriod } from "@/lib/maturity/records";
+import { formatInstant, isLocalDate } from "@/lib/time/zone";
 import { summarizeDay } from "@/lib/digest/summary";
 import { readObject } from "@/lib/photos/storage";
-import { assertUuid } from "@/lib/records/guards";
 import { MAX_PHOTO_PIXELS, MAX_REPORT_PHOTOS, MAX_SIGNATURE_PIXELS, thumbnail } from "./thumbnails";
 import { DELIVERY_STATUS_WORDS, warningWord, wordFor } from "@/lib/ui/vocabulary";
+import { loadReportRecords } from "./daily-records";
 import { drawMaturitySection } from "./maturity-section";
 import { CAUTION, DANGER, Layout, MUTED, PAGE, RULE, toneColour } from "./pdf-layout";
 
@@ -44,53 +39,19 @@ function dataUrlBytes(url: string | null): { bytes: Buffer; type: string } | nul
   return m ? { bytes: Buffer.from(m[2], "base64"), type: m[1] } : null;
 }
 
-export async function buildDailyReport(user: SessionUser, projectId: string, rawDate: string | null): Promise<{ pdf: Uint8Array; filename: string }> {
-  assertUuid(projectId, "Project");
+export async function buildDailyReport(access: ProjectAccess, rawDate: string | null): Promise<{ pdf: Uint8Array; filename: string }> {
+  const projectId = access.project.id;
   const date = parseOrThrow(reportDateSchema, rawDate ?? undefined);
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
 
   const day = await loadDigestDay(projectId, date);
   const summary = summarizeDay(day);
   const { project } = day;
   const units = project.unitSystem;
-  const time = (d: Date) => new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, hour: "numeric", minute: "2-digit" }).format(d);
-  const dateTime = (d: Date) =>
-    new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", year: "numeric", hour: "numeric", minute: "2-digit" }).format(d);
-  const placementIds = day.placements.map((p) => p.id);
+  const time = (d: Date) => formatInstant(d, project.timeZone, "time");
+  const dateTime = (d: Date) => formatInstant(d, project.timeZone, "yearDayTime");
 
-  const { start: dayStart, end: dayEnd } = localDayRange(date, project.timeZone);
-  const [lists, items, dayPhotos, [diaryRow], maturity] = await Promise.all([
-    placementIds.length
-      ? db.select().from(checklists).where(and(eq(checklists.projectId, projectId), inArray(checklists.placementId, placementIds), isNull(checklists.deletedAt))).orderBy(asc(checklists.createdAt))
-      : [],
-    placementIds.length
-      ? db
-          .select({ item: checklistItems, placementId: checklists.placementId })
-          .from(checklistItems)
-          .innerJoin(checklists, and(eq(checklists.id, checklistItems.checklistId), eq(checklists.projectId, projectId)))
-          .where(and(eq(checklistItems.projectId, projectId), inArray(checklists.placementId, placementIds), isNull(checklistItems.deletedAt)))
-          .orderBy(asc(checklistItems.createdAt))
-      : [],
-    day.photos.length
-      ? db
-          .select()
-          .from(photos)
-          .where(and(eq(photos.projectId, projectId), inArray(photos.id, day.photos.map((p) => p.id)), isNotNull(photos.storageKey)))
-          .orderBy(asc(photos.takenAt))
-      : [],
-    db.select({ id: diaryEntries.id }).from(diaryEntries).where(and(eq(diaryEntries.projectId, projectId), eq(diaryEntries.date, date), isNull(diaryEntries.deletedAt))),
-    maturityOfPeriod(db, projectId, dayStart, dayEnd),
-  ]);
-  const signedIds = [...placementIds, ...(diaryRow ? [diaryRow.id] : [])];
-  const signatures = signedIds.length
-    ? await db
-        .select({ recordId: signOffs.recordId, recordType: signOffs.recordType, role: signOffs.role, signedAt: signOffs.signedAt, typedName: signOffs.typedName, signerName: users.name, image: signOffs.signatureImage, hash: signOffs.contentHash })
-        .from(signOffs)
-        .leftJoin(users, eq(users.id, signOffs.signerId))
-        .where(and(eq(signOffs.projectId, projectId), inArray(signOffs.recordId, signedIds), isNull(signOffs.deletedAt)))
-        .orderBy(asc(signOffs.signedAt))
-    : [];
-
+  const { dayEnd, lists, items, dayPhotos, maturity, signatures } = await loadReportRecords(projectId, date, project.timeZone, day);
   const l = await Layout.create();
   l.doc.setTitle(`Daily report · ${project.name} · ${date}`);
   l.doc.setSubject(`${project.name} (${project.code}), ${summary.dateLong}`);
@@ -101,7 +62,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
   l.text("DAILY PLACEMENT REPORT", { size: 8, bold: true, color: MUTED, gap: 4 });
   l.text(project.name, { size: 18, bold: true, gap: 4 });
   l.text(`${project.code} · ${summary.dateLong} · ${date}`, { size: 10, gap: 2 });
-  l.text(`Times in ${project.timeZone}. Generated ${dateTime(new Date())} by ${user.name ?? user.email}.`, { size: 7, color: MUTED, gap: 6 });
+  l.text(`Times in ${project.timeZone}. Generated ${dateTime(new Date())} by ${access.user.name ?? access.user.email}.`, { size: 7, color: MUTED, gap: 6 });
   if (summary.isEmpty) l.text("Nothing was recorded for this project on this date.", { size: 10, color: CAUTION, gap: 4 });
 
   // Weather
@@ -183,7 +144,7 @@ export async function buildDailyReport(user: SessionUser, projectId: string, raw
     l.y -= 6;
   });
   // Trucks, tests and breaks of the day that belong to earlier placements.
-  const elsewhere = summary.trucks.lines.filter((_, j) => !placementIds.includes(day.deliveries[j].placementId));
+  const elsewhere = summary.trucks.lines.filter((_, j) => !day.placements.some((p) => p.id === day.deliveries[j].placementId));
   if (elsewhere.length) {
     l.text("Trucks for earlier placements", { bold: true, gap: 2 });
     for (const t of elsewhere) l.text(`${t.ticket} · ${t.placement} · ${t.volume} · ${t.times}${t.rejected ? ` · REJECTED: ${t.rejected}` : ""}`);

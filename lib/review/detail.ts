@@ -2,10 +2,8 @@
 // records), the mix, the digest's warnings for this placement, sign-offs, amendments and conflicts.
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { amendments, conflicts, mixDesigns, projects, signOffs, users } from "@/db/schema";
-import { can } from "@/lib/auth/can";
-import { authorize } from "@/lib/auth/authorize";
-import type { SessionUser } from "@/lib/auth/options";
+import { amendments, conflicts, mixDesigns, signOffs, users } from "@/db/schema";
+import { allows, permit, type ProjectAccess } from "@/lib/auth/access";
 import { localDate } from "@/lib/time/zone";
 import { notFound } from "@/lib/errors";
 import { assertUuid } from "@/lib/records/guards";
@@ -14,12 +12,11 @@ import { placementWarnings } from "./placement-findings";
 
 type Row = Record<string, unknown>;
 
-export async function loadPlacementReview(user: SessionUser, projectId: string, placementId: string) {
-  assertUuid(projectId, "Project");
+export async function loadPlacementReview(access: ProjectAccess, placementId: string) {
   assertUuid(placementId, "Placement");
-  const role = await authorize(user, "project.read", projectId);
-  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-  if (!project) throw notFound("Project");
+  const role = permit(access, "project.read");
+  const { project } = access;
+  const projectId = project.id;
   const snapshot = await placementSnapshot(db, projectId, placementId);
   const placement = snapshot.placement as Row | undefined;
   if (!placement || placement.deletedAt) throw notFound("Placement");
@@ -50,7 +47,7 @@ export async function loadPlacementReview(user: SessionUser, projectId: string, 
   const signed = placement.state === "signed";
   return {
     role,
-    canCorrect: !signed && can(user, "record.correct", role),
+    canCorrect: !signed && allows(access, "record.correct"),
     project,
     date,
     placement,

@@ -3,21 +3,18 @@
 // answered with `diary: null`, so the page can say it is missing.
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db";
-import { diaryCrew, diaryDelays, diaryEntries, diaryEquipment, diaryVisitors, photos, projects, users } from "@/db/schema";
-import { authorize } from "@/lib/auth/authorize";
-import type { SessionUser } from "@/lib/auth/options";
+import { diaryCrew, diaryDelays, diaryEntries, diaryEquipment, diaryVisitors, photos, users } from "@/db/schema";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
 import { isLocalDate } from "@/lib/time/zone";
-import { invalidInput, notFound } from "@/lib/errors";
-import { assertUuid } from "@/lib/records/guards";
+import { invalidInput } from "@/lib/errors";
 import { listReviewPlacements } from "./placements";
 import { placementListQuery } from "./query-schemas";
 
-export async function loadDiaryReview(user: SessionUser, projectId: string, date: string) {
-  assertUuid(projectId, "Project");
+export async function loadDiaryReview(access: ProjectAccess, date: string) {
   if (!isLocalDate(date)) throw invalidInput("The date must look like 2026-11-09", { date: "The date must look like 2026-11-09" });
-  const role = await authorize(user, "project.read", projectId);
-  const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
-  if (!project) throw notFound("Project");
+  const role = permit(access, "project.read");
+  const { project } = access;
+  const projectId = project.id;
   const [entry] = await db
     .select({ diary: diaryEntries, submittedByName: users.name })
     .from(diaryEntries)
@@ -39,7 +36,7 @@ export async function loadDiaryReview(user: SessionUser, projectId: string, date
           .orderBy(asc(photos.takenAt), asc(photos.id)),
       ])
     : [[], [], [], [], []];
-  const placements = await listReviewPlacements(user, placementListQuery.parse({ projects: projectId, from: date, to: date, sort: "date", dir: "asc", pageSize: "200" }));
+  const placements = await listReviewPlacements(access.user, placementListQuery.parse({ projects: projectId, from: date, to: date, sort: "date", dir: "asc", pageSize: "200" }));
   return {
     role,
     project,

@@ -2,7 +2,7 @@
 // signing. The server judges the placement itself (lib/review/placement-findings.ts) and refuses a
 // signature that leaves one unacknowledged, so a device that missed a finding cannot skip it.
 import type { Executor } from "@/db";
-import type { Project } from "@/lib/api/project-route";
+import type { Project } from "@/lib/auth/access";
 import { conflict, notFound } from "@/lib/errors";
 import { loadProject } from "@/lib/findings/load";
 import { acknowledgementOf, placementWarnings, type Acknowledgement } from "@/lib/review/placement-findings";

@@ -2,20 +2,16 @@
 // name and drawn signature as the placement's sign-off, and a SHA-256 of the amendment's canonical
 // JSON, stored as a sign_offs row for record type "amendments". Amendments are never updated, so
 // the hash says whether the stored text is still what was signed.
-import { randomUUID } from "node:crypto";
 import { and, asc, eq, getTableColumns, inArray } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { amendments, signOffs, users } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import type { SessionUser } from "@/lib/auth/options";
-import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
-import { nextChangeSeq } from "@/lib/records/change-seq";
+import type { ProjectAccess } from "@/lib/auth/access";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
 import { canonicalJson, sha256Hex } from "./canonical";
-import { checkSignerPassword } from "./password";
+import { checkSigner, recordSignature } from "@/lib/signatures/record";
 import { signOffSchema } from "./schemas";
 
 type AmendmentRow = typeof amendments.$inferSelect;
@@ -48,14 +44,13 @@ export async function amendmentsWithSignOffs(projectId: string, placementId: str
 }
 
 /** Signs an amendment of a placement (inspector or office, "amendment.write"), once. */
-export async function signAmendment(user: SessionUser, projectId: string, placementId: string, amendmentId: string, input: unknown) {
-  assertUuid(projectId, "Project");
+export async function signAmendment(access: ProjectAccess, placementId: string, amendmentId: string, input: unknown) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(placementId, "Placement");
   assertUuid(amendmentId, "Amendment");
   const body = parseOrThrow(signOffSchema, input);
-  const role = await authorize(user, "amendment.write", projectId);
-  await checkSignerPassword(user, body.password, { projectId, recordType: "amendment", recordId: amendmentId });
-  return inTransaction({ user }, undefined, async (tx) => {
+  const role = await checkSigner(access, "amendment.write", body.password, { recordType: "amendment", recordId: amendmentId });
+  return inTransaction({ user, access }, undefined, async (tx) => {
     const [amendment] = await tx
       .select()
       .from(amendments)
@@ -75,33 +70,10 @@ export async function signAmendment(user: SessionUser, projectId: string, placem
     if (already) throw conflict("This amendment is already signed.", { reason: "signed" });
     const contentHash = amendmentHash(amendment);
     const signedAt = new Date();
-    const [row] = await tx
-      .insert(signOffs)
-      .values({
-        id: randomUUID(),
-        projectId,
-        version: 1,
-        changeSeq: await nextChangeSeq(tx, projectId),
-        updatedBy: user.id,
-        recordType: "amendments",
-        recordId: amendmentId,
-        signerId: user.id,
-        role,
-        signedAt,
-        typedName: body.typedName,
-        signatureImage: body.signatureImage,
-        contentHash,
-      })
-      .returning();
-    await writeAudit(tx, {
-      projectId,
-      userId: user.id,
-      recordType: "sign-off",
-      recordId: row.id,
-      action: "sign",
-      after: { amendmentId, placementId, typedName: body.typedName, contentHash, signedAt },
-      note: `signs amendment ${amendmentId}`,
+    const signOff = await recordSignature(tx, {
+      access, role, recordType: "amendments", recordId: amendmentId, body, contentHash, signedAt,
+      audit: { subject: { amendmentId, placementId }, note: `signs amendment ${amendmentId}` },
     });
-    return { signOff: { ...row, signatureImage: undefined } };
+    return { signOff };
   });
 }

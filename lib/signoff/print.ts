@@ -1,20 +1,19 @@
 // The printable record of a placement: the stored rows, the sign-off with its verification and the
-// amendments. Membership is checked by getProjectForMember and the verification (project.read).
+// amendments. Membership is checked on the access by the verification (project.read).
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { mixDesigns } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/options";
+import type { ProjectAccess } from "@/lib/auth/access";
 import { notFound } from "@/lib/errors";
-import { getProjectForMember } from "@/lib/projects/queries";
 import { assertUuid } from "@/lib/records/guards";
 import { verifyPlacementSignOff } from "./sign-off";
 import { placementSnapshot } from "./snapshot";
 
-export async function loadPlacementPrint(user: SessionUser, projectId: string, placementId: string) {
-  assertUuid(projectId, "Project");
+export async function loadPlacementPrint(access: ProjectAccess, placementId: string) {
+  const { project } = access;
+  const projectId = project.id;
   assertUuid(placementId, "Placement");
-  const { project } = await getProjectForMember(user, projectId);
-  const verification = await verifyPlacementSignOff(user, projectId, placementId);
+  const verification = await verifyPlacementSignOff(access, placementId);
   const snapshot = await placementSnapshot(db, projectId, placementId);
   if (!snapshot.placement || snapshot.placement.deletedAt) throw notFound("Placement");
   const mixId = snapshot.placement.mixId as string | null;

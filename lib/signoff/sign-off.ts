@@ -1,22 +1,20 @@
 // The inspector's sign-off of a placed placement: re-entered password, typed name, drawn signature
 // and the SHA-256 of the record's content at that moment, stored with the state change in one
 // transaction. From then on the database trigger refuses changes; amendments sit beside it.
-import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, getTableColumns } from "drizzle-orm";
 import { db } from "@/db";
 import { amendments, auditEntries, placements, signOffs, users } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
 import { markPlacementSigned } from "@/lib/placements/mark-signed";
-import { authorize } from "@/lib/auth/authorize";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
+import { checkSigner, recordSignature } from "@/lib/signatures/record";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { assertUuid } from "@/lib/records/guards";
 import { inTransaction } from "@/lib/records/write";
 import { assertAcknowledged } from "./acknowledge";
 import { amendmentsWithSignOffs } from "./amendment-sign";
-import { checkSignerPassword } from "./password";
 import { amendmentSchema, signOffSchema } from "./schemas";
 import { openItems, placementSnapshot, snapshotHash } from "./snapshot";
 
@@ -24,14 +22,12 @@ function plural(n: number, one: string, many: string) {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-export async function signOffPlacement(user: SessionUser, projectId: string, placementId: string, input: unknown) {
-  assertUuid(projectId, "Project");
+export async function signOffPlacement(access: ProjectAccess, placementId: string, input: unknown) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(placementId, "Placement");
   const body = parseOrThrow(signOffSchema, input);
-  // Role first: a superintendent is told so before being asked about passwords.
-  const role = await authorize(user, "placement.sign", projectId);
-  await checkSignerPassword(user, body.password, { projectId, recordType: "placements", recordId: placementId });
-  return inTransaction({ user }, undefined, async (tx) => {
+  const role = await checkSigner(access, "placement.sign", body.password, { recordType: "placements", recordId: placementId });
+  return inTransaction({ user, access }, undefined, async (tx) => {
     const snapshot = await placementSnapshot(tx, projectId, placementId);
     if (!snapshot.placement) throw notFound("Placement");
     const blocking = await openItems(tx, projectId, snapshot);
@@ -50,43 +46,21 @@ export async function signOffPlacement(user: SessionUser, projectId: string, pla
     const acknowledged = await assertAcknowledged(tx, projectId, snapshot, body.acknowledged);
     const contentHash = snapshotHash(snapshot);
     const signedAt = new Date();
-    const placement = await markPlacementSigned({ user, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
-    const [row] = await tx
-      .insert(signOffs)
-      .values({
-        id: randomUUID(),
-        projectId,
-        version: 1,
-        changeSeq: await nextChangeSeq(tx, projectId),
-        updatedBy: user.id,
-        recordType: "placements",
-        recordId: placementId,
-        signerId: user.id,
-        role,
-        signedAt,
-        typedName: body.typedName,
-        signatureImage: body.signatureImage,
-        contentHash,
-      })
-      .returning();
-    await writeAudit(tx, {
-      projectId,
-      userId: user.id,
-      recordType: "sign-off",
-      recordId: row.id,
-      action: "sign",
+    const placement = await markPlacementSigned({ user, access, tx }, projectId, placementId, { baseVersion: body.baseVersion, signedAt });
+    const signOff = await recordSignature(tx, {
+      access, role, recordType: "placements", recordId: placementId, body, contentHash, signedAt,
       // The warnings the signer acknowledged stay with the signature (key and the words shown).
-      after: { placementId, typedName: body.typedName, contentHash, signedAt, acknowledged },
+      audit: { subject: { placementId }, extra: { acknowledged } },
     });
-    return { signOff: { ...row, signatureImage: undefined }, placementVersion: placement.version };
+    return { signOff, placementVersion: placement.version };
   });
 }
 
 /** Recomputes the hash and says whether the record still matches what was signed. */
-export async function verifyPlacementSignOff(user: SessionUser, projectId: string, placementId: string) {
-  assertUuid(projectId, "Project");
+export async function verifyPlacementSignOff(access: ProjectAccess, placementId: string) {
+  const projectId = access.project.id;
   assertUuid(placementId, "Placement");
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
   const [signOff] = await db
     .select({ ...getTableColumns(signOffs), signerName: users.name })
     .from(signOffs)
@@ -103,12 +77,12 @@ export async function verifyPlacementSignOff(user: SessionUser, projectId: strin
 }
 
 /** An amendment beside a signed placement (inspector or office): what changes, why, who, when. */
-export async function addAmendment(user: SessionUser, projectId: string, placementId: string, input: unknown) {
-  assertUuid(projectId, "Project");
+export async function addAmendment(access: ProjectAccess, placementId: string, input: unknown) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(placementId, "Placement");
   const body = parseOrThrow(amendmentSchema, input);
-  return inTransaction({ user }, undefined, async (tx) => {
-    await authorize(user, "amendment.write", projectId, tx);
+  permit(access, "amendment.write");
+  return inTransaction({ user, access }, undefined, async (tx) => {
     const [placement] = await tx.select().from(placements).where(and(eq(placements.projectId, projectId), eq(placements.id, placementId)));
     if (!placement) throw notFound("Placement");
     if (placement.state !== "signed") {
@@ -143,10 +117,10 @@ export async function addAmendment(user: SessionUser, projectId: string, placeme
 }
 
 /** Every accepted change of a record, oldest first; readable by every member (owners included). */
-export async function auditTrail(user: SessionUser, projectId: string, recordId: string) {
-  assertUuid(projectId, "Project");
+export async function auditTrail(access: ProjectAccess, recordId: string) {
+  const projectId = access.project.id;
   assertUuid(recordId, "Record");
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
   return db
     .select({
       id: auditEntries.id,

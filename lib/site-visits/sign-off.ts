@@ -9,16 +9,14 @@
 // what was observed and required (the hash leaves the follow-up columns out); the sign-off answer
 // and its audit entry list the findings still outstanding at that moment, and answering, closing
 // and reopening go on through the lifecycle with their own audit trail.
-import { randomUUID } from "node:crypto";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { conflicts, findings, photos, signOffs, siteVisits } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
-import { checkSignerPassword } from "@/lib/signoff/password";
-import type { SessionUser } from "@/lib/auth/options";
 import { writeAudit } from "@/lib/audit";
 import { conflict, notFound } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
+import { permit, type ProjectAccess } from "@/lib/auth/access";
+import { checkSigner, recordSignature } from "@/lib/signatures/record";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedVisitConflict } from "@/lib/records/db-errors";
 import { assertUuid, lockRecord } from "@/lib/records/guards";
@@ -71,15 +69,13 @@ export function visitSnapshotHash(snapshot: VisitSnapshot): string {
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
-export async function signOffVisit(user: SessionUser, projectId: string, visitId: string, input: unknown) {
-  assertUuid(projectId, "Project");
+export async function signOffVisit(access: ProjectAccess, visitId: string, input: unknown) {
+  const { user, project: { id: projectId } } = access;
   assertUuid(visitId, "Site visit");
   const body = parseOrThrow(signOffSchema, input);
-  // Role first: a superintendent is told so before being asked about passwords.
-  const role = await authorize(user, "visit.sign", projectId);
-  await checkSignerPassword(user, body.password, { projectId, recordType: "site-visits", recordId: visitId });
+  const role = await checkSigner(access, "visit.sign", body.password, { recordType: "site-visits", recordId: visitId });
   const def = getRecordDef("site-visits");
-  return inTransaction({ user }, def, async (tx) => {
+  return inTransaction({ user, access }, def, async (tx) => {
     const visit = await lockRecord(tx, def, projectId, visitId);
     if (visit.deletedAt) throw conflict("This visit report was deleted.", { reason: "deleted" });
     if (visit.state === "signed") throw signedVisitConflict();
@@ -117,42 +113,23 @@ export async function signOffVisit(user: SessionUser, projectId: string, visitId
       .where(and(eq(siteVisits.id, visitId), eq(siteVisits.projectId, projectId)))
       .returning();
     await writeAudit(tx, { projectId, userId: user.id, recordType: "site-visits", recordId: visitId, action: "transition", before: visit, after: signedVisit, note: "submitted → signed" });
-    const [row] = await tx
-      .insert(signOffs)
-      .values({
-        id: randomUUID(),
-        projectId,
-        version: 1,
-        changeSeq: await nextChangeSeq(tx, projectId),
-        updatedBy: user.id,
-        recordType: "site-visits",
-        recordId: visitId,
-        signerId: user.id,
-        role,
-        signedAt,
-        typedName: body.typedName,
-        signatureImage: body.signatureImage,
-        contentHash,
-      })
-      .returning();
-    await writeAudit(tx, {
-      projectId,
-      userId: user.id,
-      recordType: "sign-off",
-      recordId: row.id,
-      action: "sign",
-      after: { siteVisitId: visitId, typedName: body.typedName, contentHash, signedAt, outstandingFindings },
-      note: outstandingFindings.length ? `signed with ${plural(outstandingFindings.length, "finding", "findings")} still outstanding` : undefined,
+    const signOff = await recordSignature(tx, {
+      access, role, recordType: "site-visits", recordId: visitId, body, contentHash, signedAt,
+      audit: {
+        subject: { siteVisitId: visitId },
+        extra: { outstandingFindings },
+        note: outstandingFindings.length ? `signed with ${plural(outstandingFindings.length, "finding", "findings")} still outstanding` : undefined,
+      },
     });
-    return { signOff: { ...row, signatureImage: undefined }, visitVersion: signedVisit.version, outstandingFindings };
+    return { signOff, visitVersion: signedVisit.version, outstandingFindings };
   });
 }
 
 /** The latest sign-off of a visit report and whether the report still matches what was signed. */
-export async function verifyVisitSignOff(user: SessionUser, projectId: string, visitId: string) {
-  assertUuid(projectId, "Project");
+export async function verifyVisitSignOff(access: ProjectAccess, visitId: string) {
+  const projectId = access.project.id;
   assertUuid(visitId, "Site visit");
-  await authorize(user, "project.read", projectId);
+  permit(access, "project.read");
   const snapshot = await visitSnapshot(db, projectId, visitId);
   if (!snapshot.visit) throw notFound("Site visit");
   const [signOff] = await db

@@ -6,7 +6,7 @@ import { siteVisits } from "@/db/schema";
 import { parseOrThrow } from "@/lib/validation";
 import { writeAudit } from "@/lib/audit";
 import { conflict, forbidden, invalidInput } from "@/lib/errors";
-import { authorize } from "@/lib/auth/authorize";
+import { authorizeIn } from "@/lib/auth/access";
 import { nextChangeSeq } from "@/lib/records/change-seq";
 import { signedVisitConflict } from "@/lib/records/db-errors";
 import { assertUuid, lockRecord } from "@/lib/records/guards";
@@ -54,7 +54,7 @@ export async function transitionSiteRecord(
   assertUuid(id, def.label);
   const { baseVersion, ...args } = parseOrThrow(lifecycleBodySchema, input);
   return inTransaction(ctx, def, async (tx) => {
-    const role = await authorize(ctx.user, ACTIONS[type], projectId, tx);
+    const role = await authorizeIn(ctx, ACTIONS[type], projectId, tx);
     const row = await lockRecord(tx, def, projectId, id);
     const noun = def.label.toLowerCase();
     if (row.deletedAt) throw conflict(`This ${noun} was deleted.`, { reason: "deleted", currentVersion: row.version });

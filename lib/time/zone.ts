@@ -185,9 +185,54 @@ export function chainStartDate(times: (string | null | undefined)[], timeZone: s
   return first && first.getTime() > now.getTime() ? addDays(today, -1) : today;
 }
 
-/** A calendar date (YYYY-MM-DD, no time or zone: a due date) as people read it: "Tue, Nov 17, 2026". */
-export function calendarDateText(date: string): string {
+/**
+ * The ways the app writes an instant for people, each in the project's zone (US English):
+ * time "7:05 AM"; weekdayTime "Tue 7:05 AM"; dayHour "Nov 17, 7 AM"; dayTime "Nov 17, 7:05 AM";
+ * weekdayDayTime "Tue, Nov 17, 7:05 AM"; yearDayTime "Nov 17, 2026, 7:05 AM"; weekdayDate
+ * "Tue, Nov 17, 2026"; longDay "Tuesday, November 17"; a "Zone" suffix adds the zone's short name.
+ */
+const STYLES = {
+  time: { hour: "numeric", minute: "2-digit" },
+  weekdayTime: { weekday: "short", hour: "numeric", minute: "2-digit" },
+  dayHour: { month: "short", day: "numeric", hour: "numeric" },
+  dayTime: { month: "short", day: "numeric", hour: "numeric", minute: "2-digit" },
+  weekdayDayTime: { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit" },
+  weekdayDayTimeZone: { weekday: "short", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZoneName: "short" },
+  yearDayTime: { month: "short", day: "numeric", year: "numeric", hour: "numeric", minute: "2-digit" },
+  yearDayTimeZone: { year: "numeric", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZoneName: "short" },
+  weekdayDate: { weekday: "short", month: "short", day: "numeric", year: "numeric" },
+  shortDate: { weekday: "short", month: "short", day: "numeric" },
+  longDay: { weekday: "long", month: "long", day: "numeric" },
+  longDate: { weekday: "long", month: "long", day: "numeric", year: "numeric" },
+} as const satisfies Record<string, Intl.DateTimeFormatOptions>;
+export type InstantStyle = keyof typeof STYLES;
+
+const styled = new Map<string, Intl.DateTimeFormat>();
+
+/** `instant` written in `style` on the wall clock of `timeZone` (the device's own zone when undefined). */
+export function formatInstant(instant: Date | string | number, timeZone: string | undefined, style: InstantStyle): string {
+  const key = `${style}|${timeZone ?? ""}`;
+  let f = styled.get(key);
+  if (!f) {
+    f = new Intl.DateTimeFormat("en-US", { ...STYLES[style], timeZone });
+    styled.set(key, f);
+  }
+  return f.format(instant instanceof Date ? instant : new Date(instant));
+}
+
+/** formatInstant with the zone and style fixed, for a screen that writes many instants alike. */
+export function instantFormatter(timeZone: string | undefined, style: InstantStyle): { format: (instant: Date | string | number) => string } {
+  return { format: (instant) => formatInstant(instant, timeZone, style) };
+}
+
+/** The device's own time zone (a default for a new project, the field screens' fallback). */
+export function deviceTimeZone(): string {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone;
+}
+
+/** A calendar date (YYYY-MM-DD, no time or zone: a due date) in `style`: by default "Tue, Nov 17, 2026". */
+export function calendarDateText(date: string, style: "weekdayDate" | "shortDate" | "longDay" | "longDate" = "weekdayDate"): string {
   if (!isLocalDate(date)) return date;
   // Noon UTC of that date names the same calendar day everywhere the formatter is told UTC.
-  return new Intl.DateTimeFormat("en-US", { timeZone: "UTC", weekday: "short", month: "short", day: "numeric", year: "numeric" }).format(new Date(`${date}T12:00:00Z`));
+  return formatInstant(`${date}T12:00:00Z`, "UTC", style);
 }

@@ -1,4 +1,4 @@
-import { and, eq, gt, inArray, isNull, sql } from "drizzle-orm";
+import { and, eq, gt, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { memberships, projects, signInTokens, users } from "@/db/schema";
 import type { ProjectRole } from "@/lib/auth/roles";
@@ -43,25 +43,6 @@ export async function listUserProjects(userId: string, tx: Executor = db): Promi
     .innerJoin(projects, eq(projects.id, memberships.projectId))
     .where(eq(memberships.userId, userId))
     .orderBy(projects.name);
-}
-
-export async function getRole(userId: string, projectId: string, tx: Executor = db): Promise<ProjectRole | null> {
-  const [row] = await tx
-    .select({ role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.userId, userId), eq(memberships.projectId, projectId)))
-    .limit(1);
-  return row?.role ?? null;
-}
-
-/** The user's role on each of `projectIds` that they are a member of. */
-export async function getRoles(userId: string, projectIds: string[], tx: Executor = db): Promise<Map<string, ProjectRole>> {
-  if (projectIds.length === 0) return new Map();
-  const rows = await tx
-    .select({ projectId: memberships.projectId, role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.userId, userId), inArray(memberships.projectId, projectIds)));
-  return new Map(rows.map((r) => [r.projectId, r.role]));
 }
 
 /** Marks a sign-in token used and returns its user, or undefined if unknown, used or expired. */

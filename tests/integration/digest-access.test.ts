@@ -5,6 +5,7 @@ import { describe, expect, it } from "vitest";
 import { GET as historyRoute } from "@/app/api/projects/[projectId]/digest/history/route";
 import { GET as recipientsRoute } from "@/app/api/projects/[projectId]/digest/recipients/route";
 import { can } from "@/lib/auth/can";
+import { accessTo } from "@/lib/auth/access";
 import { getDigestHistory, getDigestView } from "@/lib/digest/access";
 import { AppError } from "@/lib/errors";
 import { addMembership, callRoute, projectWithTeam } from "./helpers";
@@ -22,8 +23,8 @@ describe("digest history and recipients: the rule table, no admin exception", ()
     expect((await callRoute(historyRoute, { user: admin, params })).status).toBe(404);
     expect((await callRoute(recipientsRoute, { user: admin, params })).status).toBe(404);
     // Pages call lib directly: the same rule holds there.
-    expect(await refused(getDigestHistory(admin, project.id))).toBe("forbidden");
-    expect(await refused(getDigestView(admin, project.id))).toBe("forbidden");
+    expect(await refused(getDigestHistory(await accessTo(admin, project.id)))).toBe("forbidden");
+    expect(await refused(getDigestView(await accessTo(admin, project.id)))).toBe("forbidden");
   });
 
   it("with the office role an administrator reads both; the owner reads only their own row, no history", async () => {
@@ -34,9 +35,9 @@ describe("digest history and recipients: the rule table, no admin exception", ()
     expect(history.status).toBe(200);
     expect(Array.isArray(history.json.history)).toBe(true);
     expect((await callRoute(historyRoute, { user: team.owner, params })).status).toBe(403);
-    const ownerView = await getDigestView(team.owner, project.id);
+    const ownerView = await getDigestView(await accessTo(team.owner, project.id));
     expect(ownerView.canManage).toBe(false);
     expect(ownerView.recipients.every((r) => r.userId === team.owner.id)).toBe(true);
-    expect(await refused(getDigestView(team.superintendent, project.id))).toBe("forbidden");
+    expect(await refused(getDigestView(await accessTo(team.superintendent, project.id)))).toBe("forbidden");
   });
 });

@@ -20,6 +20,7 @@ import * as recipientRoute from "@/app/api/projects/[projectId]/digest/recipient
 import * as sendRoute from "@/app/api/projects/[projectId]/digest/send/route";
 import * as unsubscribeRoute from "@/app/api/digest/unsubscribe/route";
 import { DIGEST_QUEUE, enqueueDigest, getBoss, scheduleNext, singletonKey, stopQueue } from "@/lib/digest/queue";
+import { accessTo } from "@/lib/auth/access";
 import { activeRecipients, updateRecipient } from "@/lib/digest/recipients";
 import { nextSendTime } from "@/lib/digest/schedule";
 import { startDigestWorker, runDigestJob } from "@/lib/digest/worker";
@@ -223,7 +224,7 @@ describe("the queue", () => {
 
     // Through lib, not the route: the route also requeues at once, against the real clock.
     const [own] = (await activeRecipients(project.id)).filter((r) => r.userId === team.owner.id);
-    await updateRecipient(team.owner, project.id, own.id, { hourOverride: 13 });
+    await updateRecipient(await accessTo(team.owner, project.id), own.id, { hourOverride: 13 });
     const moved = await scheduleNext(project.id, now);
     expect(moved!.sendAt.toISOString()).toBe("2027-03-01T19:00:00.000Z");
     waiting = await waitingJobs(project.id);

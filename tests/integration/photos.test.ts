@@ -12,6 +12,7 @@ import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { bucket, s3 } from "@/lib/photos/storage";
 import { markPlacementSigned } from "@/lib/placements/mark-signed";
 import { transitionPlacement } from "@/lib/placements/transition";
+import { accessTo } from "@/lib/auth/access";
 import { addAmendment } from "@/lib/signoff/sign-off";
 import { createRecord, deleteRecord } from "@/lib/records/write";
 import { SYNC_SCHEMA_VERSION, type Mutation, type PullResponse } from "@/lib/sync/protocol";
@@ -241,7 +242,7 @@ describe("photos through sync", () => {
     expect(direct.json.error.message).toBe(PHOTO_SIGNED_MESSAGE);
     expect(await db.select().from(photos).where(eq(photos.id, late))).toHaveLength(0);
 
-    const amendment = await addAmendment(team.inspector, s.project.id, p.id as string, { id: randomUUID(), what: "Truck 3 ticket photo added", why: "Ticket found in the cab" });
+    const amendment = await addAmendment(await accessTo(team.inspector, s.project.id), p.id as string, { id: randomUUID(), what: "Truck 3 ticket photo added", why: "Ticket found in the cab" });
     const photoId = randomUUID();
     const ok = await push(team.inspector, randomUUID(), [createPhoto(1, photoId, file, { recordType: "amendments", recordId: amendment.id })]);
     expect(ok.json.results[0]).toMatchObject({ result: "applied" });

@@ -14,6 +14,7 @@ import { attention, evaluate, findingKey, onDate, toCheckInput, type Finding } f
 import { buildDigest, digestLinks } from "@/lib/digest/content";
 import { loadDigestDay } from "@/lib/digest/load";
 import { createRecord } from "@/lib/records/write";
+import { accessTo } from "@/lib/auth/access";
 import { buildDailyReport } from "@/lib/reports/daily";
 import type { PlacementReviewRow } from "@/lib/review/query-schemas";
 import { addMembership, callRoute, createProject, createUser, type TestUser } from "./helpers";
@@ -199,7 +200,7 @@ describe("one verdict on every surface", () => {
         expect(row.lateTrucks, "review late trucks").toBe(forPlacement.filter((f) => f.rule === "discharge-time").length);
         expect(row.testsOut, "review tests out").toBe(new Set(forPlacement.filter((f) => f.subject.type === "field-test").map((f) => f.subject.id)).size);
 
-        const { pdf } = await buildDailyReport(team.office, projectId, DATE);
+        const { pdf } = await buildDailyReport(await accessTo(team.office, projectId), DATE);
         const text = normalise((await extractText(await getDocumentProxy(pdf), { mergePages: true })).text);
         expect(text, "PDF count").toContain(`Warnings (${device.length})`);
         for (const f of device) expect(text, "PDF finding").toContain(normalise(`${f.severity === "warning" ? "Warning" : "Caution"}: ${f.title}`));

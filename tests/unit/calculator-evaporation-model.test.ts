@@ -2,16 +2,14 @@ import { describe, expect, it } from "vitest";
 import { evaporationRisk } from "@/lib/concrete";
 import {
   DEFAULT_DRAFTS,
-  chartSummary,
   convertDraft,
   evaluate,
   formatRate,
   parseDecimal,
-  rateByWind,
   riskThresholds,
   weatherCautions,
-  windToReach,
 } from "@/components/calculator/evaporation-model";
+import { chartSummary, rateByWind, windToReach } from "@/components/calculator/evaporation-chart-model";
 
 describe("parseDecimal", () => {
   it("reads what site phones type", () => {

@@ -32,18 +32,32 @@ const NOT_PROJECT_ROUTES: Record<string, string> = {
   "app/api/review/views/route.ts": "the signed-in person's own saved views",
   "app/api/lab/queue/route.ts": "across projects: readableProjects()",
   "app/api/sync/pull/route.ts": "across projects: readableProjects()",
-  "app/api/sync/push/route.ts": "per mutation: each is authorized by the shared write path (lib/records/write.ts)",
+  "app/api/sync/push/route.ts": "per mutation: the push resolves the sender's access to its projects once (lib/sync/server/push.ts) and the shared write path permits each",
 };
 
-function routeFiles(dir: string): string[] {
+function sourceFiles(dir: string, wanted: (name: string) => boolean): string[] {
   return readdirSync(path.join(root, dir), { withFileTypes: true }).flatMap((entry) => {
     const rel = `${dir}/${entry.name}`;
-    if (entry.isDirectory()) return routeFiles(rel);
-    return entry.name === "route.ts" ? [rel] : [];
+    if (entry.isDirectory()) return sourceFiles(rel, wanted);
+    return wanted(entry.name) ? [rel] : [];
   });
 }
 
-const files = routeFiles("app");
+const files = sourceFiles("app", (name) => name === "route.ts");
+
+/**
+ * The role lookup: resolving a person's access to a project (lib/auth/access.ts). Lib receives the
+ * resolved { user, role, project } and applies can() to it with permit()/allows(); it never looks
+ * the role up again. accessIn()/authorizeIn() read the access a write context carries.
+ */
+const ROLE_LOOKUP = /\b(resolveAccess|resolveMemberAccess|accessTo|getRole|getRoles)\s*\(|memberships\.role\b/;
+/** Lib modules outside lib/auth and lib/api that may still resolve access, each with why. */
+const LOOKUP_ENTRY_POINTS: Record<string, string> = {
+  "lib/sync/server/push.ts": "the sync push is its own door: the sender's access to every project of the batch, once",
+  "lib/users/queries.ts": "listUserProjects(): the memberships behind readableProjects(), the one cross-project view",
+  "lib/projects/queries.ts": "the member list of a project the access already permits (names and roles to show)",
+  "lib/projects/admin.ts": "administration of memberships (the admin flag), not an access check",
+};
 const HANDLER = /export const (GET|POST|PUT|PATCH|DELETE)\s*=\s*([A-Za-z]+)\s*[(<]/g;
 
 describe("the route door", () => {
@@ -71,6 +85,19 @@ describe("the route door", () => {
   it("no route decides a permission inline (the rules live in lib/auth/can.ts)", () => {
     const inline = files.filter((f) => /from "@\/lib\/auth\/can"|getRole\(|\brole\s*[!=]==/.test(readFileSync(path.join(root, f), "utf8")));
     expect(inline).toEqual([]);
+  });
+
+  it("no lib module outside lib/auth and lib/api looks up the role itself (lib takes the resolved access)", () => {
+    const lib = sourceFiles("lib", (name) => /\.tsx?$/.test(name)).filter((f) => !f.startsWith("lib/auth/") && !f.startsWith("lib/api/"));
+    expect(lib.length).toBeGreaterThan(50);
+    const lookups = lib.filter((f) => !(f in LOOKUP_ENTRY_POINTS) && ROLE_LOOKUP.test(readFileSync(path.join(root, f), "utf8")));
+    expect(lookups).toEqual([]);
+    for (const f of Object.keys(LOOKUP_ENTRY_POINTS)) expect(ROLE_LOOKUP.test(readFileSync(path.join(root, f), "utf8")), f).toBe(true);
+  });
+
+  it("the second authorization helper is gone: authorizeAny exists nowhere", () => {
+    const all = [...sourceFiles("lib", (n) => /\.tsx?$/.test(n)), ...sourceFiles("app", (n) => /\.tsx?$/.test(n))];
+    expect(all.filter((f) => /\bauthorizeAny\b/.test(readFileSync(path.join(root, f), "utf8")))).toEqual([]);
   });
 
   it("the list names only routes that exist and do not use the door", () => {

@@ -8,15 +8,16 @@ import type { SessionUser } from "@/lib/auth/options";
 import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
 import { listRecords } from "@/lib/records/read";
+import { formatInstant, instantFormatter, localDate } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Today" };
 
 /** Placements planned for today and tomorrow in the project's own time zone. */
 async function todayAndTomorrow(user: SessionUser, projectId: string, timeZone: string) {
-  const day = (d: Date) => new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(d);
+  const day = (d: Date) => localDate(d, timeZone);
   const now = new Date();
   const { items } = await listRecords({ user }, "placements", projectId, { from: day(now), to: day(new Date(now.getTime() + 86_400_000)), limit: "50" });
-  const time = new Intl.DateTimeFormat("en-US", { timeZone, weekday: "short", hour: "numeric", minute: "2-digit" });
+  const time = instantFormatter(timeZone, "weekdayTime");
   return items.map((row) => ({
     id: row.id,
     element: String(row.element),
@@ -30,7 +31,7 @@ export default async function TodayPage() {
   const projects = await Promise.all(
     (await readableProjects(user)).map(async (p) => ({ ...p, placements: await todayAndTomorrow(user, p.id, p.timeZone) })),
   );
-  const today = new Intl.DateTimeFormat("en-US", { weekday: "long", month: "long", day: "numeric" }).format(new Date());
+  const today = formatInstant(new Date(), undefined, "longDay");
 
   return (
     <>

@@ -10,7 +10,7 @@ import { writeAudit } from "@/lib/audit";
 import { AppError } from "@/lib/errors";
 import { ConcreteInputError } from "@/lib/concrete/errors";
 import { transitionPlacement } from "@/lib/placements/transition";
-import { authorize } from "@/lib/auth/authorize";
+import { authorizeIn, type ProjectAccess } from "@/lib/auth/access";
 import { writeActions } from "@/lib/records/access";
 import { getRecord } from "@/lib/records/read";
 import { getRecordDef } from "@/lib/records/registry";
@@ -65,7 +65,7 @@ async function resolveConflict(ctx: RecordContext, m: Mutation): Promise<RecordR
   // Whoever sent the conflicting change answers it; anyone else needs the right to write this kind
   // of record, so a reader cannot close it and a non-writer cannot discard the writer's values.
   if (open.createdBy !== ctx.user.id) {
-    await authorize(ctx.user, writeActions(getRecordDef(m.recordType).action), m.projectId, tx);
+    await authorizeIn(ctx, writeActions(getRecordDef(m.recordType).action), m.projectId, tx);
   }
   const row =
     Object.keys(patch).length > 0
@@ -97,14 +97,14 @@ const CONFLICT_REASONS = new Set(["stale", "exists", "deleted"]);
 
 async function keepConflict(
   tx: Transaction,
-  user: SessionUser,
+  ctx: RecordContext,
   m: Mutation,
   reason: string,
   serverVersion: number | null,
 ): Promise<string> {
   let serverPayload: RecordRow | null = null;
   try {
-    serverPayload = await getRecord({ user, tx }, m.recordType, m.projectId, m.recordId, { includeDeleted: true });
+    serverPayload = await getRecord({ ...ctx, tx }, m.recordType, m.projectId, m.recordId, { includeDeleted: true });
   } catch {
     serverPayload = null; // the record may not be readable (deleted); the client payload is what matters
   }
@@ -119,7 +119,7 @@ async function keepConflict(
       clientPayload: { name: m.name, args: m.args },
       serverPayload,
       reason,
-      createdBy: user.id,
+      createdBy: ctx.user.id,
     })
     .returning({ id: conflicts.id });
   return row.id;
@@ -129,8 +129,14 @@ async function keepConflict(
  * Applies `m` as `user` from device `clientId` within `tx`. Permanent refusals become results
  * (rejected, or conflict with both payloads kept); transient failures are thrown for a 503.
  */
-export async function applyMutation(tx: Transaction, user: SessionUser, clientId: string, m: Mutation): Promise<Applied> {
-  const ctx: RecordContext = { user, deviceId: clientId, tx };
+export async function applyMutation(
+  tx: Transaction,
+  user: SessionUser,
+  clientId: string,
+  m: Mutation,
+  access?: ReadonlyMap<string, ProjectAccess>,
+): Promise<Applied> {
+  const ctx: RecordContext = { user, access, deviceId: clientId, tx };
   try {
     const row = await write(ctx, m);
     return { result: "applied", version: row.version };
@@ -141,12 +147,12 @@ export async function applyMutation(tx: Transaction, user: SessionUser, clientId
     const reason = typeof error.details?.reason === "string" ? error.details.reason : error.code;
     if (error.code === "conflict" && reason === "signed") {
       // A late edit to a signed record: refused, and kept beside the record for a person to see.
-      const conflictId = await keepConflict(tx, user, m, "signed", null);
+      const conflictId = await keepConflict(tx, ctx, m, "signed", null);
       return { result: "rejected", reason, conflictId, message: error.message };
     }
     if (error.code === "conflict" && CONFLICT_REASONS.has(reason)) {
       const current = typeof error.details?.currentVersion === "number" ? error.details.currentVersion : null;
-      const conflictId = await keepConflict(tx, user, m, reason, current);
+      const conflictId = await keepConflict(tx, ctx, m, reason, current);
       return { result: "conflict", reason, conflictId, version: current ?? undefined, message: error.message };
     }
     const fields = error.fields ? ` (${Object.entries(error.fields).map(([k, v]) => `${k}: ${v}`).join("; ")})` : "";

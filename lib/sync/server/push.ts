@@ -6,7 +6,7 @@ import { insertMany } from "@/db/json-rows";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
-import { getRoles } from "@/lib/users/queries";
+import { resolveMemberAccess } from "@/lib/auth/access";
 import { SYNC_SCHEMA_VERSION, type Mutation, type MutationResult, type PushRequest, type PushResponse } from "../protocol";
 import { planCreates, writeCreates, type CreateInput } from "@/lib/records/create-batch";
 import { applyMutation, type Applied } from "./apply";
@@ -162,11 +162,12 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
 
 /** Runs of creates set-based (when `batch`), everything else one by one; results by mutation id. */
 async function applyInOrder(tx: Transaction, user: SessionUser, clientId: string, fresh: Mutation[], hooks: PushHooks, batch: boolean) {
-  const ctx = { user, deviceId: clientId, tx };
   const applied = new Map<number, Applied>();
-  // A project the sender does not belong to (or that does not exist) is refused before any write,
-  // like the project routes: the same answer for both, and nothing of the sender's is kept.
-  const roles = await getRoles(user.id, [...new Set(fresh.map((m) => m.projectId))], tx);
+  // The push's door: the sender's access to every project it names, resolved once and handed to
+  // each write. A project the sender does not belong to (or that does not exist) is refused before
+  // any write, like the project routes: the same answer for both, and nothing of the sender's is kept.
+  const roles = await resolveMemberAccess(user, [...new Set(fresh.map((m) => m.projectId))], tx);
+  const ctx = { user, access: roles, deviceId: clientId, tx };
   let i = 0;
   while (i < fresh.length) {
     if (!roles.has(fresh[i].projectId)) {
@@ -184,7 +185,7 @@ async function applyInOrder(tx: Transaction, user: SessionUser, clientId: string
     const plan = creates.length ? await planCreates(tx, ctx, creates) : [];
     if (plan.length === 0) {
       const m = fresh[i];
-      const a = await applyMutation(tx, user, clientId, m);
+      const a = await applyMutation(tx, user, clientId, m, roles);
       await hooks.afterApply?.(tx, m, a);
       applied.set(m.id, a);
       i += 1;

@@ -5,16 +5,15 @@ import { PlacementList } from "@/components/placements/placement-list";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { listPlacementsForScreen } from "@/lib/placements/queries";
 import { getProjectForMember } from "@/lib/projects/queries";
+import { localDate } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Project" };
 
-/** The project-local calendar day of an instant, as YYYY-MM-DD. */
-const localDay = (instant: Date, timeZone: string) =>
-  new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(instant);
 
 export default async function ProjectPage({
   params,
@@ -29,9 +28,11 @@ export default async function ProjectPage({
   const date = rawDate && /^\d{4}-\d{2}-\d{2}$/.test(rawDate) ? rawDate : null;
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
+  let access: ProjectAccess;
   let data;
   try {
-    data = await getProjectForMember(user, projectId);
+    access = await accessTo(user, projectId);
+    data = await getProjectForMember(access);
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
       return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden">You are not a member of it. Ask your administrator if you should be.</Notice>;
@@ -39,8 +40,8 @@ export default async function ProjectPage({
     throw error;
   }
   const { project, role, members } = data;
-  const all = await listPlacementsForScreen(user, projectId);
-  const placements = date ? all.filter((p) => p.plannedStart && localDay(new Date(p.plannedStart), project.timeZone) === date) : all;
+  const all = await listPlacementsForScreen(access);
+  const placements = date ? all.filter((p) => p.plannedStart && localDate(new Date(p.plannedStart), project.timeZone) === date) : all;
   return (
     <>
       <PageHeader

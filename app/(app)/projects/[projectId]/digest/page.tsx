@@ -7,10 +7,12 @@ import { DigestRecipients, type RecipientItem } from "@/components/digest/digest
 import { OwnerPreferences } from "@/components/digest/owner-preferences";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { getDigestHistory, getDigestView, type DigestView } from "@/lib/digest/access";
 import { hourLabel } from "@/lib/digest/hours";
 import { AppError } from "@/lib/errors";
+import { instantFormatter } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Daily digest" };
 
@@ -19,8 +21,10 @@ export default async function DigestPage({ params }: { params: Promise<{ project
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
   let view: DigestView;
+  let access: ProjectAccess;
   try {
-    view = await getDigestView(user, projectId);
+    access = await accessTo(user, projectId);
+    view = await getDigestView(access);
   } catch (error) {
     if (error instanceof AppError && (error.code === "forbidden" || error.code === "not_found")) {
       return <Notice tone="danger" title="The digest settings are not available to you." testId="digest-forbidden">They are for the project office and the project&apos;s owners.</Notice>;
@@ -28,7 +32,7 @@ export default async function DigestPage({ params }: { params: Promise<{ project
     throw error;
   }
   const { project } = view;
-  const when = new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const when = instantFormatter(project.timeZone, "dayTime");
   const recipients: RecipientItem[] = view.recipients.map((r) => ({
     id: r.id,
     email: r.email,
@@ -41,7 +45,7 @@ export default async function DigestPage({ params }: { params: Promise<{ project
   }));
   const showHistory = view.canManage || user.isAdmin;
   const history: HistoryItem[] = showHistory
-    ? (await getDigestHistory(user, projectId)).map((h) => ({
+    ? (await getDigestHistory(access)).map((h) => ({
         key: `${h.date}:${h.recipientEmail}`,
         date: h.date,
         recipientEmail: h.recipientEmail,

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { LabWorkspace } from "@/components/lab/lab-workspace";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { getProjectForMember } from "@/lib/projects/queries";
@@ -19,7 +20,7 @@ export default async function ProjectLabPage({ params, searchParams }: { params:
   if (!UUID.test(projectId)) notFound();
   let project;
   try {
-    ({ project } = await getProjectForMember(user, projectId));
+    ({ project } = await getProjectForMember(await accessTo(user, projectId)));
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
       return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden">You are not a member of it.</Notice>;

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { mixTexts } from "@/components/mixes/mix-summary";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { listMixes, projectForScreen } from "@/lib/mixes/queries";
 
@@ -13,12 +14,12 @@ export default async function MixesPage({ params }: { params: Promise<{ projectI
   const { projectId } = await params;
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
-  const data = await projectForScreen(user, projectId);
+  const data = await projectForScreen(await accessTo(user, projectId));
   if (!data) {
     return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden">You are not a member of it.</Notice>;
   }
   const { project, canWriteMixes } = data;
-  const mixes = await listMixes(user, projectId);
+  const mixes = await listMixes(data.access);
   const units = project.unitSystem;
   return (
     <>

@@ -2,15 +2,17 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StoredPhotos } from "@/components/photos/stored-photos";
-import { AuditTrail } from "@/components/review/audit-trail";
+import { AuditTrail } from "@/components/audit/audit-trail";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatVolume } from "@/lib/concrete/units";
 import { AppError } from "@/lib/errors";
 import { StateBadge } from "@/components/ui/state-badge";
 import { loadDiaryReview, type DiaryReview } from "@/lib/review/diary-detail";
+import { calendarDateText, instantFormatter } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Daily diary" };
 
@@ -19,7 +21,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
   const user = await requireUser();
   let data: DiaryReview;
   try {
-    data = await loadDiaryReview(user, projectId, date);
+    data = await loadDiaryReview(await accessTo(user, projectId), date);
   } catch (error) {
     if (error instanceof AppError && error.code === "forbidden") return <Notice tone="danger" title="This diary is not available to you.">{error.message}</Notice>;
     if (error instanceof AppError && (error.code === "not_found" || error.code === "invalid_input")) notFound();
@@ -27,8 +29,8 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
   }
   const { project, diary } = data;
   const units = project.unitSystem;
-  const dayTime = new Intl.DateTimeFormat("en-US", { timeZone: project.timeZone, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
-  const longDate = new Intl.DateTimeFormat("en-US", { timeZone: "UTC", weekday: "long", month: "long", day: "numeric", year: "numeric" }).format(new Date(`${date}T12:00:00Z`));
+  const dayTime = instantFormatter(project.timeZone, "dayTime");
+  const longDate = calendarDateText(date, "longDate");
   return (
     <div className="space-y-3" data-testid="diary-review">
       <PageHeader
@@ -60,7 +62,7 @@ export default async function DiaryReviewPage({ params }: { params: Promise<{ pr
             <div><h3 className="text-xs font-semibold uppercase text-ink-600">Work done</h3><p className="whitespace-pre-wrap">{diary.workDone || "—"}</p></div>
             <div><h3 className="text-xs font-semibold uppercase text-ink-600">Safety</h3><p className="whitespace-pre-wrap">{diary.safetyNotes || "—"}</p></div>
           </div>
-          <div className="mt-2"><AuditTrail projectId={projectId} recordId={diary.id} timeZone={project.timeZone} label="Audit trail" /></div>
+          <div className="mt-2"><AuditTrail look="inline" projectId={projectId} recordId={diary.id} timeZone={project.timeZone} label="Audit trail" /></div>
         </Section>
       )}
       {diary ? (

@@ -5,6 +5,7 @@ import { MixForm } from "@/components/mixes/mix-form";
 import { MixSummary } from "@/components/mixes/mix-summary";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { getMix, mixFormInput, projectForScreen } from "@/lib/mixes/queries";
 
@@ -16,9 +17,9 @@ export default async function MixPage({ params }: { params: Promise<{ projectId:
   const { projectId, mixId } = await params;
   const user = await requireUser();
   if (!UUID.test(projectId) || !UUID.test(mixId)) notFound();
-  const data = await projectForScreen(user, projectId);
+  const data = await projectForScreen(await accessTo(user, projectId));
   if (!data) return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden" />;
-  const mix = await getMix(user, projectId, mixId);
+  const mix = await getMix(data.access, mixId);
   if (!mix) notFound();
   const back = <Link href={`/projects/${projectId}/mixes`} className="underline-offset-4 hover:underline">Mix designs</Link>;
   return (

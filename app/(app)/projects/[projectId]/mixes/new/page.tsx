@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { MixForm } from "@/components/mixes/mix-form";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { projectForScreen } from "@/lib/mixes/queries";
 
@@ -13,7 +14,7 @@ export default async function NewMixPage({ params }: { params: Promise<{ project
   const { projectId } = await params;
   const user = await requireUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
-  const data = await projectForScreen(user, projectId);
+  const data = await projectForScreen(await accessTo(user, projectId));
   if (!data) return <Notice tone="danger" title="This project is not available to you." testId="project-forbidden" />;
   if (!data.canWriteMixes) {
     return (

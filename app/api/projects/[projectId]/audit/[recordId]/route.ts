@@ -1,4 +1,4 @@
 import { projectRoute } from "@/lib/api/project-route";
 import { auditTrail } from "@/lib/signoff/sign-off";
 
-export const GET = projectRoute<{ projectId: string; recordId: string }>({ action: "project.read" }, ({ user, params }) => auditTrail(user, params.projectId, params.recordId));
+export const GET = projectRoute<{ projectId: string; recordId: string }>({ action: "project.read" }, ({ access, params }) => auditTrail(access, params.recordId));

@@ -3,4 +3,4 @@ import { getDigestHistory } from "@/lib/digest/access";
 
 type Params = { projectId: string };
 
-export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ user, params }) => ({ history: await getDigestHistory(user, params.projectId) }));
+export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ access }) => ({ history: await getDigestHistory(access) }));

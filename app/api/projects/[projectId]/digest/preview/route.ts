@@ -5,9 +5,9 @@ import { digestDateSchema, previewDigest } from "@/lib/digest/access";
 type Params = { projectId: string };
 
 /** The digest of ?date= as HTML (?format=json adds the subject and the text part). */
-export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ req, user, params }) => {
+export const GET = projectRoute<Params>({ action: "digest.manage" }, async ({ req, access }) => {
   const date = parseOrThrow(digestDateSchema, req.nextUrl.searchParams.get("date") ?? "");
-  const message = await previewDigest(user, params.projectId, date);
+  const message = await previewDigest(access, date);
   if (req.nextUrl.searchParams.get("format") === "json") {
     return { subject: message.subject, html: message.html, text: message.text, isEmpty: message.isEmpty };
   }

@@ -2,6 +2,6 @@ import { projectRoute } from "@/lib/api/project-route";
 import { getProjectSets } from "@/lib/lab/queries";
 import { queryObject } from "@/lib/api/request";
 
-export const GET = projectRoute<{ projectId: string }>({ action: "project.read" }, ({ req, user, params }) =>
-  getProjectSets(user, params.projectId, queryObject(req)),
+export const GET = projectRoute<{ projectId: string }>({ action: "project.read" }, ({ req, access }) =>
+  getProjectSets(access, queryObject(req)),
 );

@@ -5,11 +5,13 @@ import { notFound } from "next/navigation";
 import { PrintButton } from "@/components/signoff/print-button";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
+import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatLength, formatTemperature, formatVolume, formatWaterVolume, formatSpeed, formatEvaporation, type UnitSystem } from "@/lib/concrete";
 import { AppError } from "@/lib/errors";
 import { placementStateLabel } from "@/lib/ui/vocabulary";
 import { loadPlacementPrint } from "@/lib/signoff/print";
+import { formatInstant } from "@/lib/time/zone";
 
 export const metadata: Metadata = { title: "Placement record" };
 
@@ -21,10 +23,10 @@ function when(value: unknown, timeZone: string): string {
   if (!value) return "—";
   const d = value instanceof Date ? value : new Date(String(value));
   if (Number.isNaN(d.getTime())) return "—";
-  return new Intl.DateTimeFormat("en-US", { year: "numeric", month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone, timeZoneName: "short" }).format(d);
+  return formatInstant(d, timeZone, "yearDayTimeZone");
 }
 const time = (value: unknown, timeZone: string) =>
-  value ? new Intl.DateTimeFormat("en-US", { hour: "numeric", minute: "2-digit", timeZone }).format(new Date(String(value instanceof Date ? value.toISOString() : value))) : "—";
+  value ? formatInstant(value instanceof Date ? value : String(value), timeZone, "time") : "—";
 const answerWord = (a: unknown) => (a === "yes" ? "Yes" : a === "no" ? "No" : a === "na" ? "N/A" : "—");
 const roleWord = (r: string) => ROLE_LABELS[r as ProjectRole] ?? r;
 
@@ -71,7 +73,7 @@ export default async function PlacementPrintPage({ params }: { params: Promise<{
   if (!/^[0-9a-f-]{36}$/i.test(projectId) || !/^[0-9a-f-]{36}$/i.test(placementId)) notFound();
   let data;
   try {
-    data = await loadPlacementPrint(user, projectId, placementId);
+    data = await loadPlacementPrint(await accessTo(user, projectId), placementId);
   } catch (error) {
     if (error instanceof AppError && (error.code === "not_found" || error.code === "forbidden")) {
       return (

@@ -3,19 +3,22 @@ import { elementTypeLabel } from "@/lib/ui/vocabulary";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { StoredPhotos, type StoredPhoto } from "@/components/photos/stored-photos";
-import { AuditTrail } from "@/components/review/audit-trail";
+import { AuditTrail } from "@/components/audit/audit-trail";
 import { Correction } from "@/components/review/correction";
+import { TruckSections } from "@/components/review/truck-sections";
 import { Empty, Facts, MiniTable, Section } from "@/components/review/detail-parts";
 import { Notice } from "@/components/ui/notice";
 import { OfficeMaturity } from "@/components/maturity/office-maturity";
 import { loadMaturityRecords } from "@/lib/maturity/records";
 import { PageHeader } from "@/components/ui/page-header";
+import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
-import { formatDensity, formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume, formatWaterVolume } from "@/lib/concrete/units";
+import { formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume } from "@/lib/concrete/units";
 import { GOVERNS, citation } from "@/lib/checks";
 import { AppError } from "@/lib/errors";
 import { StateBadge } from "@/components/ui/state-badge";
-import { SEVERITY_WORDS, severityOf, TONES, warningWord, wordFor } from "@/lib/ui/vocabulary";
+import { severityOf, TONES, warningWord } from "@/lib/ui/vocabulary";
+import { instantFormatter } from "@/lib/time/zone";
 import { loadPlacementReview, type PlacementReview } from "@/lib/review/detail";
 
 export const metadata: Metadata = { title: "Placement review" };
@@ -27,19 +30,21 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
   const { projectId, placementId } = await params;
   const user = await requireUser();
   let data: PlacementReview;
+  let access: ProjectAccess;
   try {
-    data = await loadPlacementReview(user, projectId, placementId);
+    access = await accessTo(user, projectId);
+    data = await loadPlacementReview(access, placementId);
   } catch (error) {
     if (error instanceof AppError && error.code === "forbidden") return <Notice tone="danger" title="This placement is not available to you.">{error.message}</Notice>;
     if (error instanceof AppError && (error.code === "not_found" || error.code === "invalid_input")) notFound();
     throw error;
   }
   const { project, placement: p, mix, children, canCorrect } = data;
-  const maturity = await loadMaturityRecords(user, projectId, placementId, (p.mixId as string | null) ?? null);
+  const maturity = await loadMaturityRecords(access, placementId, (p.mixId as string | null) ?? null);
   const units = project.unitSystem;
   const tz = project.timeZone;
-  const time = new Intl.DateTimeFormat("en-US", { timeZone: tz, hour: "numeric", minute: "2-digit" });
-  const dayTime = new Intl.DateTimeFormat("en-US", { timeZone: tz, month: "short", day: "numeric", hour: "numeric", minute: "2-digit" });
+  const time = instantFormatter(tz, "time");
+  const dayTime = instantFormatter(tz, "dayTime");
   const t = (v: unknown) => (v ? time.format(new Date(v as string)) : "—");
   const deliveries = children.deliveries as R[];
   const tests = children["field-tests"] as R[];
@@ -95,7 +100,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
           ]}
         />
         <div className="mt-2">
-          <AuditTrail projectId={projectId} recordId={p.id as string} timeZone={tz} label="Audit trail" />
+          <AuditTrail look="inline" projectId={projectId} recordId={p.id as string} timeZone={tz} label="Audit trail" />
         </div>
       </Section>
 
@@ -125,69 +130,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         </Notice>
       ) : null}
 
-      <Section title="Trucks" count={deliveries.length} testId="section-deliveries">
-        {deliveries.length === 0 ? (
-          <Empty>No truck tickets recorded.</Empty>
-        ) : (
-          <MiniTable
-            testId="deliveries-table"
-            head={["Ticket", "Volume", "Batched", "Arrived", "Discharged by", "Minutes", "Revolutions", "Water added", "Status", ""]}
-            rows={deliveries.map((d) => {
-              const minutes = d.dischargeFinishedAt ? (new Date(d.dischargeFinishedAt as string).getTime() - new Date(d.batchedAt as string).getTime()) / 60_000 : null;
-              const late = d.status !== "rejected" && minutes !== null && minutes > limit;
-              const water = num(d.waterAddedL);
-              return {
-                key: d.id as string,
-                tone: d.status === "rejected" ? wordFor("delivery", "rejected").tone : late ? SEVERITY_WORDS.warning.tone : undefined,
-                cells: [
-                  <span key="t" className="font-semibold">{d.ticketNumber as string}{d.truck ? <span className="ml-1 font-normal text-muted">truck {d.truck as string}</span> : null}</span>,
-                  <span key="v">
-                    {formatVolume(Number(d.volumeM3), units, 1)}
-                    {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="volumeM3" quantity="volume" valueSI={num(d.volumeM3)} unitSystem={units} label="Volume" testId={`correct-volume-${d.ticketNumber}`} /> : null}
-                  </span>,
-                  t(d.batchedAt),
-                  t(d.arrivedAt),
-                  t(d.dischargeFinishedAt),
-                  minutes === null ? "—" : <span key="m" className={late ? "font-bold text-danger-700" : undefined}>{Math.round(minutes)}{late ? ` (over ${limit})` : ""}</span>,
-                  (d.revolutions as number | null) ?? "—",
-                  <span key="w">
-                    {water ? `${formatWaterVolume(water, units)}${d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}${d.waterAuthorisedBy ? `, authorised ${d.waterAuthorisedBy}` : ""}` : "—"}
-                    {canCorrect ? <Correction projectId={projectId} type="deliveries" id={d.id as string} version={d.version as number} field="waterAddedL" quantity="waterVolume" valueSI={water} unitSystem={units} label="Water added" testId={`correct-water-${d.ticketNumber}`} /> : null}
-                  </span>,
-                  <span key="s" className="flex flex-col items-start gap-0.5"><StateBadge kind="delivery" code={d.status as string} size="sm" testId="delivery-status" />{d.status === "rejected" && d.rejectReason ? <span className="text-xs">{d.rejectReason as string}</span> : null}</span>,
-                  <AuditTrail key="a" projectId={projectId} recordId={d.id as string} timeZone={tz} />,
-                ],
-              };
-            })}
-          />
-        )}
-      </Section>
-
-      <Section title="Fresh-concrete tests" count={tests.length} testId="section-tests">
-        {tests.length === 0 ? (
-          <Empty>No tests recorded.</Empty>
-        ) : (
-          <MiniTable
-            head={["Sampled", "Ticket", "Slump", "Slump flow", "Air", "Concrete", "Air temp.", "Density", "Notes", ""]}
-            rows={tests.map((x) => ({
-              key: x.id as string,
-              cells: [
-                t(x.sampledAt),
-                x.deliveryId ? (ticket.get(x.deliveryId as string) ?? "—") : "—",
-                num(x.slumpMm) === null ? "—" : formatLength(num(x.slumpMm)!, units),
-                num(x.slumpFlowMm) === null ? "—" : formatLength(num(x.slumpFlowMm)!, units),
-                num(x.airPct) === null ? "—" : `${Number(x.airPct).toFixed(1)} %`,
-                num(x.concreteTempC) === null ? "—" : formatTemperature(num(x.concreteTempC)!, units),
-                num(x.airTempC) === null ? "—" : formatTemperature(num(x.airTempC)!, units),
-                num(x.densityKgM3) === null ? "—" : formatDensity(num(x.densityKgM3)!, units),
-                (x.notes as string) || "",
-                <AuditTrail key="a" projectId={projectId} recordId={x.id as string} timeZone={tz} />,
-              ],
-            }))}
-          />
-        )}
-        {mix ? <p className="mt-1 text-xs text-muted">Mix {mix.code}: slump {mix.slumpTargetMm === null ? "not specified" : `${mix.slumpType === "maximum" ? "not to exceed" : "target"} ${formatLength(mix.slumpTargetMm, units)}`}; air {mix.airTargetPct === null ? "not specified" : `${mix.airTargetPct} %`}.</p> : null}
-      </Section>
+      <TruckSections deliveries={deliveries} tests={tests} mix={mix} projectId={projectId} timeZone={tz} units={units} dischargeLimitMinutes={limit} canCorrect={canCorrect} />
 
       <Section title="Weather" count={weather.length} testId="section-weather">
         {weather.length === 0 ? (

@@ -5,13 +5,13 @@ import { removeRecipient, updateRecipient, updateRecipientSchema } from "@/lib/d
 
 type Params = { projectId: string; recipientId: string };
 
-export const PATCH = projectRoute<Params, z.output<typeof updateRecipientSchema>>({ action: "project.read", body: updateRecipientSchema }, async ({ user, params, body }) => {
-  const recipient = await updateRecipient(user, params.projectId, params.recipientId, body);
+export const PATCH = projectRoute<Params, z.output<typeof updateRecipientSchema>>({ action: "project.read", body: updateRecipientSchema }, async ({ access, params, body }) => {
+  const recipient = await updateRecipient(access, params.recipientId, body);
   rescheduleSoon(params.projectId);
   return recipient;
 });
 
-export const DELETE = projectRoute<Params>({ action: "digest.manage" }, async ({ user, params }) => {
-  await removeRecipient(user, params.projectId, params.recipientId);
+export const DELETE = projectRoute<Params>({ action: "digest.manage" }, async ({ access, params }) => {
+  await removeRecipient(access, params.recipientId);
   return { ok: true };
 });

@@ -4,6 +4,6 @@ import { addAmendment } from "@/lib/signoff/sign-off";
 
 type Params = { projectId: string; id: string };
 
-export const POST = projectRoute<Params, AmendmentInput>({ action: "amendment.write", body: amendmentSchema }, ({ user, params, body }) =>
-  addAmendment(user, params.projectId, params.id, body),
+export const POST = projectRoute<Params, AmendmentInput>({ action: "amendment.write", body: amendmentSchema }, ({ access, params, body }) =>
+  addAmendment(access, params.id, body),
 );

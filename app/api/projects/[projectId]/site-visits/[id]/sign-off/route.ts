@@ -6,7 +6,7 @@ import { signOffVisit, verifyVisitSignOff } from "@/lib/site-visits/sign-off";
 type Params = { projectId: string; id: string };
 
 /** The visit report's sign-off, whether it still matches what was signed, and the findings still outstanding. */
-export const GET = projectRoute<Params>({ action: "project.read" }, ({ user, params }) => verifyVisitSignOff(user, params.projectId, params.id));
+export const GET = projectRoute<Params>({ action: "project.read" }, ({ access, params }) => verifyVisitSignOff(access, params.id));
 
 /** Sign a submitted visit report: password, typed name, drawn signature, the version reviewed. */
-export const POST = projectRoute<Params, SignOffInput>({ action: "visit.sign", body: signOffSchema, maxBodyBytes: SIGN_OFF_MAX_BODY_BYTES }, ({ user, params, body }) => signOffVisit(user, params.projectId, params.id, body));
+export const POST = projectRoute<Params, SignOffInput>({ action: "visit.sign", body: signOffSchema, maxBodyBytes: SIGN_OFF_MAX_BODY_BYTES }, ({ access, params, body }) => signOffVisit(access, params.id, body));
