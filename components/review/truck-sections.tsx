@@ -5,6 +5,7 @@ import { Correction } from "@/components/review/correction";
 import { Empty, MiniTable, Section } from "@/components/review/detail-parts";
 import { StateBadge } from "@/components/ui/state-badge";
 import { formatDensity, formatLength, formatTemperature, formatVolume, formatWaterVolume, type UnitSystem } from "@/lib/concrete/units";
+import type { Finding } from "@/lib/checks";
 import type { PlacementReview } from "@/lib/review/detail";
 import { instantFormatter } from "@/lib/time/zone";
 import { SEVERITY_WORDS, wordFor } from "@/lib/ui/vocabulary";
@@ -19,7 +20,7 @@ export function TruckSections({
   projectId,
   timeZone: tz,
   units,
-  dischargeLimitMinutes: limit,
+  lateTrucks,
   canCorrect,
 }: {
   deliveries: R[];
@@ -28,7 +29,8 @@ export function TruckSections({
   projectId: string;
   timeZone: string;
   units: UnitSystem;
-  dischargeLimitMinutes: number;
+  /** The rulebook's late-truck findings (lib/checks), by delivery id. */
+  lateTrucks: Map<string, Finding>;
   canCorrect: boolean;
 }) {
   const time = instantFormatter(tz, "time");
@@ -45,7 +47,7 @@ export function TruckSections({
               head={["Ticket", "Volume", "Batched", "Arrived", "Discharged by", "Minutes", "Revolutions", "Water added", "Status", ""]}
               rows={deliveries.map((d) => {
                 const minutes = d.dischargeFinishedAt ? (new Date(d.dischargeFinishedAt as string).getTime() - new Date(d.batchedAt as string).getTime()) / 60_000 : null;
-                const late = d.status !== "rejected" && minutes !== null && minutes > limit;
+                const late = lateTrucks.get(d.id as string);
                 const water = num(d.waterAddedL);
                 return {
                   key: d.id as string,
@@ -59,7 +61,7 @@ export function TruckSections({
                     t(d.batchedAt),
                     t(d.arrivedAt),
                     t(d.dischargeFinishedAt),
-                    minutes === null ? "—" : <span key="m" className={late ? "font-bold text-danger-700" : undefined}>{Math.round(minutes)}{late ? ` (over ${limit})` : ""}</span>,
+                    minutes === null ? "—" : <span key="m" className={late ? "font-bold text-danger-700" : undefined}>{Math.round(minutes)}{late ? ` (over ${late.applied.limit})` : ""}</span>,
                     (d.revolutions as number | null) ?? "—",
                     <span key="w">
                       {water ? `${formatWaterVolume(water, units)}${d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}${d.waterAuthorisedBy ? `, authorised ${d.waterAuthorisedBy}` : ""}` : "—"}

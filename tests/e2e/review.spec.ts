@@ -54,3 +54,18 @@ test("owner: sees the table and the detail without edit controls", async ({ page
   await expect(page.locator('[data-testid^="correct-"]')).toHaveCount(0);
   await page.screenshot({ path: ".data/review-detail-owner.png", fullPage: false });
 });
+
+test("office: the late truck of the demo's shear walls is late in the warnings and in the trucks table alike", async ({ page }) => {
+  // Demo scenario: ticket BR-242213 finished discharging 96 min after batching, over the 90 min
+  // minutes of ASTM C94 that the project keeps. Both parts of the page come from the rulebook.
+  await signIn(page, DEMO.olu);
+  await page.goto("/review");
+  await page.getByTestId("placement-link").filter({ hasText: "Shear walls SW-1 to SW-4, level 1 to 2" }).first().click();
+  const detail = page.getByTestId("placement-review");
+  await expect(detail.getByTestId("section-warnings")).toContainText("Late truck: ticket BR-242213 (truck 31), 96 min from batching");
+  const row = detail.getByTestId("deliveries-table").getByRole("row").filter({ hasText: "BR-242213" });
+  await expect(row).toContainText("96 (over 90)");
+  const onTime = detail.getByTestId("deliveries-table").getByRole("row").filter({ hasNotText: "BR-242213" }).filter({ hasText: /BR-/ });
+  await expect(onTime.first()).toBeVisible();
+  await expect(onTime.filter({ hasText: "(over" })).toHaveCount(0);
+});

@@ -14,7 +14,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { accessTo, type ProjectAccess } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { formatEvaporation, formatLength, formatSpeed, formatStrength, formatTemperature, formatVolume } from "@/lib/concrete/units";
-import { GOVERNS, citation } from "@/lib/checks";
+import { GOVERNS, citation, evaluate, toCheckInput } from "@/lib/checks";
 import { AppError } from "@/lib/errors";
 import { StateBadge } from "@/components/ui/state-badge";
 import { severityOf, TONES, warningWord } from "@/lib/ui/vocabulary";
@@ -54,7 +54,12 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
   const curing = children["curing-readings"] as R[];
   const sets = children["specimen-sets"] as R[];
   const ticket = new Map(deliveries.map((d) => [d.id as string, d.ticketNumber as string]));
-  const limit = project.dischargeLimitMinutes;
+  // Late trucks as the rulebook judges them, not a second copy of the discharge limit.
+  const lateTrucks = new Map(
+    evaluate(toCheckInput({ project, mixes: [], placements: [], deliveries }))
+      .filter((f) => f.rule === "discharge-time")
+      .map((f) => [f.subject.id, f]),
+  );
   const openConflicts = data.conflicts.filter((c) => !c.resolvedAt);
   const photoRecords: [string, string, string][] = [
     ["placements", p.id as string, "Placement photos"],
@@ -130,7 +135,7 @@ export default async function PlacementReviewPage({ params }: { params: Promise<
         </Notice>
       ) : null}
 
-      <TruckSections deliveries={deliveries} tests={tests} mix={mix} projectId={projectId} timeZone={tz} units={units} dischargeLimitMinutes={limit} canCorrect={canCorrect} />
+      <TruckSections deliveries={deliveries} tests={tests} mix={mix} projectId={projectId} timeZone={tz} units={units} lateTrucks={lateTrucks} canCorrect={canCorrect} />
 
       <Section title="Weather" count={weather.length} testId="section-weather">
         {weather.length === 0 ? (
