@@ -22,12 +22,12 @@ export async function projectForScreen(user: SessionUser, projectId: string) {
 
 export async function listMixes(user: SessionUser, projectId: string): Promise<MixDesignRow[]> {
   const { items } = await listRecords({ user }, "mix-designs", projectId, { limit: "200" });
-  return (items as unknown as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
+  return (items as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
 }
 
 export async function getMix(user: SessionUser, projectId: string, id: string): Promise<MixDesignRow | null> {
   try {
-    return (await getRecord({ user }, "mix-designs", projectId, id)) as unknown as MixDesignRow;
+    return (await getRecord({ user }, "mix-designs", projectId, id)) as MixDesignRow;
   } catch (error) {
     if (error instanceof AppError && error.code === "not_found") return null;
     throw error;

@@ -65,7 +65,7 @@ export async function requestPhotoUpload(user: SessionUser, projectId: string, p
       return existing;
     }
     const { record } = await createRecord({ user, tx }, "photos", projectId, { ...body, id: photoId });
-    return record as unknown as PhotoRow;
+    return record as PhotoRow;
   });
   if (row.storedAt) return { stored: true as const, photoId };
   const key = row.storageKey ?? photoKey(projectId, photoId, contentType);

@@ -5,7 +5,7 @@
 // are dropped only once a pull has brought the photo with storedAt set; the thumbnail stays.
 // Runs in the tab that leads the sync loop, after each sync cycle and when its back-off ends.
 import type { BlobRow, SyncDb } from "@/lib/sync/client/db";
-import type { DriverStatus } from "@/lib/sync/client/driver";
+import type { DriverStatus } from "@/lib/sync/client/driver-env";
 import type { FetchLike } from "@/lib/sync/client/push";
 import { isDue, nextUpload, recoverStale, type UploadEvent } from "./upload-state";
 
