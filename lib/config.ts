@@ -104,7 +104,7 @@ export function parseConfig(env: Record<string, string | undefined>): Config {
   throw new ConfigError([...new Set(problems)]);
 }
 
-const globalForConfig = globalThis as unknown as { placewrightConfig?: Config };
+const globalForConfig = globalThis as typeof globalThis & { placewrightConfig?: Config };
 
 /** The validated configuration of this process, read once. */
 export function config(): Config {

@@ -6,7 +6,7 @@ export type ShutdownHook = { name: string; order: number; run: () => Promise<voi
 type Lifecycle = { draining: boolean; hooks: ShutdownHook[]; shutdownTimeoutMs?: number };
 
 const KEY = Symbol.for("placewright.lifecycle");
-const globalForLifecycle = globalThis as unknown as { [KEY]?: Lifecycle };
+const globalForLifecycle = globalThis as typeof globalThis & { [KEY]?: Lifecycle };
 
 function state(): Lifecycle {
   return (globalForLifecycle[KEY] ??= { draining: false, hooks: [] });

@@ -8,7 +8,7 @@ import pino from "pino";
 export type RequestContext = { requestId: string };
 
 const CONTEXT_KEY = Symbol.for("placewright.requestContext");
-const globalForLog = globalThis as unknown as { [CONTEXT_KEY]?: AsyncLocalStorage<RequestContext>; placewrightLogger?: pino.Logger };
+const globalForLog = globalThis as typeof globalThis & { [CONTEXT_KEY]?: AsyncLocalStorage<RequestContext>; placewrightLogger?: pino.Logger };
 
 export function requestContext(): AsyncLocalStorage<RequestContext> {
   return (globalForLog[CONTEXT_KEY] ??= new AsyncLocalStorage<RequestContext>());

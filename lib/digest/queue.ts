@@ -19,7 +19,7 @@ export type RetryPolicy = { retryLimit: number; retryDelay: number; retryBackoff
 export const DIGEST_RETRY: RetryPolicy = { retryLimit: 7, retryDelay: 60, retryBackoff: true };
 
 // One instance per process, kept on globalThis so Next's dev reloads do not start a second one.
-const globalForBoss = globalThis as unknown as { placewrightBoss?: Promise<PgBoss> };
+const globalForBoss = globalThis as typeof globalThis & { placewrightBoss?: Promise<PgBoss> };
 
 async function createBoss(): Promise<PgBoss> {
   const boss = new PgBoss({

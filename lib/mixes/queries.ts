@@ -21,12 +21,12 @@ export async function projectForScreen(access: ProjectAccess) {
 
 export async function listMixes(access: ProjectAccess): Promise<MixDesignRow[]> {
   const { items } = await listRecords({ user: access.user, access }, "mix-designs", access.project.id, { limit: "200" });
-  return (items as unknown as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
+  return (items as MixDesignRow[]).sort((a, b) => a.code.localeCompare(b.code));
 }
 
 export async function getMix(access: ProjectAccess, id: string): Promise<MixDesignRow | null> {
   try {
-    return (await getRecord({ user: access.user, access }, "mix-designs", access.project.id, id)) as unknown as MixDesignRow;
+    return (await getRecord({ user: access.user, access }, "mix-designs", access.project.id, id)) as MixDesignRow;
   } catch (error) {
     if (error instanceof AppError && error.code === "not_found") return null;
     throw error;

@@ -64,7 +64,7 @@ export async function requestPhotoUpload(access: ProjectAccess, photoId: string,
       return existing;
     }
     const { record } = await createRecord({ user, access, tx }, "photos", projectId, { ...body, id: photoId });
-    return record as unknown as PhotoRow;
+    return record as PhotoRow;
   });
   if (row.storedAt) return { stored: true as const, photoId };
   const key = row.storageKey ?? photoKey(projectId, photoId, contentType);

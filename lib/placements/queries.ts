@@ -17,7 +17,7 @@ export async function listPlacementsForScreen(access: ProjectAccess): Promise<Pl
     listMixes(access),
   ]);
   const codes = new Map(mixes.map((m) => [m.id, m.code]));
-  return (items as unknown as PlacementRow[]).map((p) => ({
+  return (items as PlacementRow[]).map((p) => ({
     id: p.id,
     element: p.element,
     level: p.level,

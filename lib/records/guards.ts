@@ -6,6 +6,7 @@ import { PHOTO_SIGNED_MESSAGE } from "@/lib/photos/rules";
 import { conflict, invalidInput, notFound } from "@/lib/errors";
 import { assertVisitNotSigned } from "@/lib/site-visits/freeze";
 import { signedConflict } from "./db-errors";
+import type { Link } from "./record-def";
 import { getRecordDef, type RecordDef } from "./registry";
 import type { RecordRow } from "./types";
 
@@ -56,7 +57,7 @@ export async function checkLinks(
   record: Record<string, unknown> = values,
   rows: RowSource = dbRows(tx),
 ): Promise<void> {
-  const links = [def.parent, ...(def.refs ?? [])].filter((link) => link !== undefined);
+  const links: Link[] = [def.parent, ...(def.refs ?? [])].filter((link) => link !== undefined);
   for (const link of links) {
     const value = values[link.field];
     // A list of links (a visit's placements) is checked one id at a time.

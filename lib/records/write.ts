@@ -3,7 +3,6 @@
 // Order, in one transaction: validate → authorize → tenant-scoped lookup → state checks (signed,
 // placement rules) → version → change sequence → write → audit entry.
 import { and, eq, isNull } from "drizzle-orm";
-import { z } from "zod";
 import type { Executor, Transaction } from "@/db";
 import { transaction } from "@/db/transaction";
 import { projects } from "@/db/schema";
@@ -19,20 +18,10 @@ import { mapDbError } from "./db-errors";
 import { assertNotSigned, assertUuid, checkLinks, lockRecord } from "./guards";
 import { childTypes, column, getRecordDef, targetingTypes, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
+import { deleteBodySchema, updateBodySchema } from "./write-bodies";
 
-const baseVersion = z
-  .number({ error: "Send the version you edited (baseVersion)" })
-  .int("The version must be a whole number")
-  .min(1, "The version must be 1 or more")
-  .max(1_000_000_000, "That is not a version this record can have");
+export { deleteBodySchema, updateBodySchema, type UpdateBody } from "./write-bodies";
 
-export const updateBodySchema = z.object({
-  baseVersion,
-  patch: z.record(z.string(), z.unknown(), { error: "Send the fields to change as an object (patch)" }),
-});
-export const deleteBodySchema = z.object({ baseVersion });
-
-export type UpdateBody = z.input<typeof updateBodySchema>;
 export type UpdateOptions = {
   /**
    * For the sync push: when the device edited an older version, still apply the patch if every

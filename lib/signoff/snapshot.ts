@@ -4,7 +4,7 @@
 import { and, asc, eq, inArray, isNull } from "drizzle-orm";
 import type { Executor } from "@/db";
 import { conflicts, photos } from "@/db/schema";
-import { getRecordDef, type RecordType } from "@/lib/records/registry";
+import { column, getRecordDef, type RecordType } from "@/lib/records/registry";
 import { canonicalJson, sha256Hex } from "./canonical";
 
 const CHILD_TYPES: RecordType[] = ["deliveries", "field-tests", "specimen-sets", "weather-observations", "checklists", "curing-readings"];
@@ -21,7 +21,7 @@ function content(row: Record<string, unknown>): Record<string, unknown> {
 async function rowsOf(tx: Executor, type: RecordType, field: string, ids: string[], projectId: string) {
   if (ids.length === 0) return [];
   const def = getRecordDef(type);
-  const col = (def.table as unknown as Record<string, Parameters<typeof eq>[0]>)[field];
+  const col = column(def, field);
   return (await tx
     .select()
     .from(def.table)

@@ -5,11 +5,12 @@
 // are dropped only once a pull has brought the photo with storedAt set; the thumbnail stays.
 // Runs in the tab that leads the sync loop, after each sync cycle and when its back-off ends.
 import type { BlobRow, SyncDb } from "@/lib/sync/client/db";
-import type { DriverStatus } from "@/lib/sync/client/driver";
-import type { FetchLike } from "@/lib/sync/client/push";
+import type { DriverStatus } from "@/lib/sync/client/driver-env";
+import type { FetchLike } from "@/lib/sync/client/sync-http";
+import { failureOf, UploadFailure, xhrPut, type PutFn } from "./upload-http";
 import { isDue, nextUpload, recoverStale, type UploadEvent } from "./upload-state";
 
-export type PutFn = (url: string, headers: Record<string, string>, body: Blob, onProgress: (fraction: number) => void) => Promise<{ status: number }>;
+export { xhrPut, type PutFn };
 
 type DriverLike = { getStatus: () => DriverStatus; subscribe: (listener: () => void) => () => void; requestSync: () => void };
 
@@ -24,50 +25,6 @@ export type UploaderOptions = {
 };
 
 export type RunResult = { stored: number; failed: number; waiting: number; released: number };
-
-class UploadFailure extends Error {
-  constructor(
-    message: string,
-    readonly permanent: boolean,
-  ) {
-    super(message);
-  }
-}
-
-/** The browser's PUT with upload progress (fetch has none). */
-export const xhrPut: PutFn = (url, headers, body, onProgress) =>
-  new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open("PUT", url);
-    for (const [name, value] of Object.entries(headers)) xhr.setRequestHeader(name, value);
-    xhr.upload.onprogress = (event) => {
-      if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total);
-    };
-    xhr.onload = () => resolve({ status: xhr.status });
-    xhr.onerror = () => reject(new TypeError("The upload was interrupted."));
-    xhr.ontimeout = () => reject(new TypeError("The upload took too long."));
-    xhr.send(body);
-  });
-
-async function errorMessage(res: Response): Promise<string | null> {
-  try {
-    const body = (await res.json()) as { error?: { message?: string } };
-    return body.error?.message ?? null;
-  } catch {
-    return null;
-  }
-}
-
-/** An HTTP answer that is not a success, as a failure the lane understands. */
-async function failureOf(res: Response, step: string): Promise<UploadFailure> {
-  const message = await errorMessage(res);
-  if (res.status === 401) return new UploadFailure("Sign in again to upload photos.", false);
-  // Refusals that another try cannot fix: the wrong type or size, no permission, the record gone.
-  if (res.status === 400 || res.status === 403 || res.status === 404) {
-    return new UploadFailure(message ?? `The server refused the photo (${step}).`, true);
-  }
-  return new UploadFailure(message ?? `The server could not take the photo (${step}, ${res.status}); it will try again.`, false);
-}
 
 export class PhotoUploader {
   private readonly db: SyncDb;
@@ -97,7 +54,6 @@ export class PhotoUploader {
     this.clearTimer = options.clearTimeout ?? ((handle) => globalThis.clearTimeout(handle as ReturnType<typeof setTimeout>));
   }
 
-  // ---------------------------------------------------------------------------------------------
   // progress for React (useSyncExternalStore)
 
   subscribe = (listener: () => void): (() => void) => {
@@ -114,7 +70,6 @@ export class PhotoUploader {
     for (const listener of [...this.listeners]) listener();
   }
 
-  // ---------------------------------------------------------------------------------------------
   // life cycle: follows the sync driver (runs only in the leading tab, after each cycle)
 
   attach(driver: DriverLike): () => void {
@@ -168,7 +123,6 @@ export class PhotoUploader {
     if (Number.isFinite(next)) this.kick(Math.max(0, next - this.now()));
   }
 
-  // ---------------------------------------------------------------------------------------------
   // one pass
 
   /** One pass over the photos on this device. Concurrent calls share the running pass (and rerun once). */

@@ -16,3 +16,10 @@ export const checklistItemCreateSchema = z
   .object({ id: clientId, checklistId: recordId("Checklist"), ...checklistItemFields })
   .partial({ answer: true, note: true });
 export const checklistItemUpdateSchema = z.object(checklistItemFields).partial();
+
+/** What the server fills in when a create leaves a field out. */
+export const checklistDefaults = z.object({});
+export const checklistItemDefaults = z.object({
+  answer: checklistItemFields.answer.default(null),
+  note: checklistItemFields.note.default(null),
+});

@@ -12,3 +12,6 @@ export const curingCreateSchema = z
   .object({ id: clientId, placementId: recordId("Placement"), ...curingFields })
   .partial({ location: true, note: true });
 export const curingUpdateSchema = z.object(curingFields).partial();
+
+/** What the server fills in when a create leaves a field out (db/schema/curing.ts). */
+export const curingDefaults = z.object({ location: curingFields.location.default("") });

@@ -84,3 +84,9 @@ export const deliveryCreateSchema = z
 export const deliveryUpdateSchema = z.object(deliveryFields).partial().superRefine(checkDeliveryOrder);
 
 export type DeliveryInput = z.input<typeof deliveryCreateSchema>;
+
+/** What the server fills in when a create leaves a field out (db/schema/deliveries.ts). */
+export const deliveryDefaults = z.object({
+  truck: deliveryFields.truck.default(""),
+  status: deliveryFields.status.default("accepted"),
+});

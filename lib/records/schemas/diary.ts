@@ -47,3 +47,20 @@ export const diaryVisitorCreateSchema = z
   .object({ id: clientId, diaryEntryId: entryId, ...diaryVisitorFields })
   .partial({ company: true, purpose: true });
 export const diaryVisitorUpdateSchema = z.object(diaryVisitorFields).partial();
+
+// What the server fills in when a create leaves a field out (db/schema/diary.ts).
+export const diaryEntryDefaults = z.object({
+  weatherSummary: diaryEntryFields.weatherSummary.default(""),
+  workDone: diaryEntryFields.workDone.default(""),
+  safetyNotes: diaryEntryFields.safetyNotes.default(""),
+});
+export const diaryCrewDefaults = z.object({});
+export const diaryEquipmentDefaults = z.object({
+  count: diaryEquipmentFields.count.default(null),
+  hours: diaryEquipmentFields.hours.default(null),
+});
+export const diaryDelayDefaults = z.object({ description: diaryDelayFields.description.default("") });
+export const diaryVisitorDefaults = z.object({
+  company: diaryVisitorFields.company.default(""),
+  purpose: diaryVisitorFields.purpose.default(""),
+});

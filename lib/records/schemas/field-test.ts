@@ -42,3 +42,6 @@ export const fieldTestCreateSchema = z
 export const fieldTestUpdateSchema = z.object(fieldTestFields).partial();
 
 export type FieldTestInput = z.input<typeof fieldTestCreateSchema>;
+
+/** What the server fills in when a create leaves a field out. */
+export const fieldTestDefaults = z.object({ deliveryId: fieldTestFields.deliveryId.default(null) });

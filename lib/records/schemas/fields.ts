@@ -1,7 +1,8 @@
 // Field builders for the record schemas: one wording for every form, the API and sync, in words a
 // site user understands ("Slump must be between 0 and 300 mm", not "Expected number").
 // No zod defaults here: the same field shapes build the partial update schemas, and a default
-// there would silently overwrite stored values.
+// there would silently overwrite stored values. The server's column defaults are each record's
+// separate `…Defaults` object (lib/records/descriptions.ts), never part of a create or update schema.
 import { z } from "zod";
 
 const lower = (label: string) => label.charAt(0).toLowerCase() + label.slice(1);
@@ -110,3 +111,13 @@ export function ordered(ctx: z.RefinementCtx, earlier: unknown, later: unknown, 
     ctx.addIssue({ code: "custom", path: [path], message });
   }
 }
+
+/**
+ * Fields only the server writes (a sign-off, an answer), as the device stores them: JSON, so an
+ * instant is its ISO string. Null until the server fills them in.
+ */
+export const serverOwned = {
+  instant: () => z.iso.datetime({ offset: true }).nullable().default(null),
+  id: () => z.guid().nullable().default(null),
+  text: () => z.string().nullable().default(null),
+};

@@ -52,3 +52,12 @@ export const sensorReadingsCreateSchema = z
   .transform((v) => ({ ...v, firstAt: new Date(v.readings[0][0]), lastAt: new Date(v.readings[v.readings.length - 1][0]) }));
 /** A mistyped hand reading is corrected by replacing the batch's readings (the server re-derives the span). */
 export const sensorReadingsUpdateSchema = z.object({ readings: readingList }).partial().superRefine(inTimeOrder);
+
+// What the server fills in when a create leaves a field out (db/schema/maturity.ts).
+export const sensorDefaults = z.object({
+  location: sensorFields.location.default(""),
+  loggingIntervalMinutes: sensorFields.loggingIntervalMinutes.default(null),
+  endedAt: sensorFields.endedAt.default(null),
+  note: sensorFields.note.default(null),
+});
+export const sensorReadingsDefaults = z.object({});

@@ -40,3 +40,15 @@ export const mixDesignUpdateSchema = z.object(mixDesignFields).partial();
 
 export type MixDesignInput = z.input<typeof mixDesignCreateSchema>;
 export type MixDesignValues = z.output<typeof mixDesignCreateSchema>;
+
+/** What the server fills in when a create leaves a field out (the column defaults of db/schema): the device
+ * starts an optimistic row from these, so it looks like the row the server will send. */
+export const mixDesignDefaults = z.object({
+  supplier: mixDesignFields.supplier.default(""),
+  fcAgeDays: mixDesignFields.fcAgeDays.default(28),
+  slumpType: mixDesignFields.slumpType.default("target"),
+  cementType: mixDesignFields.cementType.default(""),
+  scms: mixDesignFields.scms.default(""),
+  siteWaterAllowedLPerM3: mixDesignFields.siteWaterAllowedLPerM3.default(0),
+  lowBleed: mixDesignFields.lowBleed.default(false),
+});

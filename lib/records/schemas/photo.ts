@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { PHOTO_TARGETS, photoProblem, photoProblemField } from "@/lib/photos/rules";
-import { clientId, instant, optionalText, recordId } from "./fields";
+import { clientId, instant, optionalText, recordId, serverOwned } from "./fields";
 
 // A photo's metadata, synced like any record; the bytes go through the photo lane (lib/photos).
 // storageKey and storedAt are the server's: not in these schemas, so a device can never set them.
@@ -29,3 +29,11 @@ export const photoCreateSchema = z
 
 /** Only the caption changes after capture; the bytes, their hash and the record they belong to do not. */
 export const photoUpdateSchema = z.object({ caption: photoFields.caption }).partial();
+
+/** What the server fills in when a create leaves a field out; storageKey and storedAt stay null until a pull. */
+export const photoDefaults = z.object({
+  caption: photoFields.caption.default(""),
+  takenAt: photoFields.takenAt.default(null),
+  storageKey: serverOwned.text(),
+  storedAt: serverOwned.instant(),
+});

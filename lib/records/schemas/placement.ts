@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ELEMENT_TYPES } from "@/lib/records/enums";
+import { ELEMENT_TYPES, PLACEMENT_STATES } from "@/lib/records/enums";
 import { choice, clientId, instant, measure, optionalText, recordId, requiredText } from "./fields";
 
 export const placementFields = {
@@ -25,3 +25,13 @@ export const placementUpdateSchema = z.object(placementFields).partial().extend(
 });
 
 export type PlacementInput = z.input<typeof placementCreateSchema>;
+
+/** What the server fills in when a create leaves a field out (db/schema/placements.ts); a new placement is planned. */
+export const placementDefaults = z.object({
+  level: placementFields.level.default(""),
+  grid: placementFields.grid.default(""),
+  state: z.enum(PLACEMENT_STATES).default("planned"),
+  leastDimensionMm: placementFields.leastDimensionMm.default(null),
+  plannedVolumeM3: placementFields.plannedVolumeM3.default(null),
+  mixId: placementFields.mixId.default(null),
+});

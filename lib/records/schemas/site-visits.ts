@@ -1,6 +1,6 @@
 import { z } from "zod";
-import { FINDING_SEVERITIES } from "@/lib/records/enums";
-import { calendarDate, choice, clientId, instant, optionalText, ordered, recordId, requiredText } from "./fields";
+import { FINDING_SEVERITIES, FINDING_STATES, SITE_VISIT_STATES } from "@/lib/records/enums";
+import { calendarDate, choice, clientId, instant, optionalText, ordered, recordId, requiredText, serverOwned } from "./fields";
 
 const MAX_VISIT_PLACEMENTS = 50;
 
@@ -60,3 +60,38 @@ export const findingUpdateSchema = z.object(findingFields).partial().extend({
 
 export type SiteVisitInput = z.input<typeof siteVisitCreateSchema>;
 export type FindingInput = z.input<typeof findingCreateSchema>;
+
+/** What the server fills in when a create leaves a field out (db/schema/site-visits.ts); a new visit is a draft. */
+export const siteVisitDefaults = z.object({
+  arrivedAt: siteVisitFields.arrivedAt.default(null),
+  leftAt: siteVisitFields.leftAt.default(null),
+  areasInspected: siteVisitFields.areasInspected.default(""),
+  elementsInspected: siteVisitFields.elementsInspected.default(""),
+  testsWitnessed: siteVisitFields.testsWitnessed.default(""),
+  weather: siteVisitFields.weather.default(""),
+  notes: siteVisitFields.notes.default(""),
+  placementIds: siteVisitFields.placementIds.default([]),
+  state: z.enum(SITE_VISIT_STATES).default("draft"),
+  submittedAt: serverOwned.instant(),
+  signedAt: serverOwned.instant(),
+  signedBy: serverOwned.id(),
+});
+
+/** A new finding is open and unanswered. */
+export const findingDefaults = z.object({
+  placementId: findingFields.placementId.default(null),
+  location: findingFields.location.default(""),
+  requirement: findingFields.requirement.default(""),
+  actionRequired: findingFields.actionRequired.default(""),
+  dueDate: findingFields.dueDate.default(null),
+  state: z.enum(FINDING_STATES).default("open"),
+  response: serverOwned.text(),
+  answeredAt: serverOwned.instant(),
+  answeredBy: serverOwned.id(),
+  closedAt: serverOwned.instant(),
+  closedBy: serverOwned.id(),
+  closeNote: serverOwned.text(),
+  reopenedAt: serverOwned.instant(),
+  reopenedBy: serverOwned.id(),
+  reopenReason: serverOwned.text(),
+});

@@ -58,3 +58,7 @@ export const breakUpdateSchema = z.object(breakFields).partial();
 
 export type SpecimenSetInput = z.input<typeof specimenSetCreateSchema>;
 export type BreakInput = z.input<typeof breakCreateSchema>;
+
+/** What the server fills in when a create leaves a field out (a new nullable field goes here with null). */
+export const specimenSetDefaults = z.object({ deliveryId: specimenSetFields.deliveryId.default(null), sensorId: specimenSetFields.sensorId.default(null) });
+export const breakDefaults = z.object({});

@@ -12,10 +12,15 @@ export const weatherFields = {
   sun: choice("Sun", SUN_EXPOSURES).nullable(),
 };
 
+const weatherPlacementId = recordId("Placement").nullable();
+
 export const weatherCreateSchema = z
-  .object({ id: clientId, placementId: recordId("Placement").nullable(), ...weatherFields })
+  .object({ id: clientId, placementId: weatherPlacementId, ...weatherFields })
   .partial({ placementId: true, concreteTempC: true, sun: true });
 
 export const weatherUpdateSchema = z.object(weatherFields).partial();
 
 export type WeatherInput = z.input<typeof weatherCreateSchema>;
+
+/** What the server fills in when a create leaves a field out: an observation of the day, on no placement. */
+export const weatherDefaults = z.object({ placementId: weatherPlacementId.default(null) });

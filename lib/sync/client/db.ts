@@ -1,6 +1,6 @@
 // The device's IndexedDB, one database per signed-in user ("placewright-user-<userId>"), so a second
 // person signing in on the same device never sees or sends the first person's changes; plus one small
-// device-level database ("placewright-device") with the last signed-in identities.
+// device-level database ("placewright-device", ./device-db.ts) with the last signed-in identities.
 //
 // Rows of the record tables are the server's fields (as JSON: dates as ISO strings) with two more:
 // - `pending`: 1 while a local change to the row waits in the outbox (indexable, so not a boolean);
@@ -13,8 +13,9 @@ import Dexie, { type Table } from "dexie";
 import type { ConflictSummary, Cursor, MutationName, SyncedRecord, SyncProject } from "@/lib/sync/protocol";
 import { LOCAL_RECORD_TYPES, storeSpec, tableNameOf, type RecordType } from "./record-types";
 
+export { DEVICE_DB_NAME, DeviceDb, getDeviceDb, type DeviceIdentity, type StoredIdentity, type StoredPin } from "./device-db";
+
 export const USER_DB_PREFIX = "placewright-user-";
-export const DEVICE_DB_NAME = "placewright-device";
 
 /** A record as stored on the device. `version` is the version the server last acknowledged (0: never). */
 export type LocalRecord = SyncedRecord & {
@@ -222,40 +223,4 @@ export async function ensureMeta(db: SyncDb, schemaVersion: number): Promise<{ c
     }
     return { clientId };
   });
-}
-
-// ---------------------------------------------------------------------------------------------
-// the device database: who signed in last (identity offline, STACK.md)
-
-export type DeviceIdentity = { id: string; name: string; email: string; isAdmin: boolean };
-/** A device PIN: PBKDF2-SHA-256 of the PIN with a random salt (base64), never the PIN itself. */
-export type StoredPin = { salt: string; hash: string; iterations: number; failures: number };
-/**
- * `sessionSeenAt`: the last time the server confirmed a good session for this person on this device;
- * with `offlineWindowHours` (the administrator's setting, fetched while online) it decides whether the
- * person's offline data opens without the PIN (lib/sync/client/device-access.ts). Fields added without
- * a schema change: none of them is indexed.
- */
-export type StoredIdentity = DeviceIdentity & {
-  rememberedAt: string;
-  sessionSeenAt?: string;
-  offlineWindowHours?: number;
-  pin?: StoredPin;
-};
-type DeviceRow = { key: "currentUserId"; value: string | null };
-
-export class DeviceDb extends Dexie {
-  declare identities: Table<StoredIdentity, string>;
-  declare device: Table<DeviceRow, string>;
-
-  constructor(options?: ConstructorParameters<typeof Dexie>[1]) {
-    super(DEVICE_DB_NAME, options);
-    this.version(1).stores({ identities: "id", device: "key" });
-  }
-}
-
-let deviceDb: DeviceDb | null = null;
-export function getDeviceDb(): DeviceDb {
-  deviceDb ??= new DeviceDb();
-  return deviceDb;
 }

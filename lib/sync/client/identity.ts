@@ -43,3 +43,9 @@ export async function readCurrentIdentity(deviceDb: DeviceDb = getDeviceDb()): P
 export async function forgetCurrentIdentity(deviceDb: DeviceDb = getDeviceDb()): Promise<void> {
   await deviceDb.device.put({ key: "currentUserId", value: null });
 }
+
+/** Whether `userId` is the device's current user (the driver syncs only for them). */
+export async function isCurrentIdentity(userId: string): Promise<boolean> {
+  const current = await readCurrentIdentity(getDeviceDb());
+  return current?.id === userId;
+}

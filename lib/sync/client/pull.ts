@@ -4,7 +4,7 @@
 import { SYNC_SCHEMA_VERSION, type PullRequest, type PullResponse } from "@/lib/sync/protocol";
 import { applyPull } from "./apply-pull";
 import { ensureMeta, getMeta, type SyncDb } from "./db";
-import { MESSAGES, postSyncJson, type FetchLike } from "./push";
+import { MESSAGES, postSyncJson, type FetchLike } from "./sync-http";
 
 export type PullOptions = { fetch: FetchLike; url?: string; limit?: number };
 

@@ -16,29 +16,14 @@
 import {
   MAX_MUTATIONS_PER_PUSH,
   SYNC_SCHEMA_VERSION,
-  type MutationResult,
   type PushRequest,
   type PushResponse,
 } from "@/lib/sync/protocol";
-import { ensureMeta, getMeta, setMeta, type ConflictRow, type OutboxEntry, type SyncDb } from "./db";
-import { applyEntry, rebuildRecord } from "./replay";
+import { ensureMeta, setMeta, type OutboxEntry, type SyncDb } from "./db";
+import { applyResults } from "./push-answers";
+import { MESSAGES, postSyncJson, type FetchLike } from "./sync-http";
 
-export type FetchLike = (input: string, init?: RequestInit) => Promise<Response>;
-
-/** POSTs a sync request as JSON; null when the network could not be reached at all. */
-export async function postSyncJson(fetchFn: FetchLike, url: string, body: unknown): Promise<Response | null> {
-  try {
-    return await fetchFn(url, {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify(body),
-      credentials: "same-origin",
-      cache: "no-store",
-    });
-  } catch {
-    return null;
-  }
-}
+export { MESSAGES, postSyncJson, type FetchLike } from "./sync-http";
 
 export type PushOptions = {
   fetch: FetchLike;
@@ -59,14 +44,6 @@ export type PushOutcome =
   | { kind: "unauthenticated"; message: string }
   | { kind: "transient"; message: string; status?: number }
   | { kind: "failed"; message: string; status: number };
-
-export const MESSAGES = {
-  offline: "No connection to the server. Your changes stay on this device and are sent when the connection is back.",
-  busy: "The server is busy or being updated. Your changes stay on this device; trying again shortly.",
-  signIn: "Sign in again to sync. Your changes stay on this device.",
-  gap: "Some changes were out of order; they are being sent again in order.",
-  noAnswer: "The server did not answer this change; it will be sent again.",
-} as const;
 
 const TRANSIENT_STATUSES = new Set([408, 429, 502, 503, 504]);
 
@@ -159,7 +136,8 @@ export async function pushOnce(db: SyncDb, options: PushOptions): Promise<PushOu
       await releaseBatch(db, batch, "failed", message);
       return { kind: "failed", message, status: 200 };
     }
-    return applyResults(db, clientId, batch, json, options);
+    const now = (options.now ?? (() => new Date()))().toISOString();
+    return { kind: "ok", sent: batch.length, ...(await applyResults(db, clientId, batch, json, now)) };
   }
   if (res.status === 401) {
     await releaseBatch(db, batch, "pending", MESSAGES.signIn);
@@ -186,84 +164,6 @@ export async function pushOnce(db: SyncDb, options: PushOptions): Promise<PushOu
     : `The server answered ${res.status}. Your changes stay on this device and will be sent again.`;
   await releaseBatch(db, batch, "failed", message);
   return { kind: "failed", message, status: res.status };
-}
-
-/** Applies the server's answers (one transaction). */
-async function applyResults(
-  db: SyncDb,
-  clientId: string,
-  batch: OutboxEntry[],
-  response: PushResponse,
-  options: PushOptions,
-): Promise<PushOutcome> {
-  const now = (options.now ?? (() => new Date()))().toISOString();
-  const counts = { applied: 0, conflicts: 0, rejected: 0 };
-  const byId = new Map<number, MutationResult>(response.results.map((result) => [result.id, result]));
-  const more = await db.transaction("rw", db.syncTables(), async () => {
-    for (const sent of batch) {
-      const result = byId.get(sent.mutationId);
-      const entry = await db.outbox.get(sent.seq!);
-      if (!entry) continue; // already acknowledged by a pull
-      if (!result) {
-        entry.state = "pending";
-        entry.lastError = MESSAGES.noAnswer;
-        await db.outbox.put(entry);
-        continue;
-      }
-      const table = db.records(entry.recordType);
-      let successorBase: number;
-      if (result.result === "applied") {
-        counts.applied += 1;
-        const version = result.version ?? (entry.baseVersion !== undefined ? entry.baseVersion + 1 : 1);
-        // The server copy now includes this change (the next pull brings the exact row).
-        const row = await table.get(entry.recordId);
-        if (row) {
-          const copy = applyEntry(row.serverCopy ?? undefined, entry, db.userId);
-          if (copy) await table.put({ ...row, serverCopy: { ...copy, version } });
-        }
-        successorBase = version;
-      } else {
-        if (result.result === "conflict") counts.conflicts += 1;
-        else counts.rejected += 1;
-        const conflict: ConflictRow = {
-          id: result.conflictId ?? `${result.result}-${clientId}-${entry.mutationId}`,
-          projectId: entry.projectId,
-          recordType: entry.recordType,
-          recordId: entry.recordId,
-          baseVersion: entry.baseVersion ?? null,
-          serverVersion: result.result === "conflict" ? (result.version ?? null) : null,
-          clientPayload: { name: entry.name, args: entry.args },
-          serverPayload: null,
-          reason: result.reason ?? result.result,
-          createdAt: now,
-          kind: result.result,
-          source: "push",
-          message: result.message,
-          mutationId: entry.mutationId,
-          mutationName: entry.name,
-        };
-        await db.conflicts.put(conflict);
-        // A change built on this one must not overwrite whatever the server has now.
-        successorBase = entry.baseVersion ?? 1;
-      }
-      await db.outbox.delete(entry.seq!);
-      const successor = await db.outbox
-        .where("[recordType+recordId]")
-        .equals([entry.recordType, entry.recordId])
-        .filter((other) => other.seq! > entry.seq!)
-        .sortBy("seq");
-      const next = successor[0];
-      if (next && next.name !== "create" && next.baseVersion === undefined) {
-        next.baseVersion = successorBase;
-        await db.outbox.put(next);
-      }
-      await rebuildRecord(db, entry.recordType, entry.recordId);
-    }
-    const last = (await getMeta(db, "lastMutationId")) ?? 0;
-    if (response.lastMutationId > last) await setMeta(db, "lastMutationId", response.lastMutationId);
-    return (await db.outbox.count()) > 0;
-  });
-  return { kind: "ok", sent: batch.length, ...counts, more };
 }
 
 /**

@@ -3,17 +3,18 @@
 // React bindings of the device store: the provider that opens the signed-in user's database and runs
 // the sync loop, hooks for the screens and the status control, and the identity helpers.
 import { useLiveQuery } from "dexie-react-hooks";
-import { signOut, useSession } from "next-auth/react";
+import { useSession } from "next-auth/react";
 import { createContext, useCallback, useContext, useEffect, useMemo, useSyncExternalStore } from "react";
 import { getDeviceDb, getUserDb, type DeviceIdentity, type StoredIdentity, type SyncDb } from "./db";
 import { SyncDriver, type DriverStatus } from "./driver";
+import { initialStatus } from "./driver-env";
 import { rememberDevicePolicy } from "./device-policy";
-import { forgetCurrentIdentity, readCurrentIdentity, rememberIdentity } from "./identity";
-import { countUnsynced, readSyncSummary, type SyncSummary } from "./queries";
-import { unsyncedWarning } from "./words";
+import { readCurrentIdentity, rememberIdentity } from "./identity";
+import { readSyncSummary, type SyncSummary } from "./queries";
+import { signOutWithCheck, type SignOutCheckOptions } from "./sign-out";
 import { PhotoUploader } from "@/lib/photos/client/uploader";
 
-export { rememberIdentity };
+export { rememberIdentity, signOutWithCheck, type SignOutCheckOptions };
 
 type SyncContextValue = { db: SyncDb; driver: SyncDriver; uploader: PhotoUploader; identity: DeviceIdentity };
 
@@ -133,16 +134,7 @@ export type SyncState = SyncSummary & {
 };
 
 const EMPTY_SUMMARY: SyncSummary = { waiting: 0, failed: 0, conflicts: 0, rejected: 0, photosWaiting: 0, photosFailed: 0, lastSyncAt: null, lastError: null };
-const IDLE_STATUS: DriverStatus = {
-  leader: false,
-  syncing: false,
-  online: true,
-  lastError: null,
-  needsSignIn: false,
-  nextRunAt: null,
-  storageWarning: null,
-  persisted: null,
-};
+const IDLE_STATUS: DriverStatus = initialStatus(true);
 const noSubscribe = () => () => {};
 const idleStatus = () => IDLE_STATUS;
 
@@ -216,36 +208,6 @@ export function useOfflineIdentity(): OfflineIdentity {
   if (sessionIdentity) return { identity: sessionIdentity, source: "session", loading: false, stored: null };
   if (storedIdentity) return { identity: storedIdentity, source: "device", loading: false, stored: stored ?? null };
   return { identity: null, source: null, loading: stored === undefined || status === "loading", stored: null };
-}
-
-export type SignOutCheckOptions = {
-  /** Whose changes to count; default the device's current user. */
-  userId?: string;
-  /** Asks the person; default window.confirm. Return false to stay signed in. */
-  confirm?: (message: string) => boolean | Promise<boolean>;
-  callbackUrl?: string;
-  /** Default next-auth's signOut (injected in tests). */
-  signOut?: (options: { callbackUrl: string }) => Promise<unknown>;
-};
-
-/**
- * Signs out, first saying so when this user has changes that have not reached the server
- * ("3 changes have not reached the server yet. They stay on this device and will be sent the next
- * time you sign in."). The user's database is kept (it is per user); only the device's "current user"
- * is forgotten. Resolves false when the person chose to stay.
- */
-export async function signOutWithCheck(options: SignOutCheckOptions = {}): Promise<boolean> {
-  const userId = options.userId ?? (await readCurrentIdentity().catch(() => null))?.id;
-  if (userId) {
-    const waiting = await countUnsynced(getUserDb(userId)).catch(() => 0);
-    if (waiting > 0) {
-      const ask = options.confirm ?? ((message: string) => window.confirm(message));
-      if (!(await ask(unsyncedWarning(waiting)))) return false;
-    }
-  }
-  await forgetCurrentIdentity().catch((error: unknown) => console.warn("sync: could not forget the identity", error));
-  await (options.signOut ?? ((o) => signOut(o)))({ callbackUrl: options.callbackUrl ?? "/signin" });
-  return true;
 }
 
 /** signOutWithCheck bound to the provider's user (for a "Sign out" menu item). */

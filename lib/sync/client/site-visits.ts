@@ -3,7 +3,7 @@
 import { lifecycleArgsSchema, checkMove, type LifecycleArgs, type LifecycleType } from "@/lib/site-visits/lifecycle";
 import type { SyncDb } from "./db";
 import { LocalWriteError, validationError } from "./errors";
-import { appendEntry, baseVersionFor, loadLive, writeTx, type WriteResult } from "./mutate";
+import { appendEntry, baseVersionFor, loadLive, writeTx, type WriteResult } from "./local-write";
 import { rebuildRecord, entriesFor, toWire } from "./replay";
 import { SIGNED_VISIT_LOCAL } from "./visit-freeze";
 

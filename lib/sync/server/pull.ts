@@ -95,7 +95,7 @@ export async function pullChanges(user: SessionUser, request: PullRequest): Prom
         }
         const page = await projectChanges(tx, project.id, cursor[project.id] ?? 0, limit);
         hasMore ||= page.hasMore;
-        for (const change of page.changes) changes.push(change as unknown as RecordChange);
+        for (const change of page.changes) changes.push(change as RecordChange);
         const last = page.changes.at(-1);
         cursor[project.id] = last ? last.record.changeSeq : (cursor[project.id] ?? 0);
       }
