@@ -17,8 +17,8 @@ import { spawn } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import net from "node:net";
 import path from "node:path";
-import autocannon from "autocannon";
 import { encode } from "next-auth/jwt";
+import { runLoad } from "./bench/load-run.ts";
 
 const argv = process.argv.slice(2);
 const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
@@ -137,81 +137,6 @@ function pushBody(d: Device) {
   return JSON.stringify({ clientId: d.clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations });
 }
 
-type Figures = { reasons: Map<string, number>; route: string; requests: number; seconds: number; meanMs: number; perSecond: number; errors: number; p50: number; p95: number; p99: number; cannonP50: number; cannonP99: number };
-const percentile = (sorted: number[], p: number) => Math.round(sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN);
-
-type Request = { method: "GET" | "POST"; path: string; headers?: Record<string, string>; body?: string; device?: Device };
-
-/**
- * One autocannon run; `next` gives each request (round-robin over devices). A push whose answer
- * rejects a change counts as an error; a pull moves its device's cursor, as a device does.
- */
-function run(route: string, duration: number, next: () => Request) {
-  return new Promise<Figures>((resolve, reject) => {
-    const times: number[] = [];
-    let errors = 0;
-    const started = performance.now();
-    // Why requests failed: a status, a refused change's reason and message, a timeout.
-    const reasons = new Map<string, number>();
-    const tally = (why: string) => reasons.set(why, (reasons.get(why) ?? 0) + 1);
-    const instance = autocannon(
-      {
-        url: base,
-        connections,
-        duration,
-        timeout: 10,
-        requests: [
-          {
-            setupRequest: (req, context) => {
-              const { device, ...request } = next();
-              (context as { device?: Device }).device = device;
-              return { ...req, ...request };
-            },
-            onResponse: (status, body, context) => {
-              const device = (context as { device?: Device }).device;
-              if (status !== 200 || !device) return;
-              const answer = JSON.parse(body) as { cursor?: Record<string, number>; results?: { result: string; reason?: string; message?: string }[] };
-              if (answer.cursor) device.cursor = answer.cursor;
-              const refused = answer.results?.filter((r) => r.result !== "applied") ?? [];
-              for (const r of refused) tally(`change ${r.result} (${r.reason}): ${r.message}`);
-              errors += refused.length ? 1 : 0;
-            },
-          },
-        ],
-      },
-      (error, result) => {
-        if (error) return reject(error);
-        const sorted = times.sort((a, b) => a - b);
-        // The rate over the run's measured wall-clock time, not the asked duration.
-        const elapsedSeconds = (performance.now() - started) / 1000;
-        if (result.timeouts) reasons.set(`timed out after 10 s`, result.timeouts);
-        resolve({
-          reasons,
-          route,
-          requests: sorted.length,
-          seconds: elapsedSeconds,
-          meanMs: sorted.reduce((a, b) => a + b, 0) / Math.max(1, sorted.length),
-          perSecond: sorted.length / elapsedSeconds,
-          errors: errors + result.errors + result.timeouts,
-          p50: percentile(sorted, 50),
-          p95: percentile(sorted, 95),
-          p99: percentile(sorted, 99),
-          // autocannon's own histogram, as a cross-check of the per-response times.
-          cannonP50: result.latency.p50,
-          cannonP99: result.latency.p99,
-        });
-      },
-    );
-    instance.on("response", (_client, statusCode, _bytes, responseTime) => {
-      times.push(responseTime);
-      if (statusCode < 200 || statusCode >= 300) {
-        errors += 1;
-        tally(`HTTP ${statusCode}`);
-      }
-    });
-  });
-}
-
 let exitCode = 0;
 try {
   await waitReady();
@@ -225,8 +150,8 @@ try {
   let turn = 0;
   const nextDevice = () => devices[turn++ % devices.length];
 
-  const health = await run("GET /api/health (baseline)", phase, () => ({ method: "GET", path: "/api/health" }));
-  const emptyPull = await run("POST /api/sync/pull, nothing new", phase, () => {
+  const health = await runLoad(base, connections, "GET /api/health (baseline)", phase, () => ({ method: "GET", path: "/api/health" }));
+  const emptyPull = await runLoad(base, connections, "POST /api/sync/pull, nothing new", phase, () => {
     const d = nextDevice();
     return { method: "POST", path: "/api/sync/pull", headers: headers(d), body: pullBody(d), device: d };
   });
@@ -234,11 +159,11 @@ try {
   let pushTurn = 0;
   let pullTurn = devices.length >> 1;
   const [push, pull] = await Promise.all([
-    run("POST /api/sync/push (20 changes)", phase * 2, () => {
+    runLoad(base, connections, "POST /api/sync/push (20 changes)", phase * 2, () => {
       const d = devices[pushTurn++ % devices.length];
       return { method: "POST", path: "/api/sync/push", headers: headers(d), body: pushBody(d), device: d };
     }),
-    run("POST /api/sync/pull, while pushing", phase * 2, () => {
+    runLoad(base, connections, "POST /api/sync/pull, while pushing", phase * 2, () => {
       const d = devices[pullTurn++ % devices.length];
       return { method: "POST", path: "/api/sync/pull", headers: headers(d), body: pullBody(d), device: d };
     }),
