@@ -53,7 +53,29 @@ export function LabQueueTable() {
       {query.isPending ? <p className="p-3 text-muted">Loading…</p> : items.length === 0 ? (
         <p className="p-3 text-muted" data-testid="queue-empty">Nothing here for this choice.</p>
       ) : (
-        <div className="overflow-x-auto">
+        <>
+        {/* On a phone, one card per test: the table's ten columns do not fit 390 px. */}
+        <ul className="divide-y divide-ink-100 md:hidden" data-testid="lab-queue-cards">
+          {items.map((i) => (
+            <li key={i.key} data-testid="queue-card" data-status={i.status} className={clsx("flex flex-col gap-1 p-3", i.status === "overdue" && "bg-danger-50")}>
+              <div className="flex flex-wrap items-center gap-2">
+                <span className="font-semibold">{dateText(i.dueAt, i.timeZone)}</span>
+                {i.status !== "tested" ? <span className="text-xs text-muted">{relativeDays(i.dueAt)}</span> : null}
+                <span className="ml-auto"><StatusBadge status={i.status} /></span>
+              </div>
+              <p className="text-sm">
+                <Link href={`/projects/${i.projectId}/lab?placement=${i.placementId}`} className="font-mono font-semibold text-lichen-700 underline-offset-4 hover:underline">{i.setCode}</Link>
+                {` · ${i.ageDays} d test · ${i.mixCode ?? "no mix"}`}
+              </p>
+              <p className="text-sm text-ink-800">{i.projectName} · {i.placementElement}</p>
+              <p className="text-xs text-muted">
+                Cast {dateTimeText(i.castAt, i.timeZone)} · broken {i.brokenCount}
+                {i.averageMPa !== null ? ` · mean ${strengthText(i.averageMPa, i.unitSystem)}` : ""}
+              </p>
+            </li>
+          ))}
+        </ul>
+        <div className="hidden overflow-x-auto md:block">
           <table className="w-full text-left text-sm" data-testid="lab-queue">
             <thead className="bg-ink-50 text-ink-700">
               <tr>
@@ -89,6 +111,7 @@ export function LabQueueTable() {
             </tbody>
           </table>
         </div>
+        </>
       )}
     </section>
   );

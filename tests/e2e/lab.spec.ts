@@ -110,3 +110,23 @@ test("the owner sees the lab page without edit controls", async ({ page }) => {
   await expect(page.getByTestId("break-form")).toHaveCount(0);
   await expect(page.getByTestId("break-save")).toHaveCount(0);
 });
+
+test("the lab queue on a phone: one card per test, nothing past the screen's edge", async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, DEMO.olu);
+  await page.goto("/lab");
+  await page.getByTestId("queue-show").selectOption("all");
+  const cards = page.getByTestId("queue-card");
+  await expect(cards.first()).toBeVisible();
+  await expect(page.getByTestId("lab-queue")).toBeHidden();
+  // Each card names its set, test age, project and placement, and stays inside the 390 px screen.
+  const first = cards.first();
+  await expect(first).toContainText(/ · \d+ d test · /);
+  await expect(first.getByRole("link")).toHaveAttribute("href", /\/projects\/[0-9a-f-]+\/lab\?placement=/);
+  for (const card of (await cards.all()).slice(0, 5)) {
+    const box = (await card.boundingBox())!;
+    expect(box.x + box.width).toBeLessThanOrEqual(390);
+  }
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await page.screenshot({ path: ".data/lab-queue-390.png", fullPage: true });
+});
