@@ -3,7 +3,7 @@
 import dynamic from "next/dynamic";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
-import type { UnitSystem } from "@/lib/concrete";
+import { kNToLbf, type UnitSystem } from "@/lib/concrete";
 import { dueAt } from "@/lib/lab/due";
 import type { LabSetView } from "@/lib/lab/queries";
 import type { MixAcceptance } from "@/lib/checks/strength";
@@ -30,9 +30,11 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
       </header>
       <p className="mt-1 text-sm">Test ages: {[...set.testAgesDays].sort((a, b) => a - b).map((age) => `${age} d (due ${dateText(dueAt(new Date(set.castAt), age), timeZone)})`).join(" · ")}</p>
       <SetCuring projectId={projectId} set={set} canEdit={canEditSets && set.placement.state !== "signed"} />
-      <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr]">
+      {/* Grid items may shrink below their content; on a phone the break table scrolls in its own box. */}
+      <div className="mt-3 grid gap-4 lg:grid-cols-[3fr_2fr] [&>*]:min-w-0">
         <div>
           {set.breaks.length === 0 ? <p className="text-sm text-muted">No breaks yet.</p> : (
+            <div className="overflow-x-auto">
             <table className="w-full text-left text-sm" data-testid="break-table">
               <thead className="bg-ink-50 text-ink-700">
                 <tr><th className="px-2 py-1">Tested</th><th className="px-2 py-1">Age</th><th className="px-2 py-1 text-right">Load</th><th className="px-2 py-1">Size</th><th className="px-2 py-1">Fracture</th><th className="px-2 py-1 text-right">Strength</th></tr>
@@ -42,7 +44,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
                   <tr key={b.id} data-testid="break-row">
                     <td className="whitespace-nowrap px-2 py-1">{dateTimeText(b.testedAt, timeZone)}</td>
                     <td className="px-2 py-1 font-mono">{b.ageDays} d</td>
-                    <td className="px-2 py-1 text-right font-mono">{u === "SI" ? `${b.loadKN.toFixed(1)} kN` : `${Math.round(b.loadKN / 0.00444822162).toLocaleString("en-US")} lbf`}</td>
+                    <td className="px-2 py-1 text-right font-mono">{u === "SI" ? `${b.loadKN.toFixed(1)} kN` : `${Math.round(kNToLbf(b.loadKN)).toLocaleString("en-US")} lbf`}</td>
                     <td className="px-2 py-1 font-mono text-xs">{cylinderText(b.diameterMm, b.lengthMm, u)}</td>
                     <td className="px-2 py-1">{b.fractureType ? `Type ${b.fractureType}` : "—"}</td>
                     <td className="px-2 py-1 text-right font-mono font-semibold">{strengthText(b.strengthMPa, u)}</td>
@@ -50,6 +52,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
                 ))}
               </tbody>
             </table>
+            </div>
           )}
           {set.tests.length > 0 ? (
             <ul className="mt-2 text-sm" data-testid="set-tests">

@@ -130,3 +130,16 @@ test("the lab queue on a phone: one card per test, nothing past the screen's edg
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
   await page.screenshot({ path: ".data/lab-queue-390.png", fullPage: true });
 });
+
+test("a set card on a phone stays inside the screen; its break table scrolls in its own box", async ({ page }) => {
+  await page.setViewportSize({ width: 390, height: 844 });
+  await signIn(page, DEMO.olu);
+  const lab = new LabPage(page);
+  await lab.open(PODIUM_WEST);
+  const card = page.getByTestId("set-card").first();
+  await expect(card.getByTestId("break-table")).toBeVisible();
+  const box = (await card.boundingBox())!;
+  expect(box.x + box.width).toBeLessThanOrEqual(390);
+  expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await card.screenshot({ path: ".data/lab-set-card-390.png" });
+});
