@@ -6,7 +6,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { writeErrorOf } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { FINDING_SEVERITIES } from "@/lib/records/enums";
 import { wordFor } from "@/lib/ui/vocabulary";
 import { createLocal, type LocalRecord } from "@/lib/sync/client";
@@ -18,7 +18,7 @@ export function AddFinding({ visit, placements }: { visit: LocalRecord; placemen
   const empty = { description: "", location: "", severity: "major", requirement: "", actionRequired: "", dueDate: "", placementId: "" };
   const [v, setV] = useState(empty);
   const [open, setOpen] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const set = (k: keyof typeof empty) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV((x) => ({ ...x, [k]: e.target.value }));
   if (!open) {
     return (
@@ -27,16 +27,12 @@ export function AddFinding({ visit, placements }: { visit: LocalRecord; placemen
       </Button>
     );
   }
-  const save = async () => {
-    setError(null);
-    try {
+  const save = () =>
+    run(async () => {
       await createLocal(db, "findings", visit.projectId, { ...v, siteVisitId: visit.id, dueDate: v.dueDate || null, placementId: v.placementId || null });
       setV(empty);
       setOpen(false);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
   return (
     <form
       className="grid gap-3 rounded border border-ink-200 p-3 md:grid-cols-2"

@@ -7,7 +7,8 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { formatDay, writeErrorOf } from "@/components/field/common";
+import { formatDay } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { updateLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { REPORT_FIELDS, reportPatch, reportValues, type ReportValues } from "./visit-model";
@@ -36,21 +37,17 @@ export function ReportView({ visit, timeZone }: { visit: LocalRecord; timeZone: 
 export function ReportForm({ visit, timeZone }: { visit: LocalRecord; timeZone: string }) {
   const db = useSyncDb();
   const [values, setValues] = useState<ReportValues>(() => reportValues(visit, timeZone));
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const [saved, setSaved] = useState(false);
   const set = (k: keyof ReportValues) => (e: React.ChangeEvent<HTMLInputElement>) => {
     setSaved(false);
     setValues((v) => ({ ...v, [k]: e.target.value }));
   };
-  const save = async () => {
-    setError(null);
-    try {
+  const save = () =>
+    run(async () => {
       await updateLocal(db, "site-visits", visit.id, reportPatch(values, timeZone));
       setSaved(true);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
   return (
     <form
       className="grid gap-3 md:grid-cols-2"
