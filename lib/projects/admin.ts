@@ -8,6 +8,7 @@ import type { ProjectRole } from "@/lib/auth/roles";
 import { writeAudit } from "@/lib/audit";
 import { AppError, notFound } from "@/lib/errors";
 import { findUserByEmail } from "@/lib/users/queries";
+import { projectMembers } from "./queries";
 import { parseOrThrow } from "@/lib/validation";
 import { refreshProject } from "@/lib/findings/store";
 import type { ProjectInput } from "./schemas";
@@ -38,13 +39,7 @@ export async function getProjectForAdmin(actor: SessionUser, projectId: string) 
   authorizeAdmin(actor, "admin.projects");
   const [project] = await db.select().from(projects).where(eq(projects.id, projectId));
   if (!project) throw notFound("Project");
-  const members = await db
-    .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(eq(memberships.projectId, projectId))
-    .orderBy(asc(users.name));
-  return { project, members };
+  return { project, members: await projectMembers(projectId) };
 }
 
 export async function addMember(actor: SessionUser, projectId: string, email: string, role: ProjectRole) {

@@ -7,12 +7,15 @@ import { permit, type ProjectAccess } from "@/lib/auth/access";
 export async function getProjectForMember(access: ProjectAccess) {
   const role = permit(access, "project.read");
   const { project } = access;
-  const projectId = project.id;
-  const members = await db
+  return { project, role, members: await projectMembers(project.id) };
+}
+
+/** A project's members with their roles, by name. The caller has already checked who may see them. */
+export function projectMembers(projectId: string) {
+  return db
     .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.projectId, projectId))
     .orderBy(asc(users.name));
-  return { project, role, members };
 }
