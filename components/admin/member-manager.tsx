@@ -8,6 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import { PROJECT_ROLES, ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
+import { Table } from "@/components/ui/table";
 
 type Member = { userId: string; name: string; email: string; role: ProjectRole };
 
@@ -34,16 +35,7 @@ export function MemberManager({ projectId, members }: { projectId: string; membe
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_24rem]">
       <section className="card overflow-x-auto">
-        <table className="w-full text-left text-sm" data-testid="members-table">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <th className="px-3 py-2">Name</th>
-              <th className="px-3 py-2">E-mail</th>
-              <th className="px-3 py-2">Role</th>
-              <th className="px-3 py-2"><span className="sr-only">Remove</span></th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-ink-100">
+        <Table columns={["Name", "E-mail", "Role", { label: "Remove", hidden: true }]} testId="members-table">
             {members.length === 0 ? (
               <tr><td colSpan={4} className="px-3 py-3 text-muted">No members yet.</td></tr>
             ) : (
@@ -70,8 +62,7 @@ export function MemberManager({ projectId, members }: { projectId: string; membe
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
+          </Table>
       </section>
       <section className="card flex flex-col gap-3 p-4" aria-labelledby="add-member">
         <h2 id="add-member" className="text-lg font-bold">Add a member</h2>

@@ -1,4 +1,5 @@
 import { CircleCheck, Clock } from "lucide-react";
+import { Table } from "@/components/ui/table";
 
 export type HistoryItem = { key: string; date: string; recipientEmail: string; status: "sending" | "sent"; sentAt: string | null; by: string };
 
@@ -9,17 +10,7 @@ export function DigestHistory({ history }: { history: HistoryItem[] }) {
       {history.length === 0 ? (
         <p className="p-4 text-muted" data-testid="digest-history-empty">No digest has been sent for this project yet.</p>
       ) : (
-        <table className="mt-2 w-full text-left text-sm" data-testid="digest-history">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <th className="px-3 py-2">Day</th>
-              <th className="px-3 py-2">Recipient</th>
-              <th className="px-3 py-2">Status</th>
-              <th className="px-3 py-2">Sent</th>
-              <th className="px-3 py-2">How</th>
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-ink-100">
+        <Table columns={["Day", "Recipient", "Status", "Sent", "How"]} testId="digest-history" className="mt-2">
             {history.map((h) => (
               <tr key={h.key} data-testid="digest-history-row">
                 <td className="px-3 py-2 font-mono whitespace-nowrap">{h.date}</td>
@@ -34,8 +25,7 @@ export function DigestHistory({ history }: { history: HistoryItem[] }) {
                 <td className="px-3 py-2">{h.by}</td>
               </tr>
             ))}
-          </tbody>
-        </table>
+          </Table>
       )}
     </section>
   );

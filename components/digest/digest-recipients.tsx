@@ -8,6 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
 import { callApi } from "@/lib/api/client";
 import { DIGEST_HOURS, hourLabel } from "@/lib/digest/hours";
+import { Table } from "@/components/ui/table";
 
 export type RecipientItem = {
   id: string;
@@ -82,18 +83,7 @@ export function DigestRecipients({
       </div>
       {message ? <Notice tone={message.tone} title={message.text} testId="recipient-result" /> : null}
       <div className="overflow-x-auto">
-        <table className="w-full text-left text-sm" data-testid="recipients-table">
-          <thead className="bg-ink-50 text-ink-700">
-            <tr>
-              <th className="px-3 py-2">Recipient</th>
-              <th className="px-3 py-2">Why</th>
-              <th className="px-3 py-2">Hour</th>
-              <th className="px-3 py-2">Days with no activity</th>
-              <th className="px-3 py-2">Status</th>
-              {readOnly ? null : <th className="px-3 py-2"><span className="sr-only">Remove</span></th>}
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-ink-100">
+        <Table columns={["Recipient", "Why", "Hour", "Days with no activity", "Status", !readOnly && { label: "Remove", hidden: true }]} testId="recipients-table">
             {recipients.length === 0 ? (
               <tr><td colSpan={6} className="px-3 py-3 text-muted">Nobody yet: the project has no owner and no added address.</td></tr>
             ) : (
@@ -149,8 +139,7 @@ export function DigestRecipients({
                 </tr>
               ))
             )}
-          </tbody>
-        </table>
+          </Table>
       </div>
       {readOnly ? null : (
         <form

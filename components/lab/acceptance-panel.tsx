@@ -10,6 +10,7 @@ import type { MixAcceptance } from "@/lib/checks/strength";
 import { citation } from "@/lib/checks/types";
 import { RULE_AVERAGE, RULE_INDIVIDUAL } from "@/lib/checks/strength";
 import { strengthText } from "./format";
+import { Table } from "@/components/ui/table";
 
 // recharts loads on demand: the figures beside the chart are what the first paint needs.
 const RunningAverageChart = dynamic(() => import("./charts").then((m) => m.RunningAverageChart), { ssr: false });
@@ -48,11 +49,7 @@ export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }
       ) : null}
       {a.tests.length > 0 ? (
         <div className="mt-3 grid gap-4 xl:grid-cols-2">
-          <table className="w-full self-start text-left text-sm" data-testid="acceptance-tests">
-            <thead className="bg-ink-50 text-ink-700">
-              <tr><th className="px-2 py-1.5">#</th><th className="px-2 py-1.5">Set</th><th className="px-2 py-1.5">Cylinders</th><th className="px-2 py-1.5 text-right">Test</th><th className="px-2 py-1.5 text-right">Avg of 3</th><th className="px-2 py-1.5">Result</th></tr>
-            </thead>
-            <tbody className="divide-y divide-ink-100">
+          <Table columns={["#", "Set", "Cylinders", { label: "Test", align: "right" }, { label: "Avg of 3", align: "right" }, "Result"]} testId="acceptance-tests" compact className="self-start">
               {a.tests.map((t, i) => {
                 const low = t.lowIndividual || t.lowAverage === true;
                 return (
@@ -72,8 +69,7 @@ export function AcceptancePanel({ acceptance: a }: { acceptance: MixAcceptance }
                   </tr>
                 );
               })}
-            </tbody>
-          </table>
+            </Table>
           <RunningAverageChart acceptance={a} />
         </div>
       ) : (

@@ -11,6 +11,7 @@ import { callApi } from "@/lib/api/client";
 import type { LabQueue } from "@/lib/lab/queue";
 import { dateText, dateTimeText, relativeDays, strengthText } from "./format";
 import { StatusBadge } from "./status-badge";
+import { Table } from "@/components/ui/table";
 
 type Show = "open" | "all" | "overdue" | "tested";
 const STATUS_PARAM: Record<Show, string | null> = { open: "due,overdue", all: null, overdue: "overdue", tested: "tested" };
@@ -76,22 +77,7 @@ export function LabQueueTable() {
           ))}
         </ul>
         <div className="hidden overflow-x-auto md:block">
-          <table className="w-full text-left text-sm" data-testid="lab-queue">
-            <thead className="bg-ink-50 text-ink-700">
-              <tr>
-                <th className="px-3 py-2">Due</th>
-                <th className="px-3 py-2">Age</th>
-                <th className="px-3 py-2">Status</th>
-                <th className="px-3 py-2">Set</th>
-                <th className="px-3 py-2">Project</th>
-                <th className="px-3 py-2">Placement</th>
-                <th className="px-3 py-2">Mix</th>
-                <th className="px-3 py-2">Cast</th>
-                <th className="px-3 py-2 text-right">Broken</th>
-                <th className="px-3 py-2 text-right">Mean</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-ink-100">
+          <Table columns={["Due", "Age", "Status", "Set", "Project", "Placement", "Mix", "Cast", { label: "Broken", align: "right" }, { label: "Mean", align: "right" }]} testId="lab-queue">
               {items.map((i) => (
                 <tr key={i.key} data-testid="queue-row" data-status={i.status} className={clsx(i.status === "overdue" && "bg-danger-50")}>
                   <td className="whitespace-nowrap px-3 py-1.5"><span className="font-semibold">{dateText(i.dueAt, i.timeZone)}</span>{i.status !== "tested" ? <span className="ml-2 text-xs text-muted">{relativeDays(i.dueAt)}</span> : null}</td>
@@ -108,8 +94,7 @@ export function LabQueueTable() {
                   <td className="whitespace-nowrap px-3 py-1.5 text-right font-mono">{strengthText(i.averageMPa, i.unitSystem)}</td>
                 </tr>
               ))}
-            </tbody>
-          </table>
+            </Table>
         </div>
         </>
       )}

@@ -10,6 +10,7 @@ import type { MixAcceptance } from "@/lib/checks/strength";
 import { BreakForm } from "./break-form";
 import { SetCuring } from "./set-curing";
 import { cylinderText, dateText, dateTimeText, nominalCylinderText, strengthText } from "./format";
+import { Table } from "@/components/ui/table";
 
 // recharts loads on demand: the figures beside the chart are what the first paint needs.
 const StrengthAgeChart = dynamic(() => import("./charts").then((m) => m.StrengthAgeChart), { ssr: false });
@@ -35,11 +36,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
         <div>
           {set.breaks.length === 0 ? <p className="text-sm text-muted">No breaks yet.</p> : (
             <div className="overflow-x-auto">
-            <table className="w-full text-left text-sm" data-testid="break-table">
-              <thead className="bg-ink-50 text-ink-700">
-                <tr><th className="px-2 py-1">Tested</th><th className="px-2 py-1">Age</th><th className="px-2 py-1 text-right">Load</th><th className="px-2 py-1">Size</th><th className="px-2 py-1">Fracture</th><th className="px-2 py-1 text-right">Strength</th></tr>
-              </thead>
-              <tbody className="divide-y divide-ink-100">
+            <Table columns={["Tested", "Age", { label: "Load", align: "right" }, "Size", "Fracture", { label: "Strength", align: "right" }]} testId="break-table" compact>
                 {set.breaks.map((b) => (
                   <tr key={b.id} data-testid="break-row">
                     <td className="whitespace-nowrap px-2 py-1">{dateTimeText(b.testedAt, timeZone)}</td>
@@ -50,8 +47,7 @@ export function SetCard({ projectId, set, unitSystem: u, timeZone, canEnterBreak
                     <td className="px-2 py-1 text-right font-mono font-semibold">{strengthText(b.strengthMPa, u)}</td>
                   </tr>
                 ))}
-              </tbody>
-            </table>
+              </Table>
             </div>
           )}
           {set.tests.length > 0 ? (

@@ -1,22 +1,13 @@
 import { formatStrength, type CalibrationPoint, type UnitSystem } from "@/lib/concrete";
 import { curingBasisLabel } from "@/lib/ui/vocabulary";
+import { Table } from "@/components/ui/table";
 
 /** The calibration's points: which maturity each came from (a set's logger or standard curing) and why not, when a logger fell short. */
 export function CalibrationPoints({ points, unit, units }: { points: CalibrationPoint[]; unit: string; units: UnitSystem }) {
   if (points.length === 0) return null;
   return (
     <div className="overflow-x-auto">
-      <table className="w-full max-w-3xl text-left text-sm" data-testid="calibration-points">
-        <caption className="pb-1 text-left font-semibold text-ink-800">Calibration points</caption>
-        <thead className="bg-ink-50 text-ink-700">
-          <tr>
-            <th className="px-2 py-1">Age</th>
-            <th className="px-2 py-1 text-right">Strength</th>
-            <th className="px-2 py-1 text-right">Maturity ({unit})</th>
-            <th className="px-2 py-1">Maturity from</th>
-          </tr>
-        </thead>
-        <tbody className="divide-y divide-ink-100">
+      <Table columns={["Age", { label: "Strength", align: "right" }, { label: `Maturity (${unit})`, align: "right" }, "Maturity from"]} testId="calibration-points" compact caption="Calibration points" className="max-w-3xl">
           {points.map((p) => (
             <tr key={`${p.ageDays}:${p.logger ?? ""}:${p.maturity}`} data-testid="calibration-point" data-source={p.logger ? "logger" : "standard"}>
               <td className="whitespace-nowrap px-2 py-1 font-mono">{p.ageDays} d</td>
@@ -30,8 +21,7 @@ export function CalibrationPoints({ points, unit, units }: { points: Calibration
               </td>
             </tr>
           ))}
-        </tbody>
-      </table>
+        </Table>
     </div>
   );
 }

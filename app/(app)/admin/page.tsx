@@ -8,6 +8,7 @@ import { listProjectsWithCounts, listUsers } from "@/lib/projects/admin";
 import { readAccountSettings } from "@/lib/users/admin-accounts";
 import { listPendingInvitations } from "@/lib/users/invitations";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+import { Table } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "People" };
 
@@ -19,16 +20,7 @@ export default async function AdminPeoplePage() {
       <PageHeader title="People" subtitle="Everyone with an account, and invitations to new people." />
       <div className="grid gap-4 lg:grid-cols-[1fr_24rem]">
         <section className="card overflow-x-auto">
-          <table className="w-full text-left text-sm" data-testid="people-table">
-            <thead className="bg-ink-50 text-ink-700">
-              <tr>
-                <th className="px-3 py-2">Name</th>
-                <th className="px-3 py-2">E-mail</th>
-                <th className="px-3 py-2">Status</th>
-                <th className="px-3 py-2"><span className="sr-only">Actions</span></th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-ink-100">
+          <Table columns={["Name", "E-mail", "Status", { label: "Actions", hidden: true }]} testId="people-table">
               {people.map((p) => (
                 <tr key={p.id}>
                   <td className="px-3 py-2 font-semibold">{p.name}{p.isAdmin ? <span className="ml-2 rounded bg-ink-100 px-1.5 py-0.5 text-xs">admin</span> : null}</td>
@@ -49,8 +41,7 @@ export default async function AdminPeoplePage() {
                   <td className="px-3 py-2" />
                 </tr>
               ))}
-            </tbody>
-          </table>
+            </Table>
         </section>
         <div className="flex flex-col gap-4">
           <InviteForm projects={projects.map((p) => ({ id: p.id, name: p.name }))} />

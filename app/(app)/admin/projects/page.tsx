@@ -4,6 +4,7 @@ import { ProjectForm } from "@/components/admin/project-form";
 import { PageHeader } from "@/components/ui/page-header";
 import { requireUser } from "@/lib/auth/session";
 import { listProjectsWithCounts } from "@/lib/projects/admin";
+import { Table } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Projects (admin)" };
 
@@ -18,16 +19,7 @@ export default async function AdminProjectsPage() {
           {projects.length === 0 ? (
             <p className="p-4 text-muted">No projects yet.</p>
           ) : (
-            <table className="w-full text-left text-sm" data-testid="admin-projects">
-              <thead className="bg-ink-50 text-ink-700">
-                <tr>
-                  <th className="px-3 py-2">Project</th>
-                  <th className="px-3 py-2">Code</th>
-                  <th className="px-3 py-2">Units</th>
-                  <th className="px-3 py-2 text-right">Members</th>
-                </tr>
-              </thead>
-              <tbody className="divide-y divide-ink-100">
+            <Table columns={["Project", "Code", "Units", { label: "Members", align: "right" }]} testId="admin-projects">
                 {projects.map((p) => (
                   <tr key={p.id}>
                     <td className="px-3 py-2 font-semibold">
@@ -38,8 +30,7 @@ export default async function AdminProjectsPage() {
                     <td className="px-3 py-2 text-right font-mono">{p.members}</td>
                   </tr>
                 ))}
-              </tbody>
-            </table>
+              </Table>
           )}
         </section>
         <ProjectForm />

@@ -7,6 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { accessTo } from "@/lib/auth/access";
 import { requireUser } from "@/lib/auth/session";
 import { listMixes, projectForScreen } from "@/lib/mixes/queries";
+import { Table } from "@/components/ui/table";
 
 export const metadata: Metadata = { title: "Mix designs" };
 
@@ -33,21 +34,7 @@ export default async function MixesPage({ params }: { params: Promise<{ projectI
         {mixes.length === 0 ? (
           <p className="p-4 text-muted" data-testid="no-mixes">No mix designs yet.</p>
         ) : (
-          <table className="w-full text-left text-sm" data-testid="mix-table">
-            <thead className="bg-ink-50 text-ink-700">
-              <tr>
-                <th className="px-3 py-2">Code</th>
-                <th className="px-3 py-2">Supplier</th>
-                <th className="px-3 py-2">f′c</th>
-                <th className="px-3 py-2">Max w/cm</th>
-                <th className="px-3 py-2">Slump</th>
-                <th className="px-3 py-2">Air</th>
-                <th className="px-3 py-2">Max temp.</th>
-                <th className="px-3 py-2">Site water</th>
-                <th className="px-3 py-2">Materials</th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-ink-100">
+          <Table columns={["Code", "Supplier", "f′c", "Max w/cm", "Slump", "Air", "Max temp.", "Site water", "Materials"]} testId="mix-table">
               {mixes.map((mix) => {
                 const t = mixTexts(mix, units);
                 return (
@@ -67,8 +54,7 @@ export default async function MixesPage({ params }: { params: Promise<{ projectI
                   </tr>
                 );
               })}
-            </tbody>
-          </table>
+            </Table>
         )}
       </section>
     </>
