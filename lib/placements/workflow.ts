@@ -4,7 +4,7 @@
 import { can, type Action } from "@/lib/auth/can";
 import { PROJECT_ROLES, type ProjectRole } from "@/lib/auth/roles";
 import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
-import { describeNextSteps, PLACEMENT_MOVE_WORDS, placementStateLabel } from "@/lib/ui/vocabulary";
+import { describeNextSteps, PLACEMENT_MOVE_WORDS, placementStateLabel, statePhrase } from "@/lib/ui/vocabulary";
 
 export { PLACEMENT_STATES, type PlacementState };
 
@@ -57,7 +57,7 @@ export function describeAllowed(state: PlacementState, viewer?: ProjectRole | nu
     group.phrases.push(PLACEMENT_MOVE_WORDS[t.to].phrase);
     groups.set(roles.join(), group);
   }
-  return describeNextSteps("placement", placementStateLabel(state), [...groups.values()], "It cannot change state any more; correct it with an amendment.", viewer);
+  return describeNextSteps("placement", statePhrase("placement", state), [...groups.values()], "It cannot change state any more; correct it with an amendment.", viewer);
 }
 
 /** The refusal when another role's move is tried: "Only the inspector can move a placement from “Ready for inspection” to “Held”." */

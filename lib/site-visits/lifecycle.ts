@@ -8,7 +8,7 @@ import { z } from "zod";
 import { can, type Action } from "@/lib/auth/can";
 import { PROJECT_ROLES, type ProjectRole } from "@/lib/auth/roles";
 import { FINDING_STATES, SITE_VISIT_STATES, type FindingState, type SiteVisitState } from "@/lib/records/enums";
-import { describeNextSteps, FINDING_MOVE_WORDS, SITE_VISIT_MOVE_WORDS, wordFor, type MoveWords } from "@/lib/ui/vocabulary";
+import { describeNextSteps, FINDING_MOVE_WORDS, SITE_VISIT_MOVE_WORDS, statePhrase, type MoveWords } from "@/lib/ui/vocabulary";
 
 export type LifecycleType = "site-visits" | "findings";
 type StateOf<T extends LifecycleType> = T extends "site-visits" ? SiteVisitState : FindingState;
@@ -64,11 +64,11 @@ export function allowedMoves(type: LifecycleType, state: string, role: ProjectRo
 }
 
 const NOUN: Record<LifecycleType, string> = { "site-visits": "visit report", findings: "finding" };
-const labelOf = (type: LifecycleType, state: string) => wordFor(type === "site-visits" ? "site-visit" : "finding", state).label;
+const phraseOfState = (type: LifecycleType, state: string) => statePhrase(type === "site-visits" ? "site-visit" : "finding", state);
 const phraseOf = (type: LifecycleType, to: string) => ((type === "site-visits" ? SITE_VISIT_MOVE_WORDS : FINDING_MOVE_WORDS) as Record<string, MoveWords>)[to]?.phrase ?? to;
 
 /**
- * What can happen next, in words: "This finding is correction reported. Next: the inspector can close
+ * What can happen next, in words: "This finding is waiting for its correction to be checked. Next: the inspector can close
  * it or reopen it." Said plainly when there is no way on.
  */
 export function describeMoves(type: LifecycleType, state: string, viewer?: ProjectRole | null): string {
@@ -81,7 +81,7 @@ export function describeMoves(type: LifecycleType, state: string, viewer?: Proje
     groups.set(roles.join(), group);
   }
   const whenNone = type === "site-visits" ? "It is signed through the sign-off." : "It cannot change state.";
-  const text = describeNextSteps(NOUN[type], labelOf(type, state), [...groups.values()], whenNone, viewer);
+  const text = describeNextSteps(NOUN[type], phraseOfState(type, state), [...groups.values()], whenNone, viewer);
   return type === "site-visits" && state === "submitted" ? `${text.slice(0, -1)}; it is signed through the sign-off.` : text;
 }
 
@@ -99,7 +99,7 @@ export function checkMove(type: LifecycleType, from: string, args: LifecycleArgs
   const move = findMove(type, from, args.to);
   if (!move) return { ok: false, code: "state", message: describeMoves(type, from) };
   if (role === null || !can({ isAdmin: false }, move.action, role)) {
-    return { ok: false, code: "forbidden", message: `Only the ${rolesForMove(move).join(" or the ")} can ${move.verb} a ${NOUN[type]} that is ${labelOf(type, from).toLowerCase()}.` };
+    return { ok: false, code: "forbidden", message: `Only the ${rolesForMove(move).join(" or the ")} can ${move.verb} a ${NOUN[type]} that is ${phraseOfState(type, from)}.` };
   }
   if (move.needs === "response" && !args.response) {
     return { ok: false, code: "invalid_input", field: "response", message: "Say what was done to fix it" };

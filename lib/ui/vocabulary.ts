@@ -51,7 +51,8 @@ export const ICON_SYMBOLS = {
 } as const;
 export type IconName = keyof typeof ICON_SYMBOLS;
 
-export type Word = { label: string; tone: Tone; icon: IconName };
+/** `phrase`: how a sentence says the state ("This visit report is a draft") where the label would read oddly. */
+export type Word = { label: string; tone: Tone; icon: IconName; phrase?: string };
 
 export const PLACEMENT_STATE_WORDS: Record<PlacementState, Word> = {
   planned: { label: "Planned", tone: "neutral", icon: "clock" },
@@ -65,14 +66,14 @@ export const PLACEMENT_STATE_WORDS: Record<PlacementState, Word> = {
 };
 
 export const SITE_VISIT_STATE_WORDS: Record<SiteVisitState, Word> = {
-  draft: { label: "Draft", tone: "neutral", icon: "pencil-line" },
+  draft: { label: "Draft", tone: "neutral", icon: "pencil-line", phrase: "a draft" },
   submitted: { label: "Submitted", tone: "progress", icon: "send" },
   signed: { label: "Signed", tone: "done", icon: "shield-check" },
 };
 
 export const FINDING_STATE_WORDS: Record<FindingState, Word> = {
   open: { label: "Open", tone: "caution", icon: "circle-alert" },
-  answered: { label: "Correction reported", tone: "progress", icon: "reply" },
+  answered: { label: "Correction reported", tone: "progress", icon: "reply", phrase: "waiting for its correction to be checked" },
   closed: { label: "Closed", tone: "done", icon: "circle-check" },
 };
 
@@ -134,6 +135,12 @@ export function wordFor(kind: VocabularyKind, code: string): Word {
 
 export const placementStateLabel = (state: string) => wordFor("placement", state).label;
 
+/** A state as it reads after "is": its phrase, or its label in lower case ("ready for inspection"). */
+export function statePhrase(kind: VocabularyKind, state: string): string {
+  const word = wordFor(kind, state);
+  return word.phrase ?? word.label.toLowerCase();
+}
+
 /** The button and the phrase for a move into a state ("Ask for inspection" / "ask for inspection"). */
 export type MoveWords = { button: string; phrase: string };
 
@@ -168,12 +175,12 @@ export const SITE_VISIT_MOVE_WORDS: Record<SiteVisitState, MoveWords> = {
  */
 export function describeNextSteps(
   noun: string,
-  stateLabel: string,
+  statePhrase: string,
   steps: { roles: readonly string[]; phrases: readonly string[] }[],
   whenNone: string,
   viewer?: string | null,
 ): string {
-  const now = `This ${noun} is ${stateLabel.toLowerCase()}.`;
+  const now = `This ${noun} is ${statePhrase}.`;
   if (steps.length === 0) return `${now} ${whenNone}`;
   const others = (list: typeof steps) => list.map((s) => `the ${s.roles.filter((r) => r !== viewer).join(" or the ")} can ${s.phrases.join(" or ")}`);
   if (viewer === undefined) return `${now} Next: ${others(steps).join("; ")}.`;

@@ -129,7 +129,7 @@ test("a site visit asks which project, keeps the project's clock on a device in 
   await ines.page.getByTestId("finding-save").click();
   const finding = ines.page.getByTestId("finding").filter({ hasText: description });
   await expect(finding.getByTestId("finding-placement-name")).toHaveText(placementLabel);
-  await expect(ines.page.getByTestId("visit-who-next")).toHaveText("This visit report is draft. You can submit it.");
+  await expect(ines.page.getByTestId("visit-who-next")).toHaveText("This visit report is a draft. You can submit it.");
   await ines.page.getByTestId("visit-submitted").click();
   await expect(ines.page.getByTestId("visit-title")).toContainText("Submitted");
   await ines.waitAllSaved();

@@ -129,7 +129,7 @@ describe("our own plain words (issue 15, item 11)", () => {
 
   it("says what can happen next without raw state codes", () => {
     for (const state of PLACEMENT_STATES) expect(describeAllowed(state)).not.toMatch(/can go to:|\(\w+\)/);
-    expect(describeMoves("findings", "answered")).toBe("This finding is correction reported. Next: the inspector can close it or reopen it.");
+    expect(describeMoves("findings", "answered")).toBe("This finding is waiting for its correction to be checked. Next: the inspector can close it or reopen it.");
     expect(describeMoves("site-visits", "submitted")).toMatch(/^This visit report is submitted\. Next: the inspector can take it back to draft; it is signed through the sign-off\.$/);
   });
 
@@ -143,8 +143,8 @@ describe("our own plain words (issue 15, item 11)", () => {
     expect(describeAllowed("held", "owner")).toBe("This placement is held. Nothing for you to do here; the superintendent can ask for inspection.");
     expect(describeAllowed("held", null)).toBe("This placement is held. Nothing for you to do here; the superintendent can ask for inspection.");
     expect(describeMoves("findings", "open", "superintendent")).toBe("This finding is open. You can report the correction; the inspector can close it.");
-    expect(describeMoves("findings", "answered", "superintendent")).toBe("This finding is correction reported. Nothing for you to do here; the inspector can close it or reopen it.");
-    expect(describeMoves("site-visits", "draft", "inspector")).toBe("This visit report is draft. You can submit it.");
+    expect(describeMoves("findings", "answered", "superintendent")).toBe("This finding is waiting for its correction to be checked. Nothing for you to do here; the inspector can close it or reopen it.");
+    expect(describeMoves("site-visits", "draft", "inspector")).toBe("This visit report is a draft. You can submit it.");
     for (const state of PLACEMENT_STATES) for (const role of ["superintendent", "inspector", "office", "owner"] as const) {
       expect(describeAllowed(state, role)).not.toMatch(/can go to:|\((superintendent|inspector|office|owner)\)/);
     }
