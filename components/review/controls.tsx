@@ -96,6 +96,6 @@ export function SmallSelect({
 export const smallButton = (tone: "primary" | "secondary" = "secondary") =>
   clsx(
     // A finger-sized target on a phone; compact beside the table on a desktop, where it is clicked.
-    "inline-flex min-h-touch items-center gap-1.5 rounded-md px-3 py-1.5 text-sm font-semibold disabled:opacity-50 md:min-h-0",
+    "inline-flex min-h-touch items-center gap-1.5 whitespace-nowrap rounded-md px-3 py-1.5 text-sm font-semibold disabled:opacity-50 md:min-h-0",
     tone === "primary" ? "bg-lichen-700 text-white hover:bg-lichen-800" : "border border-ink-300 bg-white text-ink-900 hover:bg-ink-50",
   );

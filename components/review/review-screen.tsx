@@ -163,7 +163,7 @@ function ReviewList({ list, projects, initial }: { list: List; projects: ReviewP
         ) : null}
         <CheckMenu label="Columns" testId={`${list}-columns`} options={all.map((c) => ({ value: c.key, label: c.label }))} selected={view.columns} onChange={(cols) => cols.length && update({ columns: all.map((c) => c.key).filter((k) => cols.includes(k)) })} />
         <SmallSelect label="Rows" testId={`${list}-page-size`} value={String(view.pageSize)} onChange={(v) => update({ pageSize: Number(v) })} options={REVIEW_PAGE_SIZES.map((n) => ({ value: String(n), label: `${n} a page` }))} />
-        <div className="ml-auto flex items-end gap-2">
+        <div className="ml-auto flex flex-wrap items-end gap-2">
           <a href={csvHref} className={smallButton()} data-testid={`${list}-csv`} download title="In each project's units, rounded as on screen">
             <Download className="h-4 w-4" aria-hidden="true" /> CSV
           </a>
