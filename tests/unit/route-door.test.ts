@@ -56,7 +56,6 @@ const LOOKUP_ENTRY_POINTS: Record<string, string> = {
   "lib/sync/server/push.ts": "the sync push is its own door: the sender's access to every project of the batch, once",
   "lib/users/queries.ts": "listUserProjects(): the memberships behind readableProjects(), the one cross-project view",
   "lib/projects/queries.ts": "the member list of a project the access already permits (names and roles to show)",
-  "lib/projects/admin.ts": "administration of memberships (the admin flag), not an access check",
 };
 const HANDLER = /export const (GET|POST|PUT|PATCH|DELETE)\s*=\s*([A-Za-z]+)\s*[(<]/g;
 
