@@ -37,7 +37,17 @@ if (!/test|bench/i.test(databaseName) && !force) {
 // db/index.ts reads DATABASE_URL when it is first imported.
 process.env.DATABASE_URL = url;
 
-const { closeDb, db } = await import("../db/index.ts");
+const { closeDb, db, getPool } = await import("../db/index.ts");
+// Counts the statements the app's pool sends (the plain baseline uses its own client), so the
+// figures show the round trips one push costs as well as its time.
+let statements = 0;
+getPool().on("connect", (client) => {
+  const query = client.query.bind(client) as (...args: unknown[]) => unknown;
+  (client as unknown as { query: (...args: unknown[]) => unknown }).query = (...args: unknown[]) => {
+    statements += 1;
+    return query(...args);
+  };
+});
 const { deleteBenchRows } = await import("./bench/cleanup.ts");
 const { memberships, projects, users } = await import("../db/schema/index.ts");
 const { MAX_MUTATIONS_PER_PUSH, SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
@@ -118,9 +128,12 @@ try {
     return { id: firstId + i, name: "create", recordType: "deliveries", projectId: syncProject.id, recordId: args.id, args };
   });
   let applied = 0;
+  const pushes: { ms: number; statements: number }[] = [];
   const syncStart = performance.now();
   for (let i = 0; i < mutations.length; i += BATCH) {
+    const before = { at: performance.now(), statements };
     const response = await pushMutations(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.slice(i, i + BATCH) });
+    pushes.push({ ms: performance.now() - before.at, statements: statements - before.statements });
     for (const result of response.results) {
       if (result.result !== "applied") throw new Error(`mutation ${result.id} was not applied: ${JSON.stringify(result)}`);
       applied += 1;
@@ -199,6 +212,14 @@ try {
   console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}`);
   console.log(`  sync push (pushMutations): ${syncSeconds.toFixed(2)} s, ${((syncSeconds * 1000) / count).toFixed(2)} ms per mutation`);
   console.log(`  plain batched INSERT (pg):  ${plainSeconds.toFixed(2)} s, ${((plainSeconds * 1000) / count).toFixed(3)} ms per row`);
+  const pushFigures = (label: string, some: typeof pushes) =>
+    some.length
+      ? `${label} ${(some.reduce((sum, p) => sum + p.ms, 0) / some.length).toFixed(1)} ms, ` +
+        `${Math.min(...some.map((p) => p.statements))}–${Math.max(...some.map((p) => p.statements))} statements`
+      : "";
+  const tenth = Math.max(1, Math.floor(pushes.length / 10));
+  console.log(`  per push (${fmt(BATCH)} creates; statements counted on the app's pool, BEGIN/COMMIT included):`);
+  console.log(`    ${pushFigures("first tenth", pushes.slice(0, tenth))}; ${pushFigures("last tenth", pushes.slice(-tenth))}`);
   console.log(`sync push: ${fmt(syncRate)} mutations/s; plain batched INSERT: ${fmt(plainRate)} rows/s; ratio ${(plainRate / syncRate).toFixed(1)}× (sync ÷ plain ${(syncRate / plainRate).toFixed(2)})`);
 } finally {
   // Clean up: projects cascade to memberships, records, audit entries, conflicts and counters;

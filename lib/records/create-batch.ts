@@ -9,7 +9,9 @@ import { inArray } from "drizzle-orm";
 import type { Transaction } from "@/db";
 import { insertMany } from "@/db/json-rows";
 import { writeAudits } from "@/lib/audit";
-import { datesAffected, refreshFindings } from "@/lib/findings/store";
+import { checkFindings } from "@/db/schema";
+import { judgeNewRows, judgedOneByOne, readPlacements, type Placements } from "@/lib/findings/created";
+import { datesAffected, refreshFindings, type FindingRow } from "@/lib/findings/store";
 import { accessIn, allows, type ProjectAccess } from "@/lib/auth/access";
 import { writeActions } from "./access";
 import { reserveChangeSeqs } from "./change-seq";
@@ -105,8 +107,17 @@ export async function planCreates(tx: Transaction, ctx: RecordContext, creates: 
   return planned;
 }
 
-/** Writes planned creates: change numbers in plan order, one INSERT per table, one audit statement. */
+/**
+ * Writes planned creates: change numbers in plan order, one INSERT per table, one audit statement,
+ * then the stored findings (lib/findings). What can be read before the project's change counter is
+ * read first, since taking a number holds that counter's lock until commit.
+ */
 export async function writeCreates(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[]): Promise<RecordRow[]> {
+  const around = new Map<string, Placements>();
+  for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const judged = planned.filter((p) => p.projectId === projectId && judgedOneByOne(p.def.type));
+    if (judged.length) around.set(projectId, await readPlacements(tx, projectId, judged.map((p) => p.values)));
+  }
   const nextSeq = new Map<string, number>();
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
     const count = planned.filter((p) => p.projectId === projectId).length;
@@ -137,14 +148,29 @@ export async function writeCreates(tx: Transaction, ctx: RecordContext, planned:
       after: result[i],
     })),
   );
-  // The rulebook judges the days these records fall on again, once per project (lib/findings).
+  await storeFindings(tx, ctx, planned, result, around);
+  return result;
+}
+
+/**
+ * The rulebook's stored findings after the creates (lib/findings): new trucks and curing readings
+ * judged on their own and stored in one statement; the days of any other kind judged again whole,
+ * once per project (those days' findings then include the new rows, so none is stored twice).
+ */
+async function storeFindings(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[], result: RecordRow[], around: Map<string, Placements>) {
+  const judged: FindingRow[] = [];
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const { project } = await accessIn(ctx, projectId, tx);
     const dates: string[] = [];
+    const own: FindingRow[] = [];
     for (const type of new Set(planned.filter((p) => p.projectId === projectId).map((p) => p.def.type))) {
       const rows = result.filter((_, i) => planned[i].projectId === projectId && planned[i].def.type === type);
-      dates.push(...(await datesAffected(tx, projectId, type, rows)));
+      const alone = around.has(projectId) ? judgeNewRows(project, type, rows, around.get(projectId)!) : null;
+      if (alone) own.push(...alone);
+      else dates.push(...(await datesAffected(tx, projectId, type, rows)));
     }
     await refreshFindings(tx, projectId, dates);
+    judged.push(...own.filter((row) => !dates.includes(row.localDate)));
   }
-  return result;
+  if (judged.length) await insertMany(tx, checkFindings, judged);
 }
