@@ -21,8 +21,15 @@ function encode(column: Column, value: unknown): unknown {
 /**
  * Inserts `rows` (keys as in the table's TypeScript shape) and returns the stored rows, grouped by
  * the set of fields given (a field left out takes its column default, as with the ORM's insert).
+ * `returning: false` returns nothing: the audit entries and the stored results are written and not
+ * read back, which spares sending, parsing and decoding their JSON a second time.
  */
-export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows: Record<string, unknown>[]): Promise<T["$inferSelect"][]> {
+export async function insertMany<T extends PgTable>(
+  tx: Executor,
+  table: T,
+  rows: Record<string, unknown>[],
+  { returning = true }: { returning?: boolean } = {},
+): Promise<T["$inferSelect"][]> {
   const columns = getTableColumns(table) as Record<string, Column>;
   const groups = new Map<string, Record<string, unknown>[]>();
   for (const row of rows) {
@@ -30,7 +37,9 @@ export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows
       .filter((key) => row[key] !== undefined && key in columns)
       .sort()
       .join(",");
-    groups.set(keys, [...(groups.get(keys) ?? []), row]);
+    const group = groups.get(keys);
+    if (group) group.push(row);
+    else groups.set(keys, [row]);
   }
   const stored: T["$inferSelect"][] = [];
   for (const [keyList, group] of groups) {
@@ -41,7 +50,7 @@ export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows
     );
     const json = group.map((row) => Object.fromEntries(keys.map((key) => [columns[key].name, encode(columns[key], row[key])])));
     const result = await tx.execute(
-      sql`insert into ${table} (${names}) select ${names} from json_populate_recordset(null::${table}, ${JSON.stringify(json)}::json) returning *`,
+      sql`insert into ${table} (${names}) select ${names} from json_populate_recordset(null::${table}, ${JSON.stringify(json)}::json)${returning ? sql` returning *` : sql``}`,
     );
     for (const raw of result.rows as Record<string, unknown>[]) stored.push(decodeRow(table, raw));
   }

@@ -6,7 +6,7 @@
 // Creates only: an update or a delete can also take a finding away, which only a day's judgement sees.
 import { and, eq, inArray } from "drizzle-orm";
 import type { Executor } from "@/db";
-import { mixDesigns, placements, type projects } from "@/db/schema";
+import { mixDesigns, type projects } from "@/db/schema";
 import { JUDGED_ONE_BY_ONE, evaluate, attention, toCheckInput } from "@/lib/checks";
 import { localDate } from "@/lib/time/zone";
 import { TRUCK_TIMES } from "./load";
@@ -21,16 +21,11 @@ const INPUT_OF: Record<string, keyof typeof JUDGED_ONE_BY_ONE> = { deliveries: "
 
 export const judgedOneByOne = (type: string) => type in INPUT_OF;
 
-/** The placements the rows belong to, with their mixes, in one statement (as the day loader reads them). */
-export async function readPlacements(tx: Executor, projectId: string, rows: Row[]): Promise<Placements> {
-  const ids = [...new Set(rows.map((r) => r.placementId).filter((id): id is string => typeof id === "string"))];
-  if (ids.length === 0) return { placements: [], mixes: [] };
-  const found = await tx
-    .select({ placement: placements, mix: mixDesigns })
-    .from(placements)
-    .leftJoin(mixDesigns, and(eq(mixDesigns.id, placements.mixId), eq(mixDesigns.projectId, projectId)))
-    .where(and(eq(placements.projectId, projectId), inArray(placements.id, ids)));
-  return { placements: found.map((f) => f.placement), mixes: found.flatMap((f) => (f.mix ? [f.mix] : [])) };
+/** The rows' placements (as the caller read them) with their mixes, read in one statement if any. */
+export async function withMixes(tx: Executor, projectId: string, placementRows: Row[]): Promise<Placements> {
+  const mixIds = [...new Set(placementRows.map((p) => p.mixId).filter((id): id is string => typeof id === "string"))];
+  const mixes = mixIds.length ? await tx.select().from(mixDesigns).where(and(eq(mixDesigns.projectId, projectId), inArray(mixDesigns.id, mixIds))) : [];
+  return { placements: placementRows, mixes };
 }
 
 /**

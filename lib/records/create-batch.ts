@@ -10,7 +10,7 @@ import type { Transaction } from "@/db";
 import { insertMany } from "@/db/json-rows";
 import { writeAudits } from "@/lib/audit";
 import { checkFindings } from "@/db/schema";
-import { judgeNewRows, judgedOneByOne, readPlacements, type Placements } from "@/lib/findings/created";
+import { judgeNewRows, judgedOneByOne, withMixes, type Placements } from "@/lib/findings/created";
 import { datesAffected, refreshFindings, type FindingRow } from "@/lib/findings/store";
 import { accessIn, allows, type ProjectAccess } from "@/lib/auth/access";
 import { writeActions } from "./access";
@@ -21,7 +21,14 @@ import { getRecordDef, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
 
 export type CreateInput = { type: string; projectId: string; input: unknown };
-export type PlannedCreate = { def: RecordDef; projectId: string; values: Record<string, unknown>; derived: Record<string, unknown> };
+export type PlannedCreate = {
+  def: RecordDef;
+  projectId: string;
+  values: Record<string, unknown>;
+  derived: Record<string, unknown>;
+  /** The placement it belongs to, as the checks read it (locked FOR SHARE): the rulebook judges with it. */
+  placement?: RecordRow;
+};
 
 /** Types whose checks read only rows by id: no typed link (photos) and no visit-report freeze. */
 const batchable = (def: RecordDef) =>
@@ -102,7 +109,8 @@ export async function planCreates(tx: Transaction, ctx: RecordContext, creates: 
     }
     // Later creates of the run may point at this one.
     rows.get(p.def.type)!.set(id, { ...p.values, ...p.derived, projectId: p.projectId, version: 1, deletedAt: null } as RecordRow);
-    planned.push(p);
+    const placementId = p.values.placementId;
+    planned.push(typeof placementId === "string" ? { ...p, placement: rows.get("placements")?.get(placementId) ?? undefined } : p);
   }
   return planned;
 }
@@ -116,7 +124,9 @@ export async function writeCreates(tx: Transaction, ctx: RecordContext, planned:
   const around = new Map<string, Placements>();
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
     const judged = planned.filter((p) => p.projectId === projectId && judgedOneByOne(p.def.type));
-    if (judged.length) around.set(projectId, await readPlacements(tx, projectId, judged.map((p) => p.values)));
+    // A placement created earlier in this run is judged from its stored row (below), not this one.
+    const read = [...new Map(judged.flatMap((p) => (p.placement ? [[p.placement.id, p.placement] as const] : []))).values()];
+    if (judged.length) around.set(projectId, await withMixes(tx, projectId, read));
   }
   const nextSeq = new Map<string, number>();
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
@@ -159,18 +169,22 @@ export async function writeCreates(tx: Transaction, ctx: RecordContext, planned:
  */
 async function storeFindings(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[], result: RecordRow[], around: Map<string, Placements>) {
   const judged: FindingRow[] = [];
+  // A placement created in this run is judged as stored, not as the plan held it.
+  const created = new Map(result.filter((_, i) => planned[i].def.type === "placements").map((row) => [row.id, row]));
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
     const { project } = await accessIn(ctx, projectId, tx);
     const dates: string[] = [];
     const own: FindingRow[] = [];
     for (const type of new Set(planned.filter((p) => p.projectId === projectId).map((p) => p.def.type))) {
       const rows = result.filter((_, i) => planned[i].projectId === projectId && planned[i].def.type === type);
-      const alone = around.has(projectId) ? judgeNewRows(project, type, rows, around.get(projectId)!) : null;
+      const known = around.get(projectId);
+      const placements = known?.placements.map((p) => created.get(String(p.id)) ?? p) ?? [];
+      const alone = known ? judgeNewRows(project, type, rows, { placements, mixes: known.mixes }) : null;
       if (alone) own.push(...alone);
       else dates.push(...(await datesAffected(tx, projectId, type, rows)));
     }
     await refreshFindings(tx, projectId, dates);
     judged.push(...own.filter((row) => !dates.includes(row.localDate)));
   }
-  if (judged.length) await insertMany(tx, checkFindings, judged);
+  if (judged.length) await insertMany(tx, checkFindings, judged, { returning: false });
 }

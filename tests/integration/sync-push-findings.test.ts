@@ -36,6 +36,8 @@ const caseArb = fc.record({
   cylinders: fc.boolean(),
   // The placement's planned start: the evening of the pour, or the morning before.
   plannedAt: fc.constantFrom(0, -720),
+  // The placements created in the first push, ahead of their trucks, or written before.
+  placementsInPush: fc.boolean(),
   pushes: fc.array(
     fc.record({
       trucks: fc.array(truckArb, { minLength: 1, maxLength: 6 }),
@@ -72,14 +74,14 @@ describe("stored findings after set-based pushes", () => {
               id: randomUUID(), code: `PF-${project.code}`, fcMPa: 27.6, fcAgeDays: 28, slumpTargetMm: 100, slumpType: "target", airTargetPct: 6, siteWaterAllowedLPerM3: 10,
             })
           : null;
-        const placementIds: string[] = [];
-        for (const element of ["Deck A", "Deck B"]) {
-          const placement = await createRecord({ user: team.superintendent }, "placements", project.id, {
-            id: randomUUID(), element, elementType: "elevated-slab", leastDimensionMm: 250, plannedVolumeM3: 40, plannedStart: T(c.plannedAt), mixId: mix?.record.id ?? null,
-          });
-          placementIds.push(placement.record.id as string);
+        const placementBodies = ["Deck A", "Deck B"].map((element) => ({
+          id: randomUUID(), element, elementType: "elevated-slab", leastDimensionMm: 250, plannedVolumeM3: 40, plannedStart: T(c.plannedAt), mixId: mix?.record.id ?? null,
+        }));
+        const placementIds = placementBodies.map((b) => b.id);
+        if (!c.placementsInPush) {
+          for (const body of placementBodies) await createRecord({ user: team.superintendent }, "placements", project.id, body);
         }
-        if (c.cylinders) {
+        if (c.cylinders && !c.placementsInPush) {
           await createRecord({ user: team.inspector }, "specimen-sets", project.id, {
             id: randomUUID(), placementId: placementIds[0], setCode: `PF-${project.code}`, cylinderDiameterMm: 150, cylinderLengthMm: 300, count: 4, castAt: T(30), testAgesDays: [28],
           });
@@ -90,6 +92,7 @@ describe("stored findings after set-based pushes", () => {
           const mutations: Mutation[] = [];
           const add = (recordType: Mutation["recordType"], args: Record<string, unknown>) =>
             mutations.push({ id: next++, name: "create", recordType, projectId: project.id, recordId: args.id as string, args });
+          if (p === 0 && c.placementsInPush) for (const body of placementBodies) add("placements", body);
           for (const [k, d] of batch.trucks.entries()) {
             const b = d.start + p * 7 + k;
             add("deliveries", {

@@ -145,6 +145,7 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
             conflictId: a.conflictId ?? null,
           };
         }),
+        { returning: false },
       );
       await tx
         .update(syncClients)
