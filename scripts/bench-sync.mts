@@ -1,4 +1,4 @@
-// npm run bench:sync [-- --count=10000] [--force]
+// npm run bench:sync [-- --count=10000] [--sequential] [--force]
 // Throughput of the sync push (lib/sync/server/push.ts) beside a baseline measured in the same run:
 // 1. sync push: N `create` mutations of deliveries through pushMutations, in batches of
 //    MAX_MUTATIONS_PER_PUSH (one transaction per push: client lock, validation, role, link and
@@ -6,6 +6,8 @@
 // 2. baseline: the same rows (same table, same columns) into a second fresh project as plain
 //    multi-row INSERTs through `pg`, one statement of MAX_MUTATIONS_PER_PUSH rows per transaction,
 //    with the change numbers taken from the project's counter in the same transaction.
+// The two take turns batch by batch (--sequential: all pushes, then all plain batches), so a change
+// in the machine's load meets both sides alike. Per push it prints the time and the statements sent.
 // It prints both rates and their ratio, then deletes everything it created (projects cascade to
 // their records, audit entries, conflicts and counters; the user cascades to its sync clients and
 // their stored mutations). It refuses a database whose name has neither "test" nor "bench" in it
@@ -19,6 +21,7 @@ const TEST_DATABASE_URL = "postgres://placewright@127.0.0.1:54339/placewright_te
 const argv = process.argv.slice(2);
 const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
 const force = argv.includes("--force");
+const sequential = argv.includes("--sequential");
 const count = Number(option("count") ?? 10_000);
 if (!Number.isInteger(count) || count < 1) {
   console.error("--count must be a whole number of 1 or more");
@@ -121,7 +124,7 @@ try {
     if (setup.results[0].result !== "applied") throw new Error(`could not create the bench placement: ${JSON.stringify(setup.results[0])}`);
   }
 
-  // 1. The sync push.
+  // 1. The sync push, one push of BATCH creates.
   const firstId = 3;
   const mutations: Mutation[] = Array.from({ length: count }, (_, i) => {
     const args = delivery(i, placementIds[0]);
@@ -129,8 +132,7 @@ try {
   });
   let applied = 0;
   const pushes: { ms: number; statements: number }[] = [];
-  const syncStart = performance.now();
-  for (let i = 0; i < mutations.length; i += BATCH) {
+  async function syncBatch(i: number) {
     const before = { at: performance.now(), statements };
     const response = await pushMutations(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.slice(i, i + BATCH) });
     pushes.push({ ms: performance.now() - before.at, statements: statements - before.statements });
@@ -139,10 +141,8 @@ try {
       applied += 1;
     }
   }
-  const syncSeconds = (performance.now() - syncStart) / 1000;
-  if (applied !== count) throw new Error(`${applied} of ${count} mutations applied`);
 
-  // 2. The baseline: the same rows as plain batched INSERTs.
+  // 2. The baseline: the same rows as plain batched INSERTs, one transaction of BATCH rows.
   const columns = [
     "id",
     "project_id",
@@ -160,8 +160,7 @@ try {
     "revolutions",
   ];
   const rows: Delivery[] = Array.from({ length: count }, (_, i) => delivery(i, placementIds[1]));
-  const plainStart = performance.now();
-  for (let i = 0; i < rows.length; i += BATCH) {
+  async function plainBatch(i: number) {
     const batch = rows.slice(i, i + BATCH);
     await plain.query("BEGIN");
     try {
@@ -201,7 +200,28 @@ try {
       throw error;
     }
   }
-  const plainSeconds = (performance.now() - plainStart) / 1000;
+
+  // Timed batch by batch, the two taking turns (or one after the other with --sequential), so on a
+  // shared machine a change in load meets both sides alike.
+  let syncMs = 0;
+  let plainMs = 0;
+  const timed = async (run: () => Promise<void>) => {
+    const start = performance.now();
+    await run();
+    return performance.now() - start;
+  };
+  if (sequential) {
+    for (let i = 0; i < count; i += BATCH) syncMs += await timed(() => syncBatch(i));
+    for (let i = 0; i < count; i += BATCH) plainMs += await timed(() => plainBatch(i));
+  } else {
+    for (let i = 0; i < count; i += BATCH) {
+      syncMs += await timed(() => syncBatch(i));
+      plainMs += await timed(() => plainBatch(i));
+    }
+  }
+  const syncSeconds = syncMs / 1000;
+  const plainSeconds = plainMs / 1000;
+  if (applied !== count) throw new Error(`${applied} of ${count} mutations applied`);
 
   const [{ n: syncRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [syncProject.id])).rows;
   const [{ n: plainRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [plainProject.id])).rows;
@@ -209,7 +229,7 @@ try {
 
   const syncRate = count / syncSeconds;
   const plainRate = count / plainSeconds;
-  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}`);
+  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}, ${sequential ? "sync then plain" : "sync and plain taking turns"}`);
   console.log(`  sync push (pushMutations): ${syncSeconds.toFixed(2)} s, ${((syncSeconds * 1000) / count).toFixed(2)} ms per mutation`);
   console.log(`  plain batched INSERT (pg):  ${plainSeconds.toFixed(2)} s, ${((plainSeconds * 1000) / count).toFixed(3)} ms per row`);
   const pushFigures = (label: string, some: typeof pushes) =>
