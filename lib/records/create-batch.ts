@@ -1,13 +1,13 @@
 // Set-based creates for the sync push: a run of a device's creates is checked in memory against
-// rows read (and locked FOR SHARE) in one statement per table, then written with one multi-row
+// rows read (and locked FOR SHARE) in one statement, then written with one multi-row
 // INSERT per table, one change-number reservation per project and one audit statement.
 // Only creates that pass every check of createRecord take this way, and the checks are the same
 // functions (guards.ts over a RowSource, can() through allows(), derivedValues). Anything else (an
 // id that exists, a refused link, a signed placement, a role that may not write, invalid input)
 // is left to createRecord, the one write path, which gives the answer and its message.
-import { inArray } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { Transaction } from "@/db";
-import { insertMany } from "@/db/json-rows";
+import { decodeRow, insertMany } from "@/db/json-rows";
 import { writeAudits } from "@/lib/audit";
 import { checkFindings } from "@/db/schema";
 import { judgeNewRows, judgedOneByOne, withMixes, type Placements } from "@/lib/findings/created";
@@ -51,15 +51,27 @@ function idsToRead(def: RecordDef, values: Record<string, unknown>, into: Map<st
   if (def.frozenBy === "checklist") add("checklists", values.checklistId);
 }
 
-/** Rows by type and id, read in one statement per type and locked FOR SHARE until commit. */
+/**
+ * Rows by type and id, locked FOR SHARE until commit, read in ONE statement whatever the number of
+ * types (one locking WITH per table, the rows as JSON, decoded by the ORM's column mappers).
+ */
 async function readRows(tx: Transaction, wanted: Map<string, Set<string>>) {
-  const rows = new Map<string, Map<string, RecordRow | null>>();
-  for (const [type, ids] of wanted) {
-    const def = getRecordDef(type);
-    const found = (await tx.select().from(def.table).where(inArray(def.table.id, [...ids])).for("share")) as RecordRow[];
-    const byId = new Map<string, RecordRow | null>([...ids].map((id) => [id, null]));
-    for (const row of found) byId.set(row.id, row);
-    rows.set(type, byId);
+  const types = [...wanted.keys()];
+  const rows = new Map<string, Map<string, RecordRow | null>>(types.map((type) => [type, new Map([...wanted.get(type)!].map((id) => [id, null]))]));
+  if (types.length === 0) return rows;
+  const parts = types.map((type, k) => {
+    const ids = `{${[...wanted.get(type)!].join(",")}}`;
+    return sql`${sql.identifier(`t${k}`)} as (select ${sql.raw(String(k))} as k, row_to_json(r) as row from ${getRecordDef(type).table} r where r.id = any(${ids}::uuid[]) for share)`;
+  });
+  const union = sql.join(
+    types.map((_, k) => sql`select k, row from ${sql.identifier(`t${k}`)}`),
+    sql` union all `,
+  );
+  const found = await tx.execute(sql`with ${sql.join(parts, sql`, `)} ${union}`);
+  for (const { k, row } of found.rows as { k: number; row: Record<string, unknown> }[]) {
+    const type = types[Number(k)];
+    const decoded = decodeRow(getRecordDef(type).table, row) as RecordRow;
+    rows.get(type)!.set(decoded.id, decoded);
   }
   return rows;
 }
