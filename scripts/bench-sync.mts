@@ -1,4 +1,4 @@
-// npm run bench:sync [-- --count=10000] [--sequential] [--force]
+// npm run bench:sync [-- --count=10000] [--interleaved] [--force]
 // Throughput of the sync push (lib/sync/server/push.ts) beside a baseline measured in the same run:
 // 1. sync push: N `create` mutations of deliveries through pushMutations, in batches of
 //    MAX_MUTATIONS_PER_PUSH (one transaction per push: client lock, validation, role, link and
@@ -6,8 +6,9 @@
 // 2. baseline: the same rows (same table, same columns) into a second fresh project as plain
 //    multi-row INSERTs through `pg`, one statement of MAX_MUTATIONS_PER_PUSH rows per transaction,
 //    with the change numbers taken from the project's counter in the same transaction.
-// The two take turns batch by batch (--sequential: all pushes, then all plain batches), so a change
-// in the machine's load meets both sides alike. Per push it prints the time and the statements sent.
+// All pushes are timed first, then all plain batches; --interleaved makes them take turns batch by
+// batch instead, so a change in a shared machine's load meets both sides (the plain side then runs
+// colder, and measures slower). Per push it prints the time and the statements sent.
 // It prints both rates and their ratio, then deletes everything it created (projects cascade to
 // their records, audit entries, conflicts and counters; the user cascades to its sync clients and
 // their stored mutations). It refuses a database whose name has neither "test" nor "bench" in it
@@ -21,7 +22,7 @@ const TEST_DATABASE_URL = "postgres://placewright@127.0.0.1:54339/placewright_te
 const argv = process.argv.slice(2);
 const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
 const force = argv.includes("--force");
-const sequential = argv.includes("--sequential");
+const interleaved = argv.includes("--interleaved");
 const count = Number(option("count") ?? 10_000);
 if (!Number.isInteger(count) || count < 1) {
   console.error("--count must be a whole number of 1 or more");
@@ -201,8 +202,7 @@ try {
     }
   }
 
-  // Timed batch by batch, the two taking turns (or one after the other with --sequential), so on a
-  // shared machine a change in load meets both sides alike.
+  // One side after the other, or taking turns batch by batch (--interleaved).
   let syncMs = 0;
   let plainMs = 0;
   const timed = async (run: () => Promise<void>) => {
@@ -210,14 +210,14 @@ try {
     await run();
     return performance.now() - start;
   };
-  if (sequential) {
-    for (let i = 0; i < count; i += BATCH) syncMs += await timed(() => syncBatch(i));
-    for (let i = 0; i < count; i += BATCH) plainMs += await timed(() => plainBatch(i));
-  } else {
+  if (interleaved) {
     for (let i = 0; i < count; i += BATCH) {
       syncMs += await timed(() => syncBatch(i));
       plainMs += await timed(() => plainBatch(i));
     }
+  } else {
+    for (let i = 0; i < count; i += BATCH) syncMs += await timed(() => syncBatch(i));
+    for (let i = 0; i < count; i += BATCH) plainMs += await timed(() => plainBatch(i));
   }
   const syncSeconds = syncMs / 1000;
   const plainSeconds = plainMs / 1000;
@@ -229,7 +229,7 @@ try {
 
   const syncRate = count / syncSeconds;
   const plainRate = count / plainSeconds;
-  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}, ${sequential ? "sync then plain" : "sync and plain taking turns"}`);
+  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}, ${interleaved ? "sync and plain taking turns" : "sync then plain"}`);
   console.log(`  sync push (pushMutations): ${syncSeconds.toFixed(2)} s, ${((syncSeconds * 1000) / count).toFixed(2)} ms per mutation`);
   console.log(`  plain batched INSERT (pg):  ${plainSeconds.toFixed(2)} s, ${((plainSeconds * 1000) / count).toFixed(3)} ms per row`);
   const pushFigures = (label: string, some: typeof pushes) =>
