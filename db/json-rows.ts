@@ -4,7 +4,7 @@
 // renders one placeholder per value; for a push of 100 records, building that statement cost more
 // CPU than the database spent running it. Values are encoded and decoded by the ORM's own column
 // mappers, so the rows read back are the ones `insert().values().returning()` would give.
-import { getTableColumns, sql, type Column } from "drizzle-orm";
+import { getTableColumns, sql, type Column, type SQL } from "drizzle-orm";
 import type { PgTable } from "drizzle-orm/pg-core";
 import type { Executor } from "./index";
 
@@ -21,8 +21,28 @@ function encode(column: Column, value: unknown): unknown {
 /**
  * Inserts `rows` (keys as in the table's TypeScript shape) and returns the stored rows, grouped by
  * the set of fields given (a field left out takes its column default, as with the ORM's insert).
+ * `returning: false` returns nothing: the audit entries are written and not read back, which
+ * spares sending, parsing and decoding their JSON a second time.
  */
-export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows: Record<string, unknown>[]): Promise<T["$inferSelect"][]> {
+export async function insertMany<T extends PgTable>(
+  tx: Executor,
+  table: T,
+  rows: Record<string, unknown>[],
+  { returning = true }: { returning?: boolean } = {},
+): Promise<T["$inferSelect"][]> {
+  const stored: T["$inferSelect"][] = [];
+  for (const statement of insertStatements(table, rows)) {
+    const result = await tx.execute(returning ? sql`${statement} returning *` : statement);
+    if (returning) for (const raw of result.rows as Record<string, unknown>[]) stored.push(decodeRow(table, raw));
+  }
+  return stored;
+}
+
+/**
+ * The INSERT statements of insertMany, one per set of fields given, without RETURNING: for a caller
+ * that runs one as a data-modifying WITH of its next statement (one round trip for both).
+ */
+export function insertStatements(table: PgTable, rows: Record<string, unknown>[]): SQL[] {
   const columns = getTableColumns(table) as Record<string, Column>;
   const groups = new Map<string, Record<string, unknown>[]>();
   for (const row of rows) {
@@ -30,22 +50,19 @@ export async function insertMany<T extends PgTable>(tx: Executor, table: T, rows
       .filter((key) => row[key] !== undefined && key in columns)
       .sort()
       .join(",");
-    groups.set(keys, [...(groups.get(keys) ?? []), row]);
+    const group = groups.get(keys);
+    if (group) group.push(row);
+    else groups.set(keys, [row]);
   }
-  const stored: T["$inferSelect"][] = [];
-  for (const [keyList, group] of groups) {
+  return [...groups].map(([keyList, group]) => {
     const keys = keyList.split(",");
     const names = sql.join(
       keys.map((key) => sql.identifier(columns[key].name)),
       sql`, `,
     );
     const json = group.map((row) => Object.fromEntries(keys.map((key) => [columns[key].name, encode(columns[key], row[key])])));
-    const result = await tx.execute(
-      sql`insert into ${table} (${names}) select ${names} from json_populate_recordset(null::${table}, ${JSON.stringify(json)}::json) returning *`,
-    );
-    for (const raw of result.rows as Record<string, unknown>[]) stored.push(decodeRow(table, raw));
-  }
-  return stored;
+    return sql`insert into ${table} (${names}) select ${names} from json_populate_recordset(null::${table}, ${JSON.stringify(json)}::json)`;
+  });
 }
 
 /**

@@ -22,7 +22,7 @@ export async function writeAudit(tx: Executor, entry: AuditInput): Promise<void>
 /** Appends several audit entries in one statement (the sync push's set-based writes). */
 export async function writeAudits(tx: Executor, entries: AuditInput[]): Promise<void> {
   if (entries.length === 1) await tx.insert(auditEntries).values(auditRow(entries[0]));
-  else if (entries.length > 1) await insertMany(tx, auditEntries, entries.map(auditRow));
+  else if (entries.length > 1) await insertMany(tx, auditEntries, entries.map(auditRow), { returning: false });
 }
 
 const auditRow = (entry: AuditInput) => ({

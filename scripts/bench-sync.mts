@@ -1,4 +1,4 @@
-// npm run bench:sync [-- --count=10000] [--force]
+// npm run bench:sync [-- --count=10000] [--interleaved] [--force]
 // Throughput of the sync push (lib/sync/server/push.ts) beside a baseline measured in the same run:
 // 1. sync push: N `create` mutations of deliveries through pushMutations, in batches of
 //    MAX_MUTATIONS_PER_PUSH (one transaction per push: client lock, validation, role, link and
@@ -6,6 +6,9 @@
 // 2. baseline: the same rows (same table, same columns) into a second fresh project as plain
 //    multi-row INSERTs through `pg`, one statement of MAX_MUTATIONS_PER_PUSH rows per transaction,
 //    with the change numbers taken from the project's counter in the same transaction.
+// All pushes are timed first, then all plain batches; --interleaved makes them take turns batch by
+// batch instead, so a change in a shared machine's load meets both sides (the plain side then runs
+// colder, and measures slower). Per push it prints the time and the statements sent.
 // It prints both rates and their ratio, then deletes everything it created (projects cascade to
 // their records, audit entries, conflicts and counters; the user cascades to its sync clients and
 // their stored mutations). It refuses a database whose name has neither "test" nor "bench" in it
@@ -19,6 +22,7 @@ const TEST_DATABASE_URL = "postgres://placewright@127.0.0.1:54339/placewright_te
 const argv = process.argv.slice(2);
 const option = (name: string) => argv.find((a) => a.startsWith(`--${name}=`))?.slice(name.length + 3);
 const force = argv.includes("--force");
+const interleaved = argv.includes("--interleaved");
 const count = Number(option("count") ?? 10_000);
 if (!Number.isInteger(count) || count < 1) {
   console.error("--count must be a whole number of 1 or more");
@@ -37,7 +41,17 @@ if (!/test|bench/i.test(databaseName) && !force) {
 // db/index.ts reads DATABASE_URL when it is first imported.
 process.env.DATABASE_URL = url;
 
-const { closeDb, db } = await import("../db/index.ts");
+const { closeDb, db, getPool } = await import("../db/index.ts");
+// Counts the statements the app's pool sends (the plain baseline uses its own client), so the
+// figures show the round trips one push costs as well as its time.
+let statements = 0;
+getPool().on("connect", (client) => {
+  const query = client.query.bind(client) as (...args: unknown[]) => unknown;
+  (client as unknown as { query: (...args: unknown[]) => unknown }).query = (...args: unknown[]) => {
+    statements += 1;
+    return query(...args);
+  };
+});
 const { deleteBenchRows } = await import("./bench/cleanup.ts");
 const { memberships, projects, users } = await import("../db/schema/index.ts");
 const { MAX_MUTATIONS_PER_PUSH, SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
@@ -111,25 +125,25 @@ try {
     if (setup.results[0].result !== "applied") throw new Error(`could not create the bench placement: ${JSON.stringify(setup.results[0])}`);
   }
 
-  // 1. The sync push.
+  // 1. The sync push, one push of BATCH creates.
   const firstId = 3;
   const mutations: Mutation[] = Array.from({ length: count }, (_, i) => {
     const args = delivery(i, placementIds[0]);
     return { id: firstId + i, name: "create", recordType: "deliveries", projectId: syncProject.id, recordId: args.id, args };
   });
   let applied = 0;
-  const syncStart = performance.now();
-  for (let i = 0; i < mutations.length; i += BATCH) {
+  const pushes: { ms: number; statements: number }[] = [];
+  async function syncBatch(i: number) {
+    const before = { at: performance.now(), statements };
     const response = await pushMutations(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, mutations: mutations.slice(i, i + BATCH) });
+    pushes.push({ ms: performance.now() - before.at, statements: statements - before.statements });
     for (const result of response.results) {
       if (result.result !== "applied") throw new Error(`mutation ${result.id} was not applied: ${JSON.stringify(result)}`);
       applied += 1;
     }
   }
-  const syncSeconds = (performance.now() - syncStart) / 1000;
-  if (applied !== count) throw new Error(`${applied} of ${count} mutations applied`);
 
-  // 2. The baseline: the same rows as plain batched INSERTs.
+  // 2. The baseline: the same rows as plain batched INSERTs, one transaction of BATCH rows.
   const columns = [
     "id",
     "project_id",
@@ -147,8 +161,7 @@ try {
     "revolutions",
   ];
   const rows: Delivery[] = Array.from({ length: count }, (_, i) => delivery(i, placementIds[1]));
-  const plainStart = performance.now();
-  for (let i = 0; i < rows.length; i += BATCH) {
+  async function plainBatch(i: number) {
     const batch = rows.slice(i, i + BATCH);
     await plain.query("BEGIN");
     try {
@@ -188,7 +201,27 @@ try {
       throw error;
     }
   }
-  const plainSeconds = (performance.now() - plainStart) / 1000;
+
+  // One side after the other, or taking turns batch by batch (--interleaved).
+  let syncMs = 0;
+  let plainMs = 0;
+  const timed = async (run: () => Promise<void>) => {
+    const start = performance.now();
+    await run();
+    return performance.now() - start;
+  };
+  if (interleaved) {
+    for (let i = 0; i < count; i += BATCH) {
+      syncMs += await timed(() => syncBatch(i));
+      plainMs += await timed(() => plainBatch(i));
+    }
+  } else {
+    for (let i = 0; i < count; i += BATCH) syncMs += await timed(() => syncBatch(i));
+    for (let i = 0; i < count; i += BATCH) plainMs += await timed(() => plainBatch(i));
+  }
+  const syncSeconds = syncMs / 1000;
+  const plainSeconds = plainMs / 1000;
+  if (applied !== count) throw new Error(`${applied} of ${count} mutations applied`);
 
   const [{ n: syncRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [syncProject.id])).rows;
   const [{ n: plainRows }] = (await plain.query<{ n: number }>("SELECT count(*)::int AS n FROM deliveries WHERE project_id = $1", [plainProject.id])).rows;
@@ -196,9 +229,17 @@ try {
 
   const syncRate = count / syncSeconds;
   const plainRate = count / plainSeconds;
-  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}`);
+  console.log(`database ${databaseName}; ${fmt(count)} delivery creates in batches of ${BATCH}, ${interleaved ? "sync and plain taking turns" : "sync then plain"}`);
   console.log(`  sync push (pushMutations): ${syncSeconds.toFixed(2)} s, ${((syncSeconds * 1000) / count).toFixed(2)} ms per mutation`);
   console.log(`  plain batched INSERT (pg):  ${plainSeconds.toFixed(2)} s, ${((plainSeconds * 1000) / count).toFixed(3)} ms per row`);
+  const pushFigures = (label: string, some: typeof pushes) =>
+    some.length
+      ? `${label} ${(some.reduce((sum, p) => sum + p.ms, 0) / some.length).toFixed(1)} ms, ` +
+        `${Math.min(...some.map((p) => p.statements))}–${Math.max(...some.map((p) => p.statements))} statements`
+      : "";
+  const tenth = Math.max(1, Math.floor(pushes.length / 10));
+  console.log(`  per push (${fmt(BATCH)} creates; statements counted on the app's pool, BEGIN/COMMIT included):`);
+  console.log(`    ${pushFigures("first tenth", pushes.slice(0, tenth))}; ${pushFigures("last tenth", pushes.slice(-tenth))}`);
   console.log(`sync push: ${fmt(syncRate)} mutations/s; plain batched INSERT: ${fmt(plainRate)} rows/s; ratio ${(plainRate / syncRate).toFixed(1)}× (sync ÷ plain ${(syncRate / plainRate).toFixed(2)})`);
 } finally {
   // Clean up: projects cascade to memberships, records, audit entries, conflicts and counters;

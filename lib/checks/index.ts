@@ -44,6 +44,17 @@ export function evaluate(input: CheckInput, options: EvaluateOptions = {}): Find
   return findings.sort(byTime);
 }
 
+/**
+ * The kinds of record the rulebook judges one at a time: every finding about such a record is
+ * decided by the record, its placement (with the mix) and the project alone, and the record counts
+ * towards no other finding except one that the new records produce by themselves whenever adding
+ * them can change it (no cylinders made: a placement's accepted trucks, lib/checks/sampling.ts).
+ * lib/findings judges new records of these kinds on their own instead of reading their days again.
+ * A rule that reads these records across records (a day's total, a comparison between trucks)
+ * breaks this: take the kind out of this list in the same change.
+ */
+export const JUDGED_ONE_BY_ONE = { deliveries: "delivery", curing: "curing" } as const satisfies Partial<Record<keyof CheckInput, Finding["subject"]["type"]>>;
+
 const byTime = (a: Finding, b: Finding) => a.at.localeCompare(b.at) || a.rule.localeCompare(b.rule) || a.subject.id.localeCompare(b.subject.id);
 
 const rank = (s: Severity) => SEVERITIES.indexOf(s);

@@ -13,6 +13,12 @@ type Project = typeof projects.$inferSelect;
 
 const inRange = (col: PgColumn, range: { start: Date; end: Date }) => and(gte(col, range.start), lt(col, range.end))!;
 
+/**
+ * The times a truck is read on: it belongs to every project-local day one of them falls on (a night
+ * pour's discharge end is after midnight), besides its placement's planned day.
+ */
+export const TRUCK_TIMES = ["arrivedAt", "dischargeFinishedAt", "waterFirstAt", "waterLastAt"] as const;
+
 export async function loadProject(tx: Executor, projectId: string): Promise<Project> {
   const [project] = await tx.select().from(projects).where(eq(projects.id, projectId));
   if (!project) throw notFound("Project");
@@ -34,7 +40,7 @@ export async function loadCheckDay(tx: Executor, project: Project, date: string)
   // One after another: inside a transaction the statements share one connection.
   // A truck's findings are dated by its discharge end or its last water, which a night pour puts on the
   // day after its arrival: a truck belongs to every day one of those times falls on.
-  const truckTimes = [deliveries.arrivedAt, deliveries.dischargeFinishedAt, deliveries.waterFirstAt, deliveries.waterLastAt];
+  const truckTimes = TRUCK_TIMES.map((field) => deliveries[field]);
   const dayDeliveries = await tx.select().from(deliveries).where(and(live(deliveries), or(...truckTimes.map((col) => inRange(col, day)))));
   const dayTests = await tx.select().from(fieldTests).where(and(live(fieldTests), inRange(fieldTests.sampledAt, day)));
   const dayWeather = await tx

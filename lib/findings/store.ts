@@ -3,9 +3,9 @@
 import { and, eq, inArray, isNull, sql } from "drizzle-orm";
 import type { Executor } from "@/db";
 import { breaks, checkFindings, placements, weatherObservations } from "@/db/schema";
-import { attention } from "@/lib/checks";
+import { attention, type Finding } from "@/lib/checks";
 import { addDays, localDate } from "@/lib/time/zone";
-import { dayFindings, loadCheckDay, loadProject } from "./load";
+import { TRUCK_TIMES, dayFindings, loadCheckDay, loadProject } from "./load";
 
 type Row = Record<string, unknown>;
 type Project = Awaited<ReturnType<typeof loadProject>>;
@@ -18,25 +18,30 @@ export async function refreshFindings(tx: Executor, projectId: string, dates: It
   await tx.delete(checkFindings).where(and(eq(checkFindings.projectId, projectId), inArray(checkFindings.localDate, unique)));
   const rows = [];
   for (const date of unique) {
-    for (const f of attention(dayFindings(await loadCheckDay(tx, project, date), date))) {
-      rows.push({
-        projectId,
-        placementId: f.placementId,
-        localDate: date,
-        rule: f.rule,
-        severity: f.severity,
-        subjectType: f.subject.type,
-        subjectId: f.subject.id,
-        title: f.title,
-        message: f.message,
-        appliedValue: f.applied.value,
-        appliedLimit: f.applied.limit,
-        appliedUnit: f.applied.unit,
-        source: f.source,
-      });
-    }
+    for (const f of attention(dayFindings(await loadCheckDay(tx, project, date), date))) rows.push(findingRow(projectId, date, f));
   }
   if (rows.length) await tx.insert(checkFindings).values(rows);
+}
+
+export type FindingRow = typeof checkFindings.$inferInsert;
+
+/** A finding as its stored row on a project-local day. */
+export function findingRow(projectId: string, localDate: string, f: Finding): FindingRow {
+  return {
+    projectId,
+    placementId: f.placementId,
+    localDate,
+    rule: f.rule,
+    severity: f.severity,
+    subjectType: f.subject.type,
+    subjectId: f.subject.id,
+    title: f.title,
+    message: f.message,
+    appliedValue: f.applied.value,
+    appliedLimit: f.applied.limit,
+    appliedUnit: f.applied.unit,
+    source: f.source,
+  };
 }
 
 const when = (v: unknown) => (v instanceof Date ? v : v ? new Date(String(v)) : null);
@@ -84,7 +89,7 @@ export async function datesAffected(tx: Executor, projectId: string, type: strin
     case "deliveries":
       // The days lib/findings/load.ts reads a truck on (a night pour's discharge is after midnight),
       // and its placement's planned day, where whether cylinders were made is judged.
-      return [...at("arrivedAt", "dischargeFinishedAt", "waterFirstAt", "waterLastAt"), ...(await plannedDates(tx, project, rows))];
+      return [...at(...TRUCK_TIMES), ...(await plannedDates(tx, project, rows))];
     case "field-tests":
       return at("sampledAt");
     case "curing-readings":

@@ -1,15 +1,17 @@
 // Set-based creates for the sync push: a run of a device's creates is checked in memory against
-// rows read (and locked FOR SHARE) in one statement per table, then written with one multi-row
+// rows read (and locked FOR SHARE) in one statement, then written with one multi-row
 // INSERT per table, one change-number reservation per project and one audit statement.
 // Only creates that pass every check of createRecord take this way, and the checks are the same
 // functions (guards.ts over a RowSource, can() through allows(), derivedValues). Anything else (an
 // id that exists, a refused link, a signed placement, a role that may not write, invalid input)
 // is left to createRecord, the one write path, which gives the answer and its message.
-import { inArray } from "drizzle-orm";
+import { sql } from "drizzle-orm";
 import type { Transaction } from "@/db";
-import { insertMany } from "@/db/json-rows";
+import { decodeRow, insertMany } from "@/db/json-rows";
 import { writeAudits } from "@/lib/audit";
-import { datesAffected, refreshFindings } from "@/lib/findings/store";
+import { checkFindings } from "@/db/schema";
+import { judgeNewRows, judgedOneByOne, withMixes, type Placements } from "@/lib/findings/created";
+import { datesAffected, refreshFindings, type FindingRow } from "@/lib/findings/store";
 import { accessIn, allows, type ProjectAccess } from "@/lib/auth/access";
 import { writeActions } from "./access";
 import { reserveChangeSeqs } from "./change-seq";
@@ -19,7 +21,14 @@ import { getRecordDef, type RecordDef } from "./registry";
 import type { RecordContext, RecordRow } from "./types";
 
 export type CreateInput = { type: string; projectId: string; input: unknown };
-export type PlannedCreate = { def: RecordDef; projectId: string; values: Record<string, unknown>; derived: Record<string, unknown> };
+export type PlannedCreate = {
+  def: RecordDef;
+  projectId: string;
+  values: Record<string, unknown>;
+  derived: Record<string, unknown>;
+  /** The placement it belongs to, as the checks read it (locked FOR SHARE): the rulebook judges with it. */
+  placement?: RecordRow;
+};
 
 /** Types whose checks read only rows by id: no typed link (photos) and no visit-report freeze. */
 const batchable = (def: RecordDef) =>
@@ -42,15 +51,27 @@ function idsToRead(def: RecordDef, values: Record<string, unknown>, into: Map<st
   if (def.frozenBy === "checklist") add("checklists", values.checklistId);
 }
 
-/** Rows by type and id, read in one statement per type and locked FOR SHARE until commit. */
+/**
+ * Rows by type and id, locked FOR SHARE until commit, read in ONE statement whatever the number of
+ * types (one locking WITH per table, the rows as JSON, decoded by the ORM's column mappers).
+ */
 async function readRows(tx: Transaction, wanted: Map<string, Set<string>>) {
-  const rows = new Map<string, Map<string, RecordRow | null>>();
-  for (const [type, ids] of wanted) {
-    const def = getRecordDef(type);
-    const found = (await tx.select().from(def.table).where(inArray(def.table.id, [...ids])).for("share")) as RecordRow[];
-    const byId = new Map<string, RecordRow | null>([...ids].map((id) => [id, null]));
-    for (const row of found) byId.set(row.id, row);
-    rows.set(type, byId);
+  const types = [...wanted.keys()];
+  const rows = new Map<string, Map<string, RecordRow | null>>(types.map((type) => [type, new Map([...wanted.get(type)!].map((id) => [id, null]))]));
+  if (types.length === 0) return rows;
+  const parts = types.map((type, k) => {
+    const ids = `{${[...wanted.get(type)!].join(",")}}`;
+    return sql`${sql.identifier(`t${k}`)} as (select ${sql.raw(String(k))} as k, row_to_json(r) as row from ${getRecordDef(type).table} r where r.id = any(${ids}::uuid[]) for share)`;
+  });
+  const union = sql.join(
+    types.map((_, k) => sql`select k, row from ${sql.identifier(`t${k}`)}`),
+    sql` union all `,
+  );
+  const found = await tx.execute(sql`with ${sql.join(parts, sql`, `)} ${union}`);
+  for (const { k, row } of found.rows as { k: number; row: Record<string, unknown> }[]) {
+    const type = types[Number(k)];
+    const decoded = decodeRow(getRecordDef(type).table, row) as RecordRow;
+    rows.get(type)!.set(decoded.id, decoded);
   }
   return rows;
 }
@@ -100,13 +121,25 @@ export async function planCreates(tx: Transaction, ctx: RecordContext, creates: 
     }
     // Later creates of the run may point at this one.
     rows.get(p.def.type)!.set(id, { ...p.values, ...p.derived, projectId: p.projectId, version: 1, deletedAt: null } as RecordRow);
-    planned.push(p);
+    const placementId = p.values.placementId;
+    planned.push(typeof placementId === "string" ? { ...p, placement: rows.get("placements")?.get(placementId) ?? undefined } : p);
   }
   return planned;
 }
 
-/** Writes planned creates: change numbers in plan order, one INSERT per table, one audit statement. */
+/**
+ * Writes planned creates: change numbers in plan order, one INSERT per table, one audit statement,
+ * then the stored findings (lib/findings). What can be read before the project's change counter is
+ * read first, since taking a number holds that counter's lock until commit.
+ */
 export async function writeCreates(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[]): Promise<RecordRow[]> {
+  const around = new Map<string, Placements>();
+  for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const judged = planned.filter((p) => p.projectId === projectId && judgedOneByOne(p.def.type));
+    // A placement created earlier in this run is judged from its stored row (below), not this one.
+    const read = [...new Map(judged.flatMap((p) => (p.placement ? [[p.placement.id, p.placement] as const] : []))).values()];
+    if (judged.length) around.set(projectId, await withMixes(tx, projectId, read));
+  }
   const nextSeq = new Map<string, number>();
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
     const count = planned.filter((p) => p.projectId === projectId).length;
@@ -137,14 +170,33 @@ export async function writeCreates(tx: Transaction, ctx: RecordContext, planned:
       after: result[i],
     })),
   );
-  // The rulebook judges the days these records fall on again, once per project (lib/findings).
+  await storeFindings(tx, ctx, planned, result, around);
+  return result;
+}
+
+/**
+ * The rulebook's stored findings after the creates (lib/findings): new trucks and curing readings
+ * judged on their own and stored in one statement; the days of any other kind judged again whole,
+ * once per project (those days' findings then include the new rows, so none is stored twice).
+ */
+async function storeFindings(tx: Transaction, ctx: RecordContext, planned: PlannedCreate[], result: RecordRow[], around: Map<string, Placements>) {
+  const judged: FindingRow[] = [];
+  // A placement created in this run is judged as stored, not as the plan held it.
+  const created = new Map(result.filter((_, i) => planned[i].def.type === "placements").map((row) => [row.id, row]));
   for (const projectId of new Set(planned.map((p) => p.projectId))) {
+    const { project } = await accessIn(ctx, projectId, tx);
     const dates: string[] = [];
+    const own: FindingRow[] = [];
     for (const type of new Set(planned.filter((p) => p.projectId === projectId).map((p) => p.def.type))) {
       const rows = result.filter((_, i) => planned[i].projectId === projectId && planned[i].def.type === type);
-      dates.push(...(await datesAffected(tx, projectId, type, rows)));
+      const known = around.get(projectId);
+      const placements = known?.placements.map((p) => created.get(String(p.id)) ?? p) ?? [];
+      const alone = known ? judgeNewRows(project, type, rows, { placements, mixes: known.mixes }) : null;
+      if (alone) own.push(...alone);
+      else dates.push(...(await datesAffected(tx, projectId, type, rows)));
     }
     await refreshFindings(tx, projectId, dates);
+    judged.push(...own.filter((row) => !dates.includes(row.localDate)));
   }
-  return result;
+  if (judged.length) await insertMany(tx, checkFindings, judged, { returning: false });
 }

@@ -2,7 +2,7 @@
 // transaction together with their stored results and the device's watermark.
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
-import { insertMany } from "@/db/json-rows";
+import { insertStatements } from "@/db/json-rows";
 import { syncClients, syncMutations } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
 import { AppError, forbidden } from "@/lib/errors";
@@ -124,8 +124,7 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
 
     const applied = await applyInOrder(tx, user, clientId, fresh, hooks, batch);
     if (fresh.length > 0) {
-      await insertMany(
-        tx,
+      const stored = insertStatements(
         syncMutations,
         fresh.map((m) => {
           const a = applied.get(m.id)!;
@@ -146,10 +145,11 @@ async function pushOnce(user: SessionUser, request: PushRequest, hooks: PushHook
           };
         }),
       );
-      await tx
-        .update(syncClients)
-        .set({ lastMutationId: expected - 1, lastSeenAt: sql`now()` })
-        .where(eq(syncClients.id, clientId));
+      // The stored results and the watermark in one statement (the results as a WITH of the update).
+      for (const statement of stored.slice(0, -1)) await tx.execute(statement);
+      await tx.execute(sql`with stored as (${stored.at(-1)})
+        update ${syncClients} set ${sql.identifier(syncClients.lastMutationId.name)} = ${expected - 1}, ${sql.identifier(syncClients.lastSeenAt.name)} = now()
+        where ${syncClients.id} = ${clientId}`);
     }
     for (const [id, a] of applied) answers.set(id, { id, ...a } satisfies MutationResult);
     const results = answered.map((m) => answers.get(m.id) ?? ({ id: m.id, result: "applied" } as MutationResult));
