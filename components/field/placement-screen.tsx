@@ -18,7 +18,8 @@ import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
+import { Section, formatDateTime, num, str, unitSystemOf, useProject } from "./common";
+import { useDeviceWrite } from "./use-device-write";
 import { ConcreteInPlace } from "@/components/inspection/concrete-in-place";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { OpenFindings } from "@/components/findings/open-findings";
@@ -39,18 +40,14 @@ function Transitions({ placement, project, readyBlockedBy = [] }: { placement: L
   const allowed = allowedTransitions(state, role);
   const [holding, setHolding] = useState(false);
   const [reason, setReason] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
 
-  const move = async (to: PlacementState, why?: string) => {
-    setError(null);
-    try {
+  const move = (to: PlacementState, why?: string) =>
+    run(async () => {
       await transitionLocal(db, placement.id, to, why);
       setHolding(false);
       setReason("");
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
 
   return (
     <div className="mt-4 border-t border-ink-200 pt-3" data-testid="placement-transitions">

@@ -4,12 +4,12 @@
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { ClipboardCheck } from "lucide-react";
-import { useState } from "react";
 import { RecordPhotos } from "@/components/photos/record-photos";
 import { Notice } from "@/components/ui/notice";
 import { listByParent, updateLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { str, writeErrorOf } from "./common";
+import { str } from "./common";
+import { useDeviceWrite } from "./use-device-write";
 
 export const HOT_ITEMS: [string, string][] = [
   ["materials-cooled", "Materials cooled or shaded; retarder as the mix allows"],
@@ -34,17 +34,10 @@ export const COLD_ITEMS: [string, string][] = [
 export function Checklist({ checklist, canWrite }: { checklist: LocalRecord; canWrite: boolean }) {
   const db = useSyncDb();
   const items = useLiveQuery(() => listByParent(db, "checklist-items", "checklistId", checklist.id), [db, checklist.id]);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const order = (checklist.kind === "cold-weather" ? COLD_ITEMS : HOT_ITEMS).map(([key]) => key);
   const sorted = [...(items ?? [])].sort((a, b) => order.indexOf(str(a.itemKey)) - order.indexOf(str(b.itemKey)));
-  const answer = async (item: LocalRecord, patch: Record<string, unknown>) => {
-    setError(null);
-    try {
-      await updateLocal(db, "checklist-items", item.id, patch);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const answer = (item: LocalRecord, patch: Record<string, unknown>) => run(() => updateLocal(db, "checklist-items", item.id, patch));
   const done = sorted.filter((i) => i.answer).length;
   return (
     <div className="mt-3 rounded-lg border border-ink-200 p-3" data-testid={`checklist-${str(checklist.kind)}`}>

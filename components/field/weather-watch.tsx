@@ -21,6 +21,7 @@ import { CHECKLIST_KINDS, SUN_EXPOSURES } from "@/lib/records/enums";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
+import { useDeviceWrite } from "./use-device-write";
 import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
@@ -137,7 +138,7 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
   const observations = useLiveQuery(async () => (await listByParent(db, "weather-observations", "placementId", placement.id)).sort(byTime("observedAt")), [db, placement.id]);
   const checklists = useLiveQuery(() => listByParent(db, "checklists", "placementId", placement.id), [db, placement.id]);
   const [adding, setAdding] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const [starting, setStarting] = useState(false);
   const canObserve = mayWrite(project, "weather.write");
   const canCheck = mayWrite(project, "checklist.write");
@@ -154,18 +155,14 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
   });
 
   const start = async (kind: "hot-weather" | "cold-weather") => {
-    setError(null);
     setStarting(true);
-    try {
+    await run(async () => {
       const { id } = await createLocal(db, "checklists", placement.projectId, { placementId: placement.id, kind });
       for (const [itemKey, label] of kind === "hot-weather" ? HOT_ITEMS : COLD_ITEMS) {
         await createLocal(db, "checklist-items", placement.projectId, { checklistId: id, itemKey, label });
       }
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    } finally {
-      setStarting(false);
-    }
+    });
+    setStarting(false);
   };
 
   return (

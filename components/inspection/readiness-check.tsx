@@ -7,7 +7,8 @@ import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { CircleAlert, CircleCheck, ClipboardCheck, OctagonAlert } from "lucide-react";
 import { useState } from "react";
-import { Section, mayWrite, str, writeErrorOf } from "@/components/field/common";
+import { Section, mayWrite, str } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { READINESS_ITEMS, readinessOrder, readinessVerdict, type ReadinessAnswer, type ReadinessVerdict } from "@/lib/placements/readiness";
@@ -123,7 +124,7 @@ const FINISHED_STATES = new Set(["cleared", "placing", "placed", "signed"]);
 
 export function ReadinessCheck({ placement, project, readiness }: { placement: LocalRecord; project: ProjectRow; readiness: Readiness | undefined }) {
   const db = useSyncDb();
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const [starting, setStarting] = useState(false);
   const state = str(placement.state);
   const canWrite = mayWrite(project, "checklist.write");
@@ -131,27 +132,16 @@ export function ReadinessCheck({ placement, project, readiness }: { placement: L
   const reviewing = state === "ready" && mayWrite(project, "placement.review");
 
   const start = async () => {
-    setError(null);
     setStarting(true);
-    try {
+    await run(async () => {
       const { id } = await createLocal(db, "checklists", placement.projectId, { placementId: placement.id, kind: "readiness" });
       for (const { itemKey, label } of READINESS_ITEMS) {
         await createLocal(db, "checklist-items", placement.projectId, { checklistId: id, itemKey, label });
       }
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    } finally {
-      setStarting(false);
-    }
+    });
+    setStarting(false);
   };
-  const change = async (item: LocalRecord, patch: Record<string, unknown>) => {
-    setError(null);
-    try {
-      await updateLocal(db, "checklist-items", item.id, patch);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const change = (item: LocalRecord, patch: Record<string, unknown>) => run(() => updateLocal(db, "checklist-items", item.id, patch));
 
   if (readiness === undefined) return null;
   const { checklist, items, verdict } = readiness;

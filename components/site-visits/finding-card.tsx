@@ -9,7 +9,8 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { formatDateTime, str, writeErrorOf } from "@/components/field/common";
+import { formatDateTime, str } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { FindingState } from "@/lib/records/enums";
@@ -28,21 +29,17 @@ export function FindingCard({ finding, project, placements = [] }: { finding: Lo
   const moves = allowedMoves("findings", state, (project.role ?? null) as ProjectRole | null);
   const [active, setActive] = useState<string | null>(null);
   const [text, setText] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const move = moves.find((m) => m.to === active);
 
-  const submit = async (to: string) => {
-    const m = moves.find((x) => x.to === to);
-    setError(null);
-    try {
+  const submit = (to: string) =>
+    run(async () => {
+      const m = moves.find((x) => x.to === to);
       const arg = m?.needs === "response" ? { response: text.trim() } : m?.needs === "reason" ? { reason: text.trim() } : { note: text.trim() || undefined };
       await transitionSiteRecordLocal(db, "findings", finding.id, { to, ...arg });
       setActive(null);
       setText("");
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
 
   return (
     <li id={`finding-${finding.id}`} className="rounded border border-ink-200 p-3" data-testid="finding">

@@ -9,7 +9,8 @@ import { useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { Section, formatDay, num, str, useProject, writeErrorOf } from "@/components/field/common";
+import { Section, formatDay, num, str, useProject } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { SignOffDialog } from "@/components/signoff/lazy-sign-off-dialog";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { SiteVisitState } from "@/lib/records/enums";
@@ -26,20 +27,13 @@ function SubmitAndSign({ visit, project, findings }: { visit: LocalRecord; proje
   const db = useSyncDb();
   const requestSync = useRequestSync();
   const [open, setOpen] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const state = str(visit.state) as SiteVisitState;
   const role = (project.role ?? null) as ProjectRole | null;
   const moves = allowedMoves("site-visits", state, role);
   const outstanding = findings.filter((f) => isOutstanding(f.state));
   const version = num(visit.version) ?? 0;
-  const move = async (to: string) => {
-    setError(null);
-    try {
-      await transitionSiteRecordLocal(db, "site-visits", visit.id, { to });
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const move = (to: string) => run(() => transitionSiteRecordLocal(db, "site-visits", visit.id, { to }));
   if (state === "signed") {
     return (
       <Notice tone="success" title="Signed" testId="visit-signed">
