@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ELEMENT_TYPES, PLACEMENT_STATES } from "@/lib/records/enums";
-import { choice, clientId, instant, measure, optionalText, recordId, requiredText } from "./fields";
+import { choice, clientId, instant, measure, optionalText, recordId, requiredText, serverOwned } from "./fields";
 
 export const placementFields = {
   element: requiredText("Element", 120),
@@ -34,4 +34,8 @@ export const placementDefaults = z.object({
   leastDimensionMm: placementFields.leastDimensionMm.default(null),
   plannedVolumeM3: placementFields.plannedVolumeM3.default(null),
   mixId: placementFields.mixId.default(null),
+  // Written only by the workflow (a hold, the sign-off).
+  holdReason: serverOwned.text(),
+  signedAt: serverOwned.instant(),
+  signedBy: serverOwned.id(),
 });

@@ -16,6 +16,10 @@ import type { SyncedRecord } from "@/lib/sync/protocol";
 export type LocalRecordBase = SyncedRecord & {
   pending: 0 | 1;
   serverCopy: SyncedRecord | null;
+  /** Set by the server (db/schema/columns.ts); missing on a row made here and not yet pulled back. */
+  createdAt?: string;
+  updatedAt?: string;
+  updatedBy?: string | null;
 };
 
 /** A value as the device stores it: JSON, so a Date is its ISO string (null and the rest unchanged). */
@@ -28,7 +32,7 @@ type CreateFields<T extends RecordType> = StoredObject<z.output<Descriptions[T][
 type DefaultFields<T extends RecordType> = StoredObject<z.output<Descriptions[T]["serverDefaults"]>>;
 
 /** The sync fields every row has (SyncedRecord's named fields and the device's two). */
-type SyncFields = "id" | "projectId" | "version" | "changeSeq" | "deletedAt" | "pending" | "serverCopy";
+type SyncFields = "id" | "projectId" | "version" | "changeSeq" | "deletedAt" | "pending" | "serverCopy" | "createdAt" | "updatedAt" | "updatedBy";
 
 /** The fields of a record type as the device stores them (the sync fields left to LocalRecordBase). */
 export type LocalFields<T extends RecordType> = Omit<CreateFields<T> & DefaultFields<T>, SyncFields>;
