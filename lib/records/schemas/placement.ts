@@ -34,7 +34,10 @@ export const placementDefaults = z.object({
   leastDimensionMm: placementFields.leastDimensionMm.default(null),
   plannedVolumeM3: placementFields.plannedVolumeM3.default(null),
   mixId: placementFields.mixId.default(null),
-  // Written only by the workflow (a hold, the sign-off).
+});
+
+/** Fields only the workflow writes (a hold, the sign-off), as the device stores them; null until then. */
+export const placementServerWritten = z.object({
   holdReason: serverOwned.text(),
   signedAt: serverOwned.instant(),
   signedBy: serverOwned.id(),

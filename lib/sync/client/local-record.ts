@@ -31,11 +31,14 @@ type CreateFields<T extends RecordType> = StoredObject<z.output<Descriptions[T][
 /** Fields the server always fills in (a default or its own, null until it writes them). */
 type DefaultFields<T extends RecordType> = StoredObject<z.output<Descriptions[T]["serverDefaults"]>>;
 
+/** Fields only the server writes, where the description names them apart from its defaults. */
+type WrittenFields<T extends RecordType> = Descriptions[T] extends { serverWritten: infer S extends z.ZodType } ? StoredObject<z.output<S>> : unknown;
+
 /** The sync fields every row has (SyncedRecord's named fields and the device's two). */
 type SyncFields = "id" | "projectId" | "version" | "changeSeq" | "deletedAt" | "pending" | "serverCopy" | "createdAt" | "updatedAt" | "updatedBy";
 
 /** The fields of a record type as the device stores them (the sync fields left to LocalRecordBase). */
-export type LocalFields<T extends RecordType> = Omit<CreateFields<T> & DefaultFields<T>, SyncFields>;
+export type LocalFields<T extends RecordType> = Omit<CreateFields<T> & DefaultFields<T> & WrittenFields<T>, SyncFields>;
 
 /**
  * A record on the device. With a record type its fields have the schema's types

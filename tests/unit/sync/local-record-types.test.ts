@@ -37,6 +37,9 @@ describe("LocalRecord<type>: the schema's fields, as the device stores them", ()
     expectTypeOf<Truck["version"]>().toEqualTypeOf<number>();
     expectTypeOf<Truck["pending"]>().toEqualTypeOf<0 | 1>();
     expectTypeOf<Truck["deletedAt"]>().toEqualTypeOf<string | null>();
+    // Written only by the workflow, null until then [the project's placementServerWritten].
+    expectTypeOf<LocalRecord<"placements">["holdReason"]>().toEqualTypeOf<string | null>();
+    expectTypeOf<LocalRecord<"placements">["signedAt"]>().toEqualTypeOf<string | null>();
   });
 
   it("without a type the row stays the loose base the sync code works on", () => {
