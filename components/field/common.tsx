@@ -10,7 +10,7 @@ import { createContext, useContext } from "react";
 import { can, type Action } from "@/lib/auth/can";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { fromDisplay, toDisplay, unitLabel, type Quantity, type UnitSystem } from "@/lib/concrete";
-import { isLocalWriteError, listProjects, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
+import { isLocalWriteError, listProjects, type ProjectRow } from "@/lib/sync/client";
 import { useOptionalSyncDb } from "@/lib/sync/client/react";
 import { addDays as addLocalDays, calendarDateText, deviceTimeZone, formatInstant, isTimeZone, localDate, localDateTime, localDateTimeToInstant } from "@/lib/time/zone";
 
@@ -126,8 +126,6 @@ export function fromSI(quantity: Quantity, value: unknown, unitSystem: UnitSyste
 
 export { unitLabel };
 
-export const num = (value: unknown): number | undefined => (typeof value === "number" && Number.isFinite(value) ? value : undefined);
-export const str = (value: unknown): string => (typeof value === "string" ? value : "");
 
 /** The message and field messages of a refused local write. */
 export function writeErrorOf(error: unknown): { message: string; fields: Record<string, string> } {
@@ -135,7 +133,11 @@ export function writeErrorOf(error: unknown): { message: string; fields: Record<
   return { message: error instanceof Error ? error.message : "Could not save on this device.", fields: {} };
 }
 
-export const byTime = (field: string) => (a: LocalRecord, b: LocalRecord) => str(a[field]).localeCompare(str(b[field]));
+/** Orders records by one of their instants (ISO strings sort in time order; a missing one first). */
+export const byTime =
+  <K extends string>(field: K) =>
+  (a: { [F in K]?: string | null }, b: { [F in K]?: string | null }) =>
+    (a[field] ?? "").localeCompare(b[field] ?? "");
 
 /** A small verdict beside a value: words + icon + colour. */
 export function Verdict({ ok, okText = "In tolerance", badText = "Out of tolerance", testId }: { ok: boolean; okText?: string; badText?: string; testId?: string }) {

@@ -12,7 +12,8 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { dismissRejection, getRecord, isLocalRecordType, listConflicts, localDef, resolveConflictLocal, type ConflictRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { formatDateTime, useProjects, writeErrorOf } from "./common";
+import { formatDateTime, useProjects } from "./common";
+import { useDeviceWrite } from "./use-device-write";
 
 const META = new Set(["id", "projectId", "version", "changeSeq", "deletedAt", "createdAt", "updatedAt", "createdBy", "updatedBy", "pending", "serverCopy"]);
 
@@ -48,20 +49,16 @@ function ConflictCard({ conflict }: { conflict: ConflictRow }) {
   const server = (conflict.serverPayload as Record<string, unknown> | null) ?? record?.serverCopy ?? record ?? {};
   const keys = Object.keys(mine).filter((key) => JSON.stringify(mine[key] ?? null) !== JSON.stringify(server[key] ?? null));
   const [choice, setChoice] = useState<Record<string, "mine" | "theirs">>({});
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const typeLabel = isLocalRecordType(conflict.recordType) ? localDef(conflict.recordType).label : conflict.recordType;
   const project = projects?.find((p) => p.id === conflict.projectId);
   const placementId = conflict.recordType === "placements" ? conflict.recordId : typeof server.placementId === "string" ? server.placementId : null;
 
-  const resolve = async (pick: "mine" | "theirs" | "chosen") => {
-    setError(null);
-    const patch = Object.fromEntries(keys.filter((k) => (pick === "chosen" ? (choice[k] ?? "theirs") === "mine" : pick === "mine")).map((k) => [k, mine[k]]));
-    try {
+  const resolve = (pick: "mine" | "theirs" | "chosen") =>
+    run(async () => {
+      const patch = Object.fromEntries(keys.filter((k) => (pick === "chosen" ? (choice[k] ?? "theirs") === "mine" : pick === "mine")).map((k) => [k, mine[k]]));
       await resolveConflictLocal(db, conflict.id, patch, conflict.serverVersion !== null ? { baseVersion: conflict.serverVersion } : {});
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
 
   return (
     <li className="card p-4" data-testid="conflict" data-record-id={conflict.recordId}>

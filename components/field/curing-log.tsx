@@ -14,13 +14,13 @@ import { formatLength, formatTemperature } from "@/lib/concrete";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, Section, mayWrite, Verdict, byTime, formatDateTime, fromLocalInput, num, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { NowInput, Section, mayWrite, Verdict, byTime, formatDateTime, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 
 type Values = { method: string; readAt: string; temp: string; location: string; note: string };
 
-function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; project: ProjectRow; onDone: () => void }) {
+function ReadingForm({ placement, project, onDone }: { placement: LocalRecord<"placements">; project: ProjectRow; onDone: () => void }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
@@ -60,14 +60,14 @@ function ReadingForm({ placement, project, onDone }: { placement: LocalRecord; p
   );
 }
 
-export function CuringLog({ placement, project, checks }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined }) {
+export function CuringLog({ placement, project, checks }: { placement: LocalRecord<"placements">; project: ProjectRow; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const readings = useLiveQuery(async () => (await listByParent(db, "curing-readings", "placementId", placement.id)).sort(byTime("readAt")), [db, placement.id]);
   // Cold weather as the rulebook finds it under the project's definition, on this placement's days.
   const cold = (checks?.findings ?? []).filter((f) => f.rule === "cold-weather");
   const [adding, setAdding] = useState(false);
-  const least = num(placement.leastDimensionMm);
+  const least = placement.leastDimensionMm ?? undefined;
   const canWrite = mayWrite(project, "curing.write");
   const minimum = curingMinimumC({ leastDimensionMm: least ?? null }, units);
 
@@ -99,7 +99,7 @@ export function CuringLog({ placement, project, checks }: { placement: LocalReco
       {adding ? <ReadingForm placement={placement} project={project} onDone={() => setAdding(false)} /> : null}
       <ul className="mt-3 flex flex-col gap-2">
         {(readings ?? []).map((r) => {
-          const t = num(r.tempC);
+          const t = r.tempC;
           const low = findingsFor(checks?.findings ?? [], "curing", r.id);
           return (
             <li key={r.id} className="flex flex-wrap items-center gap-2 rounded-lg border border-ink-200 p-3" data-testid="curing-row">
@@ -107,8 +107,8 @@ export function CuringLog({ placement, project, checks }: { placement: LocalReco
               <span className="text-lg font-bold">{t !== undefined ? formatTemperature(t, units) : "—"}</span>
               {minimum !== null && checks ? <Verdict ok={low.length === 0} okText="At or above the minimum" badText="Below the minimum" testId="curing-verdict" /> : null}
               <span className="text-sm text-muted">
-                {formatDateTime(r.readAt, project.timeZone)} · {str(r.method)}
-                {r.location ? ` · ${str(r.location)}` : ""}
+                {formatDateTime(r.readAt, project.timeZone)} · {r.method}
+                {r.location ? ` · ${r.location}` : ""}
               </span>
               {low.map((f) => (
                 <FindingNotice key={f.rule} finding={f} compact className="basis-full" testId="curing-finding" />

@@ -9,17 +9,17 @@ import { StateBadge } from "@/components/ui/state-badge";
 import { formatVolume, formatWaterVolume } from "@/lib/concrete";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { mayWrite, Section, byTime, dateInZone, formatDay, formatTime, num, str, unitSystemOf } from "./common";
+import { mayWrite, Section, byTime, dateInZone, formatDay, formatTime, unitSystemOf } from "./common";
 import { DeliveryChecks } from "./delivery-checks";
 import { DeliveryForm } from "./delivery-form";
 import { findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 
 /** Trucks in the order they came: batch time, then arrival, then ticket number. */
-export const deliveryOrder = (a: LocalRecord, b: LocalRecord) =>
-  byTime("batchedAt")(a, b) || byTime("arrivedAt")(a, b) || str(a.ticketNumber).localeCompare(str(b.ticketNumber), undefined, { numeric: true });
+export const deliveryOrder = (a: LocalRecord<"deliveries">, b: LocalRecord<"deliveries">) =>
+  byTime("batchedAt")(a, b) || byTime("arrivedAt")(a, b) || a.ticketNumber.localeCompare(b.ticketNumber, undefined, { numeric: true });
 
-export function Deliveries({ placement, project, checks }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined }) {
+export function Deliveries({ placement, project, checks }: { placement: LocalRecord<"placements">; project: ProjectRow; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const deliveries = useLiveQuery(async () => (await listByParent(db, "deliveries", "placementId", placement.id)).sort(deliveryOrder), [db, placement.id]);
@@ -27,11 +27,11 @@ export function Deliveries({ placement, project, checks }: { placement: LocalRec
   const canWrite = mayWrite(project, "delivery.write");
   // Each time with its date when the truck's times span midnight, so 00:50 never reads as before 23:05.
   const dayOf = (value: unknown) => (typeof value === "string" && value ? dateInZone(new Date(value), project.timeZone) : "");
-  const whenOf = (d: LocalRecord) => (value: unknown) => {
+  const whenOf = (d: LocalRecord<"deliveries">) => (value: unknown) => {
     const spans = new Set([d.batchedAt, d.arrivedAt, d.dischargeStartedAt, d.dischargeFinishedAt].map(dayOf).filter(Boolean)).size > 1;
     return spans ? `${formatDay(dayOf(value))} ${formatTime(value, project.timeZone)}` : formatTime(value, project.timeZone);
   };
-  const total = (deliveries ?? []).filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (num(d.volumeM3) ?? 0), 0);
+  const total = (deliveries ?? []).filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (d.volumeM3 ?? 0), 0);
 
   return (
     <Section
@@ -54,39 +54,39 @@ export function Deliveries({ placement, project, checks }: { placement: LocalRec
           const found = findingsFor(checks?.findings ?? [], "delivery", d.id);
           const when = whenOf(d);
           return (
-            <li key={d.id} className="rounded-lg border border-ink-200 p-3" data-testid="delivery-row" data-ticket={str(d.ticketNumber)}>
+            <li key={d.id} className="rounded-lg border border-ink-200 p-3" data-testid="delivery-row" data-ticket={d.ticketNumber}>
               <div className="flex flex-wrap items-center gap-2">
                 <Truck className="h-5 w-5 text-ink-600" aria-hidden="true" />
                 <span className="text-lg font-bold">
-                  #{i + 1} · Ticket <span data-testid="delivery-ticket-number">{str(d.ticketNumber)}</span>
+                  #{i + 1} · Ticket <span data-testid="delivery-ticket-number">{d.ticketNumber}</span>
                 </span>
-                {d.truck ? <span className="text-muted">truck {str(d.truck)}</span> : null}
-                {d.mixCode ? <span className="text-muted" data-testid="delivery-mix">mix {str(d.mixCode)}</span> : null}
+                {d.truck ? <span className="text-muted">truck {d.truck}</span> : null}
+                {d.mixCode ? <span className="text-muted" data-testid="delivery-mix">mix {d.mixCode}</span> : null}
                 <span className="text-muted" data-testid="delivery-batch-day">
                   {formatDay(dayOf(d.batchedAt))}
                 </span>
                 {d.status === "rejected" ? <StateBadge kind="delivery" code="rejected" testId="delivery-rejected" /> : null}
                 {canWrite ? (
-                <Button variant="ghost" className="ml-auto" data-testid="edit-delivery" onClick={() => setEditing(d.id)} aria-label={`Edit ticket ${str(d.ticketNumber)}`}>
+                <Button variant="ghost" className="ml-auto" data-testid="edit-delivery" onClick={() => setEditing(d.id)} aria-label={`Edit ticket ${d.ticketNumber}`}>
                   <Pencil className="h-4 w-4" aria-hidden="true" /> Edit
                 </Button>
                 ) : null}
               </div>
               <p className="mt-1 text-base">
-                {num(d.volumeM3) !== undefined ? formatVolume(num(d.volumeM3)!, units) : "—"} · batched {when(d.batchedAt)} · arrived {when(d.arrivedAt)}
+                {typeof d.volumeM3 === "number" ? formatVolume(d.volumeM3, units) : "—"} · batched {when(d.batchedAt)} · arrived {when(d.arrivedAt)}
                 {d.dischargeFinishedAt ? ` · discharged by ${when(d.dischargeFinishedAt)}` : ""}
                 {typeof d.revolutions === "number" ? ` · ${d.revolutions} revolutions` : ""}
               </p>
-              {num(d.waterAddedL) ? (
+              {d.waterAddedL ? (
                 <p className="text-sm">
-                  Water added {formatWaterVolume(num(d.waterAddedL)!, units)}
-                  {d.waterAddedBy ? ` by ${str(d.waterAddedBy)}` : ""}
-                  {d.waterAuthorisedBy ? `, authorised by ${str(d.waterAuthorisedBy)}` : ", authorisation not recorded"}
+                  Water added {formatWaterVolume(d.waterAddedL, units)}
+                  {d.waterAddedBy ? ` by ${d.waterAddedBy}` : ""}
+                  {d.waterAuthorisedBy ? `, authorised by ${d.waterAuthorisedBy}` : ", authorisation not recorded"}
                 </p>
               ) : null}
-              {d.admixtureNote ? <p className="text-sm">Admixture: {str(d.admixtureNote)}</p> : null}
+              {d.admixtureNote ? <p className="text-sm">Admixture: {d.admixtureNote}</p> : null}
               <div className="mt-2">
-                <DeliveryChecks found={found} times={{ batchedAt: str(d.batchedAt) || null, dischargeFinishedAt: str(d.dischargeFinishedAt) || null, status: str(d.status) }} project={project} />
+                <DeliveryChecks found={found} times={{ batchedAt: d.batchedAt || null, dischargeFinishedAt: (d.dischargeFinishedAt ?? "") || null, status: d.status }} project={project} />
               </div>
               <RecordPhotos projectId={project.id} recordType="deliveries" recordId={d.id} canAdd={canAddPhotos(project, placement)} title="Truck photos" />
               {editing === d.id ? <DeliveryForm placement={placement} project={project} checks={checks} existing={d} onDone={() => setEditing(null)} /> : null}

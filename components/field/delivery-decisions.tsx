@@ -11,10 +11,9 @@ import { StateBadge } from "@/components/ui/state-badge";
 import type { Finding } from "@/lib/checks";
 import type { LocalRecord } from "@/lib/sync/client";
 import { DELIVERY_STATUS_WORDS, PLACEMENT_MOVE_WORDS } from "@/lib/ui/vocabulary";
-import { str } from "./common";
 
-export function NotClearedQuestion({ placement, input, error }: { placement: LocalRecord; input: React.InputHTMLAttributes<HTMLInputElement>; error?: string }) {
-  const state = str(placement.state);
+export function NotClearedQuestion({ placement, input, error }: { placement: LocalRecord<"placements">; input: React.InputHTMLAttributes<HTMLInputElement>; error?: string }) {
+  const state = placement.state;
   return (
     <Notice tone="caution" title="This placement is not cleared to place" className="sm:col-span-2" testId="delivery-not-cleared">
       <p className="flex flex-wrap items-center gap-2">

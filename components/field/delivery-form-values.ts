@@ -1,7 +1,7 @@
 // The truck form's values: what a stored ticket shows in the inputs (project units, project clock).
 import type { UnitSystem } from "@/lib/concrete";
 import type { LocalRecord } from "@/lib/sync/client";
-import { fromSI, str } from "./common";
+import { fromSI } from "./common";
 import { clockOf } from "./delivery-times";
 
 export type Values = {
@@ -28,23 +28,23 @@ export type Values = {
 
 export const FIELD_OF: Record<string, keyof Values> = { volumeM3: "volume", waterAddedL: "water" };
 
-export function valuesOf(d: LocalRecord | null, units: UnitSystem, timeZone: string): Values {
+export function valuesOf(d: LocalRecord<"deliveries"> | null, units: UnitSystem, timeZone: string): Values {
   const { clock, date } = clockOf(d ?? {}, timeZone);
   return {
-    ticketNumber: str(d?.ticketNumber),
-    truck: str(d?.truck),
+    ticketNumber: (d?.ticketNumber ?? ""),
+    truck: (d?.truck ?? ""),
     volume: d ? fromSI("volume", d.volumeM3, units) : "",
-    mixCode: str(d?.mixCode),
+    mixCode: (d?.mixCode ?? ""),
     batchDate: date ?? "",
     ...clock,
     revolutions: typeof d?.revolutions === "number" ? String(d.revolutions) : "",
     water: d ? fromSI("waterVolume", d.waterAddedL, units, 1) : "",
-    waterAddedBy: str(d?.waterAddedBy),
-    waterAuthorisedBy: str(d?.waterAuthorisedBy),
-    admixtureNote: str(d?.admixtureNote),
+    waterAddedBy: (d?.waterAddedBy ?? ""),
+    waterAuthorisedBy: (d?.waterAuthorisedBy ?? ""),
+    admixtureNote: (d?.admixtureNote ?? ""),
     status: d?.status === "rejected" ? "rejected" : "accepted",
-    rejectReason: str(d?.rejectReason),
-    notClearedReason: str(d?.notClearedReason),
+    rejectReason: (d?.rejectReason ?? ""),
+    notClearedReason: (d?.notClearedReason ?? ""),
   };
 }
 

@@ -26,9 +26,9 @@ export function DeliveryForm({
   checks,
   onDone,
 }: {
-  placement: LocalRecord;
+  placement: LocalRecord<"placements">;
   project: ProjectRow;
-  existing: LocalRecord | null;
+  existing: LocalRecord<"deliveries"> | null;
   checks: FieldFindings | undefined;
   onDone: () => void;
 }) {

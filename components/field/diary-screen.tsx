@@ -16,17 +16,17 @@ import { formatTemperature } from "@/lib/concrete";
 import { createLocal, deleteLocal, listByParent, listByProject, updateLocal, type LocalRecord, type ProjectRow, type RecordType } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { Section, addDays, mayWrite, dateInZone, num, str, unitSystemOf, useFieldContext, useProjects, writeErrorOf } from "./common";
+import { Section, addDays, mayWrite, dateInZone, unitSystemOf, useFieldContext, useProjects, writeErrorOf } from "./common";
 import { calendarDateText } from "@/lib/time/zone";
 
 type EntryValues = { weatherSummary: string; workDone: string; safetyNotes: string };
 
-function EntryForm({ project, date, entry, weatherHint, canWrite }: { project: ProjectRow; date: string; entry: LocalRecord | null; weatherHint: string; canWrite: boolean }) {
+function EntryForm({ project, date, entry, weatherHint, canWrite }: { project: ProjectRow; date: string; entry: LocalRecord<"diary-entries"> | null; weatherHint: string; canWrite: boolean }) {
   const db = useSyncDb();
   const [failure, setFailure] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const { register, handleSubmit, reset, formState } = useForm<EntryValues>({
-    values: { weatherSummary: str(entry?.weatherSummary) || (entry ? "" : weatherHint), workDone: str(entry?.workDone), safetyNotes: str(entry?.safetyNotes) },
+    values: { weatherSummary: (entry?.weatherSummary ?? "") || (entry ? "" : weatherHint), workDone: (entry?.workDone ?? ""), safetyNotes: (entry?.safetyNotes ?? "") },
     resetOptions: { keepDirtyValues: true },
   });
   useDirtyGuard(`diary-${project.id}-${date}`, formState.isDirty);
@@ -81,7 +81,7 @@ const LINES: LineSpec[] = [
       { key: "trade", label: "Trade" },
       { key: "count", label: "Workers", numeric: true, unit: "people" },
     ],
-    describe: (r) => `${str(r.trade)}: ${num(r.count) ?? 0} people`,
+    describe: (r) => `${(r.trade ?? "")}: ${r.count ?? 0} people`,
   },
   {
     type: "diary-equipment",
@@ -92,7 +92,7 @@ const LINES: LineSpec[] = [
       { key: "count", label: "How many", numeric: true, unit: "units" },
       { key: "hours", label: "Hours", numeric: true, unit: "h" },
     ],
-    describe: (r) => `${str(r.name)}${num(r.count) !== undefined ? ` × ${num(r.count)}` : ""}${num(r.hours) !== undefined ? ` · ${num(r.hours)} h` : ""}`,
+    describe: (r) => `${(r.name ?? "")}${typeof r.count === "number" ? ` × ${r.count}` : ""}${typeof r.hours === "number" ? ` · ${r.hours} h` : ""}`,
   },
   {
     type: "diary-delays",
@@ -103,7 +103,7 @@ const LINES: LineSpec[] = [
       { key: "minutes", label: "Lost", numeric: true, unit: "min" },
       { key: "description", label: "What happened" },
     ],
-    describe: (r) => `${str(r.cause)}: ${num(r.minutes) ?? 0} min${r.description ? ` · ${str(r.description)}` : ""}`,
+    describe: (r) => `${(r.cause ?? "")}: ${r.minutes ?? 0} min${r.description ? ` · ${r.description}` : ""}`,
   },
   {
     type: "diary-visitors",
@@ -114,11 +114,11 @@ const LINES: LineSpec[] = [
       { key: "company", label: "Company" },
       { key: "purpose", label: "Purpose" },
     ],
-    describe: (r) => [str(r.name), str(r.company), str(r.purpose)].filter(Boolean).join(" · "),
+    describe: (r) => [(r.name ?? ""), (r.company ?? ""), (r.purpose ?? "")].filter(Boolean).join(" · "),
   },
 ];
 
-function Lines({ spec, entry, canWrite }: { spec: LineSpec; entry: LocalRecord; canWrite: boolean }) {
+function Lines({ spec, entry, canWrite }: { spec: LineSpec; entry: LocalRecord<"diary-entries">; canWrite: boolean }) {
   const db = useSyncDb();
   const rows = useLiveQuery(() => listByParent(db, spec.type, "diaryEntryId", entry.id), [db, entry.id, spec.type]);
   const [failure, setFailure] = useState<string | null>(null);
@@ -128,7 +128,7 @@ function Lines({ spec, entry, canWrite }: { spec: LineSpec; entry: LocalRecord; 
     setFailure(null);
     const values: Record<string, unknown> = { diaryEntryId: entry.id };
     for (const f of spec.fields) {
-      const text = (v[f.key] ?? "").trim();
+      const text = v[f.key].trim();
       if (f.numeric) values[f.key] = text === "" ? (f.key === "count" && spec.type === "diary-crew" ? undefined : null) : Number(text);
       else if (text) values[f.key] = text;
     }
@@ -184,8 +184,8 @@ export function DiaryScreen() {
   );
   const weatherHint = useLiveQuery(async () => {
     if (!project) return "";
-    const obs = (await listByProject(db, "weather-observations", project.id)).filter((o) => dateInZone(new Date(str(o.observedAt)), project.timeZone) === date);
-    const temps = obs.map((o) => num(o.airTempC)).filter((t): t is number => t !== undefined);
+    const obs = (await listByProject(db, "weather-observations", project.id)).filter((o) => dateInZone(new Date(o.observedAt), project.timeZone) === date);
+    const temps = obs.map((o) => o.airTempC);
     if (temps.length === 0) return "";
     const units = unitSystemOf(project);
     return `Air ${formatTemperature(Math.min(...temps), units)} to ${formatTemperature(Math.max(...temps), units)}; ${obs.length} ${obs.length === 1 ? "observation" : "observations"}`;

@@ -13,15 +13,15 @@ import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/
 import { writeTx } from "@/lib/sync/client/mutate";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { NowInput, fromLocalInput, parseNumber, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { VerdictLine, verdictsOf, type Results } from "./field-test-verdicts";
 import { draftFindings } from "./findings-model";
 import { FormFooter } from "./form-footer";
 import type { FieldFindings } from "./use-findings";
 
 /** The usual breaks: 7 days, and the mix's design age (28 days unless the mix says otherwise). */
-function defaultTestAges(mix: LocalRecord | null): string {
-  const design = num(mix?.fcAgeDays) ?? 28;
+function defaultTestAges(mix: LocalRecord<"mix-designs"> | null): string {
+  const design = mix?.fcAgeDays ?? 28;
   return [...new Set([7, design])].sort((a, b) => a - b).join(", ");
 }
 
@@ -63,10 +63,10 @@ export function FieldTestForm({
   checks,
   onDone,
 }: {
-  placement: LocalRecord;
+  placement: LocalRecord<"placements">;
   project: ProjectRow;
-  mix: LocalRecord | null;
-  deliveries: LocalRecord[];
+  mix: LocalRecord<"mix-designs"> | null;
+  deliveries: LocalRecord<"deliveries">[];
   checks: FieldFindings | undefined;
   onDone: () => void;
 }) {
@@ -105,9 +105,9 @@ export function FieldTestForm({
   const batchMassKg = massText !== null && Number.isFinite(massText) ? (units === "SI" ? massText : massText * 0.45359237) : null;
   const delivery = deliveries.find((d) => d.id === v.deliveryId);
   let yieldText: string | null = null;
-  if (densitySI && batchMassKg && num(delivery?.volumeM3)) {
+  if (densitySI && batchMassKg && delivery?.volumeM3) {
     try {
-      const y = concreteYield({ batchMassKg, densityKgM3: densitySI, designVolumeM3: num(delivery?.volumeM3)! });
+      const y = concreteYield({ batchMassKg, densityKgM3: densitySI, designVolumeM3: delivery.volumeM3 });
       yieldText = `Yield ${formatVolume(y.volumeM3, units)}, relative yield ${y.relativeYield.toFixed(3)} (ASTM C138)`;
     } catch {
       yieldText = null;
@@ -164,7 +164,7 @@ export function FieldTestForm({
           <option value="">Not linked to a truck</option>
           {deliveries.map((d, i) => (
             <option key={d.id} value={d.id}>
-              #{i + 1} · ticket {str(d.ticketNumber)}
+              #{i + 1} · ticket {d.ticketNumber}
             </option>
           ))}
         </select>

@@ -13,7 +13,7 @@ type Verdicts = { slump?: { ok: boolean; range: string }; air?: { ok: boolean; r
  * of that rule on this test means out of range). The ranges are the rulebook's too: the mix's own
  * tolerance, else ASTM C94's, and the maximum temperature of the mix, else the project.
  */
-export function verdictsOf(found: Finding[], results: Results, mix: LocalRecord | null, project: ProjectRow, units: UnitSystem): Verdicts {
+export function verdictsOf(found: Finding[], results: Results, mix: LocalRecord<"mix-designs"> | null, project: ProjectRow, units: UnitSystem): Verdicts {
   const out: Verdicts = {};
   const m = mix ? toCheckMix(mix) : null;
   const has = (rule: Finding["rule"]) => found.some((f) => f.rule === rule);

@@ -9,14 +9,14 @@ import { Button } from "@/components/ui/button";
 import { formatDensity, formatLength, formatTemperature } from "@/lib/concrete";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { Section, mayWrite, byTime, formatTime, num, str, unitSystemOf } from "./common";
+import { Section, mayWrite, byTime, formatTime, unitSystemOf } from "./common";
 import { deliveryOrder } from "./deliveries";
 import { FieldTestForm } from "./field-test-form";
 import { VerdictLine, verdictsOf, type Results } from "./field-test-verdicts";
 import { findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 
-export function FieldTests({ placement, project, mix, checks }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null; checks: FieldFindings | undefined }) {
+export function FieldTests({ placement, project, mix, checks }: { placement: LocalRecord<"placements">; project: ProjectRow; mix: LocalRecord<"mix-designs"> | null; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const deliveries = useLiveQuery(async () => (await listByParent(db, "deliveries", "placementId", placement.id)).sort(deliveryOrder), [db, placement.id]);
@@ -40,7 +40,7 @@ export function FieldTests({ placement, project, mix, checks }: { placement: Loc
       {(tests ?? []).length === 0 && !adding ? <p className="text-muted">No tests yet.{canWrite ? "" : " The inspector records them."}</p> : null}
       <ul className="mt-3 flex flex-col gap-3">
         {(tests ?? []).map((t) => {
-          const results: Results = { slumpMm: num(t.slumpMm), airPct: num(t.airPct), concreteTempC: num(t.concreteTempC) };
+          const results: Results = { slumpMm: t.slumpMm ?? undefined, airPct: t.airPct ?? undefined, concreteTempC: t.concreteTempC ?? undefined };
           const found = findingsFor(checks?.findings ?? [], "field-test", t.id);
           const verdicts = checks ? verdictsOf(found, results, mix, project, units) : {};
           const truckIndex = (deliveries ?? []).findIndex((d) => d.id === t.deliveryId);
@@ -48,7 +48,7 @@ export function FieldTests({ placement, project, mix, checks }: { placement: Loc
             <li key={t.id} className="rounded-lg border border-ink-200 p-3" data-testid="field-test-row">
               <p className="flex items-center gap-2 font-bold">
                 <FlaskConical className="h-5 w-5 text-ink-600" aria-hidden="true" />
-                {truckIndex >= 0 ? `Truck #${truckIndex + 1} (ticket ${str((deliveries ?? [])[truckIndex].ticketNumber)})` : "Sample"} · {formatTime(t.sampledAt, project.timeZone)}
+                {truckIndex >= 0 ? `Truck #${truckIndex + 1} (ticket ${(deliveries ?? [])[truckIndex].ticketNumber})` : "Sample"} · {formatTime(t.sampledAt, project.timeZone)}
               </p>
               <dl className="mt-2 grid gap-2 sm:grid-cols-2">
                 {results.slumpMm !== undefined ? (
@@ -75,21 +75,21 @@ export function FieldTests({ placement, project, mix, checks }: { placement: Loc
                     </dd>
                   </div>
                 ) : null}
-                {num(t.airTempC) !== undefined ? (
+                {typeof t.airTempC === "number" ? (
                   <div>
                     <dt className="text-sm text-muted">Air temperature</dt>
-                    <dd className="text-lg font-semibold">{formatTemperature(num(t.airTempC)!, units)}</dd>
+                    <dd className="text-lg font-semibold">{formatTemperature(t.airTempC, units)}</dd>
                   </div>
                 ) : null}
-                {num(t.densityKgM3) !== undefined ? (
+                {typeof t.densityKgM3 === "number" ? (
                   <div>
                     <dt className="text-sm text-muted">Density</dt>
-                    <dd className="text-lg font-semibold">{formatDensity(num(t.densityKgM3)!, units)}</dd>
+                    <dd className="text-lg font-semibold">{formatDensity(t.densityKgM3, units)}</dd>
                   </div>
                 ) : null}
               </dl>
-              {t.testedBy ? <p className="mt-1 text-sm" data-testid="field-test-tester">Tested by {str(t.testedBy)}</p> : null}
-              {t.notes ? <p className="mt-1 text-sm">{str(t.notes)}</p> : null}
+              {t.testedBy ? <p className="mt-1 text-sm" data-testid="field-test-tester">Tested by {t.testedBy}</p> : null}
+              {t.notes ? <p className="mt-1 text-sm">{t.notes}</p> : null}
               <FindingList findings={found} className="mt-2" testId="field-test-warning" />
               <RecordPhotos projectId={project.id} recordType="field-tests" recordId={t.id} canAdd={canAddPhotos(project, placement)} title="Test photos" />
             </li>

@@ -18,7 +18,8 @@ import { StateBadge } from "@/components/ui/state-badge";
 import type { PlacementState } from "@/lib/records/enums";
 import { getRecord, transitionLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { Section, formatDateTime, num, str, unitSystemOf, useProject, writeErrorOf } from "./common";
+import { Section, formatDateTime, unitSystemOf, useProject } from "./common";
+import { useDeviceWrite } from "./use-device-write";
 import { ConcreteInPlace } from "@/components/inspection/concrete-in-place";
 import { HoldBanner } from "@/components/inspection/hold-banner";
 import { OpenFindings } from "@/components/findings/open-findings";
@@ -32,25 +33,21 @@ import { FieldTests } from "./field-tests";
 import { useFindings } from "./use-findings";
 import { WeatherWatch } from "./weather-watch";
 
-function Transitions({ placement, project, readyBlockedBy = [] }: { placement: LocalRecord; project: ProjectRow; readyBlockedBy?: string[] }) {
+function Transitions({ placement, project, readyBlockedBy = [] }: { placement: LocalRecord<"placements">; project: ProjectRow; readyBlockedBy?: string[] }) {
   const db = useSyncDb();
-  const state = str(placement.state) as PlacementState;
+  const state = placement.state as PlacementState;
   const role = (project.role ?? null) as ProjectRole | null;
   const allowed = allowedTransitions(state, role);
   const [holding, setHolding] = useState(false);
   const [reason, setReason] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
 
-  const move = async (to: PlacementState, why?: string) => {
-    setError(null);
-    try {
+  const move = (to: PlacementState, why?: string) =>
+    run(async () => {
       await transitionLocal(db, placement.id, to, why);
       setHolding(false);
       setReason("");
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
 
   return (
     <div className="mt-4 border-t border-ink-200 pt-3" data-testid="placement-transitions">
@@ -121,7 +118,7 @@ export function PlacementScreen() {
   // A signed placement is read-only for everyone: its sections see a role that writes nothing.
   const project = memberProject && placement?.state === "signed" ? { ...memberProject, role: "owner" as const } : memberProject;
   const mix = useLiveQuery(
-    async () => (placement?.mixId ? ((await getRecord(db, "mix-designs", str(placement.mixId))) ?? null) : null),
+    async () => (placement?.mixId ? ((await getRecord(db, "mix-designs", placement.mixId)) ?? null) : null),
     [db, placement?.mixId],
   );
 
@@ -142,8 +139,8 @@ export function PlacementScreen() {
     );
   }
   const units = unitSystemOf(project);
-  const volume = num(placement.plannedVolumeM3);
-  const least = num(placement.leastDimensionMm);
+  const volume = placement.plannedVolumeM3 ?? undefined;
+  const least = placement.leastDimensionMm ?? undefined;
 
   return (
     <div className="flex flex-col gap-4">
@@ -151,9 +148,9 @@ export function PlacementScreen() {
         {back}
         <div className="flex flex-wrap items-center gap-2">
           <h1 className="text-2xl font-bold tracking-tight text-ink-950" data-testid="placement-title">
-            {str(placement.element)}
+            {placement.element}
           </h1>
-          <StateBadge kind="placement" code={str(placement.state)} testId="placement-state" />
+          <StateBadge kind="placement" code={placement.state} testId="placement-state" />
         </div>
         <p className="text-muted">{project.name}</p>
       </div>
@@ -163,7 +160,7 @@ export function PlacementScreen() {
       <Section title="Plan" testId="placement-plan">
         <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-base">
           <dt className="text-sm text-muted">Location</dt>
-          <dd className="font-semibold">{[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "—"}</dd>
+          <dd className="font-semibold">{[placement.level, placement.grid].filter(Boolean).join(" · ") || "—"}</dd>
           <dt className="text-sm text-muted">Element type</dt>
           <dd className="font-semibold">{elementTypeLabel(placement.elementType)}</dd>
           <dt className="text-sm text-muted">Least dimension</dt>
@@ -171,7 +168,7 @@ export function PlacementScreen() {
           <dt className="text-sm text-muted">Planned volume</dt>
           <dd className="font-semibold">{volume !== undefined ? formatVolume(volume, units) : "—"}</dd>
           <dt className="text-sm text-muted">Mix</dt>
-          <dd className="font-semibold">{mix ? str(mix.code) : "Not chosen"}</dd>
+          <dd className="font-semibold">{mix ? mix.code : "Not chosen"}</dd>
           <dt className="text-sm text-muted">Planned start</dt>
           <dd className="font-semibold">{formatDateTime(placement.plannedStart, project.timeZone)}</dd>
         </dl>

@@ -11,7 +11,7 @@ import { ELEMENT_TYPE_LABELS } from "@/lib/ui/vocabulary";
 import { createLocal, listByProject, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { Section, fromLocalInput, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { Section, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 
 type Values = {
   element: string;
@@ -106,8 +106,8 @@ export function PlanPlacementForm({
             <option value="">Not chosen yet</option>
             {(mixes ?? []).map((m) => (
               <option key={m.id} value={m.id}>
-                {str(m.code)}
-                {m.supplier ? ` · ${str(m.supplier)}` : ""}
+                {m.code}
+                {m.supplier ? ` · ${m.supplier}` : ""}
               </option>
             ))}
           </select>

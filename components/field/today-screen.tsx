@@ -15,14 +15,14 @@ import { StateBadge } from "@/components/ui/state-badge";
 import { placementStateLabel, textClassOf } from "@/lib/ui/vocabulary";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, num, str, unitSystemOf, useFieldContext, useProjects } from "./common";
+import { CautionBadge, addDays, mayWrite, byTime, dateInZone, formatDateTime, unitSystemOf, useFieldContext, useProjects } from "./common";
 import { fieldFindings, placementFindings } from "./findings-model";
 import { PlanPlacementForm } from "./plan-placement-form";
 import { readFieldRecords } from "./use-findings";
 import { formatInstant } from "@/lib/time/zone";
 
 
-type Row = { placement: LocalRecord; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
+type Row = { placement: LocalRecord<"placements">; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
 
 export function TodayScreen() {
   const db = useSyncDb();
@@ -46,8 +46,8 @@ export function TodayScreen() {
       } catch {
         unchecked = true; // said on each card below, never hidden
       }
-      for (const placement of records.placements as LocalRecord[]) {
-        const day = dateInZone(new Date(str(placement.plannedStart)), project.timeZone);
+      for (const placement of records.placements) {
+        const day = dateInZone(new Date(placement.plannedStart), project.timeZone);
         if (day !== today && day !== tomorrow) continue;
         const warnings: string[] = [];
         if (placement.pending) warnings.push("Not yet sent");
@@ -110,7 +110,7 @@ export function TodayScreen() {
           <Notice tone="danger" icon="octagon-pause" title={`${placementStateLabel("held")} by the inspector: do not place`} className="mb-3" testId="today-hold-banner">
             {rows
               .filter((r) => r.placement.state === "held")
-              .map((r) => `${str(r.placement.element)}: ${str(r.placement.holdReason) || "no reason given"}`)
+              .map((r) => `${r.placement.element}: ${(r.placement.holdReason ?? "") || "no reason given"}`)
               .join(" · ")}
           </Notice>
         ) : null}
@@ -120,8 +120,8 @@ export function TodayScreen() {
               .filter((r) => r.day === day)
               .map(({ placement, project, warnings, cold }, i) => {
                 const units = unitSystemOf(project);
-                const volume = num(placement.plannedVolumeM3);
-                const least = num(placement.leastDimensionMm);
+                const volume = placement.plannedVolumeM3 ?? undefined;
+                const least = placement.leastDimensionMm ?? undefined;
                 return (
                   <li key={placement.id} className="contents">
                     {i === 0 ? <h2 className="mt-2 text-sm font-bold uppercase tracking-wide text-ink-600 md:col-span-2">{day === "today" ? "Today" : "Tomorrow"}</h2> : null}
@@ -132,11 +132,11 @@ export function TodayScreen() {
                     >
                       <div className="min-w-0 flex-1">
                         <div className="flex flex-wrap items-center gap-2">
-                          <span className="text-lg font-bold text-ink-950">{str(placement.element)}</span>
-                          <StateBadge kind="placement" code={str(placement.state)} testId="placement-state" />
+                          <span className="text-lg font-bold text-ink-950">{placement.element}</span>
+                          <StateBadge kind="placement" code={placement.state} testId="placement-state" />
                         </div>
                         <p className="text-sm text-muted">
-                          {project.name} · {[str(placement.level), str(placement.grid)].filter(Boolean).join(" · ") || "no location"}
+                          {project.name} · {[placement.level, placement.grid].filter(Boolean).join(" · ") || "no location"}
                         </p>
                         <p className="mt-1 text-base text-ink-900">
                           {formatDateTime(placement.plannedStart, project.timeZone)}
@@ -145,7 +145,7 @@ export function TodayScreen() {
                         </p>
                         {placement.state === "held" ? (
                           <p className={`mt-2 text-base font-semibold ${textClassOf("placement", "held")}`} data-testid="today-hold-reason">
-                            {placementStateLabel("held")} by the inspector: {str(placement.holdReason) || "no reason given"}
+                            {placementStateLabel("held")} by the inspector: {(placement.holdReason ?? "") || "no reason given"}
                           </p>
                         ) : null}
                         {warnings.length > 0 ? (

@@ -6,7 +6,7 @@ import { writeErrorOf } from "./common";
 /** A save on this device: clears the last error, runs the write, and keeps its message when it fails. */
 export function useDeviceWrite() {
   const [error, setError] = useState<string | null>(null);
-  const run = async (write: () => Promise<void>) => {
+  const run = async (write: () => Promise<unknown>) => {
     setError(null);
     try {
       await write();

@@ -22,8 +22,8 @@ export function useNow(): Date {
   return now;
 }
 
-/** A project's rows as the rulebook reads them, from this device. */
-export async function readFieldRecords(db: SyncDb, project: ProjectRow): Promise<FieldRecords> {
+/** A project's rows as the rulebook reads them, from this device (each typed by its record type). */
+export async function readFieldRecords(db: SyncDb, project: ProjectRow) {
   const [mixes, placements, deliveries, fieldTests, weather, curing, specimenSets, breaks] = await Promise.all([
     listByProject(db, "mix-designs", project.id),
     listByProject(db, "placements", project.id),
@@ -34,7 +34,7 @@ export async function readFieldRecords(db: SyncDb, project: ProjectRow): Promise
     listByProject(db, "specimen-sets", project.id),
     listByProject(db, "breaks", project.id),
   ]);
-  return { project, mixes, placements, deliveries, fieldTests, weather, curing, specimenSets, breaks };
+  return { project, mixes, placements, deliveries, fieldTests, weather, curing, specimenSets, breaks } satisfies FieldRecords;
 }
 
 export type FieldFindings = {

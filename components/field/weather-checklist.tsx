@@ -4,12 +4,11 @@
 import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { ClipboardCheck } from "lucide-react";
-import { useState } from "react";
 import { RecordPhotos } from "@/components/photos/record-photos";
 import { Notice } from "@/components/ui/notice";
 import { listByParent, updateLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { str, writeErrorOf } from "./common";
+import { useDeviceWrite } from "./use-device-write";
 
 export const HOT_ITEMS: [string, string][] = [
   ["materials-cooled", "Materials cooled or shaded; retarder as the mix allows"],
@@ -31,23 +30,16 @@ export const COLD_ITEMS: [string, string][] = [
   ["cylinders-protected", "Test cylinders protected from freezing"],
 ];
 
-export function Checklist({ checklist, canWrite }: { checklist: LocalRecord; canWrite: boolean }) {
+export function Checklist({ checklist, canWrite }: { checklist: LocalRecord<"checklists">; canWrite: boolean }) {
   const db = useSyncDb();
   const items = useLiveQuery(() => listByParent(db, "checklist-items", "checklistId", checklist.id), [db, checklist.id]);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const order = (checklist.kind === "cold-weather" ? COLD_ITEMS : HOT_ITEMS).map(([key]) => key);
-  const sorted = [...(items ?? [])].sort((a, b) => order.indexOf(str(a.itemKey)) - order.indexOf(str(b.itemKey)));
-  const answer = async (item: LocalRecord, patch: Record<string, unknown>) => {
-    setError(null);
-    try {
-      await updateLocal(db, "checklist-items", item.id, patch);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const sorted = [...(items ?? [])].sort((a, b) => order.indexOf(a.itemKey) - order.indexOf(b.itemKey));
+  const answer = (item: LocalRecord<"checklist-items">, patch: Record<string, unknown>) => run(() => updateLocal(db, "checklist-items", item.id, patch));
   const done = sorted.filter((i) => i.answer).length;
   return (
-    <div className="mt-3 rounded-lg border border-ink-200 p-3" data-testid={`checklist-${str(checklist.kind)}`}>
+    <div className="mt-3 rounded-lg border border-ink-200 p-3" data-testid={`checklist-${checklist.kind}`}>
       <p className="flex items-center gap-2 text-lg font-bold">
         <ClipboardCheck className="h-5 w-5" aria-hidden="true" />
         {checklist.kind === "hot-weather" ? "Hot-weather checklist" : checklist.kind === "cold-weather" ? "Cold-weather checklist" : "Readiness checklist"}
@@ -58,8 +50,8 @@ export function Checklist({ checklist, canWrite }: { checklist: LocalRecord; can
       <ul className="mt-2 flex flex-col divide-y divide-ink-100">
         {sorted.map((item) => (
           <li key={item.id} className="py-2" data-testid="checklist-item">
-            <p className="font-semibold">{str(item.label)}</p>
-            <div className="mt-1 grid grid-cols-3 gap-2" role="group" aria-label={str(item.label)}>
+            <p className="font-semibold">{item.label}</p>
+            <div className="mt-1 grid grid-cols-3 gap-2" role="group" aria-label={item.label}>
               {(["yes", "no", "na"] as const).map((a) => (
                 <button
                   key={a}
@@ -79,15 +71,15 @@ export function Checklist({ checklist, canWrite }: { checklist: LocalRecord; can
             {/* Read-only (a signed placement, a reader's role): the note as text, wrapped in full, never cut off in a disabled box. */}
             {canWrite ? (
               <input
-                aria-label={`Note: ${str(item.label)}`}
+                aria-label={`Note: ${item.label}`}
                 placeholder="Note"
-                defaultValue={str(item.note)}
-                onBlur={(e) => e.target.value !== str(item.note) && void answer(item, { note: e.target.value || null })}
+                defaultValue={(item.note ?? "")}
+                onBlur={(e) => e.target.value !== (item.note ?? "") && void answer(item, { note: e.target.value || null })}
                 className="mt-2 min-h-touch w-full rounded-lg border border-ink-300 px-3"
               />
-            ) : str(item.note) ? (
+            ) : (item.note ?? "") ? (
               <p className="mt-2 whitespace-pre-wrap break-words text-base" data-testid="checklist-note">
-                {str(item.note)}
+                {(item.note ?? "")}
               </p>
             ) : null}
             <RecordPhotos projectId={checklist.projectId} recordType="checklist-items" recordId={item.id} canAdd={canWrite} />

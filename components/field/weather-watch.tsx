@@ -21,7 +21,8 @@ import { CHECKLIST_KINDS, SUN_EXPOSURES } from "@/lib/records/enums";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, num, parseNumber, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { useDeviceWrite } from "./use-device-write";
+import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, parseNumber, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
 import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";
@@ -37,7 +38,7 @@ const finite = (x: number | null): x is number => x !== null && Number.isFinite(
 /** The rulebook's verdict on one reading: the evaporation finding first, then hot weather. */
 const readingFindings = (findings: Finding[], id: string) => [...findingsFor(findings, "weather", id, "evaporation"), ...findingsFor(findings, "weather", id, "hot-weather")];
 
-function ObservationForm({ placement, project, checks, onDone }: { placement: LocalRecord; project: ProjectRow; checks: FieldFindings | undefined; onDone: () => void }) {
+function ObservationForm({ placement, project, checks, onDone }: { placement: LocalRecord<"placements">; project: ProjectRow; checks: FieldFindings | undefined; onDone: () => void }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
@@ -131,13 +132,13 @@ function DayChart({ points, units, highAt }: { points: { time: string; rate: num
   );
 }
 
-export function WeatherWatch({ placement, project, mix, checks }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null; checks: FieldFindings | undefined }) {
+export function WeatherWatch({ placement, project, mix, checks }: { placement: LocalRecord<"placements">; project: ProjectRow; mix: LocalRecord<"mix-designs"> | null; checks: FieldFindings | undefined }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const observations = useLiveQuery(async () => (await listByParent(db, "weather-observations", "placementId", placement.id)).sort(byTime("observedAt")), [db, placement.id]);
   const checklists = useLiveQuery(() => listByParent(db, "checklists", "placementId", placement.id), [db, placement.id]);
   const [adding, setAdding] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const [starting, setStarting] = useState(false);
   const canObserve = mayWrite(project, "weather.write");
   const canCheck = mayWrite(project, "checklist.write");
@@ -154,18 +155,14 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
   });
 
   const start = async (kind: "hot-weather" | "cold-weather") => {
-    setError(null);
     setStarting(true);
-    try {
+    await run(async () => {
       const { id } = await createLocal(db, "checklists", placement.projectId, { placementId: placement.id, kind });
       for (const [itemKey, label] of kind === "hot-weather" ? HOT_ITEMS : COLD_ITEMS) {
         await createLocal(db, "checklist-items", placement.projectId, { checklistId: id, itemKey, label });
       }
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    } finally {
-      setStarting(false);
-    }
+    });
+    setStarting(false);
   };
 
   return (
@@ -194,10 +191,10 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
               <CloudSun className="h-5 w-5 text-ink-600" aria-hidden="true" />
               <span className="font-bold">{formatDateTime(o.observedAt, project.timeZone)}</span>
               <span>
-                air {num(o.airTempC) !== undefined ? formatTemperature(num(o.airTempC)!, units) : "—"} · {num(o.relativeHumidityPct) ?? "—"} % RH · wind{" "}
-                {num(o.windKmh) !== undefined ? formatSpeed(num(o.windKmh)!, units) : "—"}
-                {num(o.concreteTempC) !== undefined ? ` · concrete ${formatTemperature(num(o.concreteTempC)!, units)}` : " · concrete not measured"}
-                {o.sun ? ` · ${str(o.sun)}` : ""}
+                air {typeof o.airTempC === "number" ? formatTemperature(o.airTempC, units) : "—"} · {o.relativeHumidityPct ?? "—"} % RH · wind{" "}
+                {typeof o.windKmh === "number" ? formatSpeed(o.windKmh, units) : "—"}
+                {typeof o.concreteTempC === "number" ? ` · concrete ${formatTemperature(o.concreteTempC, units)}` : " · concrete not measured"}
+                {o.sun ? ` · ${o.sun}` : ""}
               </span>
             </p>
             <div className="mt-2 flex flex-col gap-2">
@@ -230,7 +227,7 @@ export function WeatherWatch({ placement, project, mix, checks }: { placement: L
       <DayChart points={points} units={units} highAt={highAt} />
       {/* Only the weather checklists: the readiness check has its own section (one checklist, one place). */}
       {(checklists ?? [])
-        .filter((c) => WEATHER_KINDS.has(str(c.kind)))
+        .filter((c) => WEATHER_KINDS.has(c.kind))
         .map((c) => (
           <Checklist key={c.id} checklist={c} canWrite={canCheck} />
         ))}

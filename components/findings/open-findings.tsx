@@ -6,7 +6,7 @@ import { calendarDateText } from "@/lib/time/zone";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
-import { Section, str } from "@/components/field/common";
+import { Section } from "@/components/field/common";
 import { StateBadge } from "@/components/ui/state-badge";
 import { isOutstanding } from "@/lib/site-visits/lifecycle";
 import { listByProject, type LocalRecord } from "@/lib/sync/client";
@@ -14,14 +14,14 @@ import { useSyncDb } from "@/lib/sync/client/react";
 
 const SEVERITY_ORDER: Record<string, number> = { critical: 0, major: 1, minor: 2 };
 
-export function useOpenFindings(projectIds: string[], placementId?: string): LocalRecord[] | undefined {
+export function useOpenFindings(projectIds: string[], placementId?: string): LocalRecord<"findings">[] | undefined {
   const db = useSyncDb();
   const key = projectIds.join(",");
   return useLiveQuery(async () => {
     const rows = (await Promise.all(projectIds.map((id) => listByProject(db, "findings", id)))).flat();
     return rows
       .filter((f) => !f.deletedAt && isOutstanding(f.state) && (!placementId || f.placementId === placementId))
-      .sort((a, b) => (SEVERITY_ORDER[str(a.severity)] ?? 9) - (SEVERITY_ORDER[str(b.severity)] ?? 9) || str(a.dueDate).localeCompare(str(b.dueDate)));
+      .sort((a, b) => (SEVERITY_ORDER[a.severity] ?? 9) - (SEVERITY_ORDER[b.severity] ?? 9) || (a.dueDate ?? "").localeCompare((b.dueDate ?? "")));
   }, [db, key, placementId]);
 }
 
@@ -38,12 +38,12 @@ export function OpenFindings({ projectIds, placementId, title = "Open findings" 
       <ul className="flex flex-col gap-2">
         {rows.map((f) => (
           <li key={f.id}>
-            <Link href={`/field/visit?id=${str(f.siteVisitId)}#finding-${f.id}`} className="block rounded border border-ink-200 p-3 hover:bg-ink-50" data-testid="open-finding">
-              <span className="font-semibold text-ink-950">{str(f.description)}</span>
+            <Link href={`/field/visit?id=${f.siteVisitId}#finding-${f.id}`} className="block rounded border border-ink-200 p-3 hover:bg-ink-50" data-testid="open-finding">
+              <span className="font-semibold text-ink-950">{f.description}</span>
               <span className="mt-1 flex flex-wrap items-center gap-1.5 text-sm text-muted">
-                <StateBadge kind="finding-severity" code={str(f.severity)} size="sm" />
-                <StateBadge kind="finding" code={str(f.state)} size="sm" testId="open-finding-state" />
-                {[str(f.location), f.dueDate ? `due ${calendarDateText(str(f.dueDate))}` : ""].filter(Boolean).join(" · ")}
+                <StateBadge kind="finding-severity" code={f.severity} size="sm" />
+                <StateBadge kind="finding" code={f.state} size="sm" testId="open-finding-state" />
+                {[f.location, f.dueDate ? `due ${calendarDateText(f.dueDate)}` : ""].filter(Boolean).join(" · ")}
               </span>
             </Link>
           </li>

@@ -3,16 +3,16 @@
 // How much concrete a placement already has, in the project's units: a hold on work with trucks on it
 // stops the rest of the pour, not what is already in the forms, and the people deciding need the figure.
 import { useLiveQuery } from "dexie-react-hooks";
-import { num, unitSystemOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/common";
 import { formatVolume } from "@/lib/concrete";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 
-export function ConcreteInPlace({ placement, project, className }: { placement: LocalRecord; project: ProjectRow; className?: string }) {
+export function ConcreteInPlace({ placement, project, className }: { placement: LocalRecord<"placements">; project: ProjectRow; className?: string }) {
   const db = useSyncDb();
   const placed = useLiveQuery(async () => {
     const trucks = (await listByParent(db, "deliveries", "placementId", placement.id)).filter((d) => d.status !== "rejected" && !d.deletedAt);
-    return { trucks: trucks.length, volumeM3: trucks.reduce((sum, d) => sum + (num(d.volumeM3) ?? 0), 0) };
+    return { trucks: trucks.length, volumeM3: trucks.reduce((sum, d) => sum + (d.volumeM3 ?? 0), 0) };
   }, [db, placement.id]);
   if (!placed || placed.trucks === 0) return null;
   return (

@@ -3,13 +3,13 @@
 // A held placement says so at the top of its screen, in words, with the inspector's reason, so the
 // superintendent sees it before anything else (and before any truck is called).
 import clsx from "clsx";
-import { mayWrite, str } from "@/components/field/common";
+import { mayWrite } from "@/components/field/common";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { PLACEMENT_MOVE_WORDS, PLACEMENT_STATE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
 import { ConcreteInPlace } from "./concrete-in-place";
 
-export function HoldBanner({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+export function HoldBanner({ placement, project }: { placement: LocalRecord<"placements">; project: ProjectRow }) {
   if (placement.state !== "held") return null;
   const fixer = mayWrite(project, "placement.markReady");
   const held = PLACEMENT_STATE_WORDS.held;
@@ -22,7 +22,7 @@ export function HoldBanner({ placement, project }: { placement: LocalRecord; pro
           {held.label} by the inspector. Do not place.
         </p>
         <p className="mt-1 text-base font-semibold text-ink-950" data-testid="hold-reason-text">
-          {str(placement.holdReason) || "No reason was given."}
+          {(placement.holdReason ?? "") || "No reason was given."}
         </p>
         <ConcreteInPlace placement={placement} project={project} />
         <p className="mt-1 text-sm">

@@ -7,7 +7,8 @@ import clsx from "clsx";
 import { useLiveQuery } from "dexie-react-hooks";
 import { CircleAlert, CircleCheck, ClipboardCheck, OctagonAlert } from "lucide-react";
 import { useState } from "react";
-import { Section, mayWrite, str, writeErrorOf } from "@/components/field/common";
+import { Section, mayWrite } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { READINESS_ITEMS, readinessOrder, readinessVerdict, type ReadinessAnswer, type ReadinessVerdict } from "@/lib/placements/readiness";
@@ -15,20 +16,20 @@ import { createLocal, listByParent, updateLocal, type LocalRecord, type ProjectR
 import type { SyncDb } from "@/lib/sync/client/db";
 import { useSyncDb } from "@/lib/sync/client/react";
 
-export type Readiness = { checklist: LocalRecord | null; items: LocalRecord[]; verdict: ReadinessVerdict };
+export type Readiness = { checklist: LocalRecord<"checklists"> | null; items: LocalRecord<"checklist-items">[]; verdict: ReadinessVerdict };
 
 async function loadReadiness(db: SyncDb, placementId: string): Promise<Readiness> {
   const lists = (await listByParent(db, "checklists", "placementId", placementId))
     .filter((c) => c.kind === "readiness")
-    .sort((a, b) => str(a.createdAt).localeCompare(str(b.createdAt)) || a.id.localeCompare(b.id));
+    .sort((a, b) => (a.createdAt ?? "").localeCompare((b.createdAt ?? "")) || a.id.localeCompare(b.id));
   const checklist = lists[0] ?? null;
   const items = checklist
     ? (await listByParent(db, "checklist-items", "checklistId", checklist.id)).sort((a, b) =>
-        readinessOrder({ itemKey: str(a.itemKey), label: str(a.label) }, { itemKey: str(b.itemKey), label: str(b.label) }),
+        readinessOrder({ itemKey: a.itemKey, label: a.label }, { itemKey: b.itemKey, label: b.label }),
       )
     : [];
   const verdict = readinessVerdict(
-    checklist ? items.map((i) => ({ itemKey: str(i.itemKey), label: str(i.label), answer: (i.answer as ReadinessAnswer | null) ?? null, note: str(i.note) })) : null,
+    checklist ? items.map((i) => ({ itemKey: i.itemKey, label: i.label, answer: (i.answer as ReadinessAnswer | null) ?? null, note: (i.note ?? "") })) : null,
   );
   return { checklist, items, verdict };
 }
@@ -45,16 +46,16 @@ const ANSWERS: { value: ReadinessAnswer; label: string }[] = [
   { value: "na", label: "N/A" },
 ];
 
-function ItemRow({ item, editable, onChange }: { item: LocalRecord; editable: boolean; onChange: (patch: Record<string, unknown>) => void }) {
+function ItemRow({ item, editable, onChange }: { item: LocalRecord<"checklist-items">; editable: boolean; onChange: (patch: Record<string, unknown>) => void }) {
   const answer = item.answer as ReadinessAnswer | null;
-  const note = str(item.note);
+  const note = (item.note ?? "");
   const needsNote = (answer === "no" || answer === "na") && !note.trim();
   return (
-    <li className="py-3" data-testid="readiness-item" data-item-key={str(item.itemKey)} data-answer={answer ?? ""}>
-      <p className="font-semibold text-ink-950">{str(item.label)}</p>
+    <li className="py-3" data-testid="readiness-item" data-item-key={item.itemKey} data-answer={answer ?? ""}>
+      <p className="font-semibold text-ink-950">{item.label}</p>
       {editable ? (
         <>
-          <div className="mt-2 grid grid-cols-3 gap-2" role="group" aria-label={str(item.label)}>
+          <div className="mt-2 grid grid-cols-3 gap-2" role="group" aria-label={item.label}>
             {ANSWERS.map((a) => (
               <button
                 key={a.value}
@@ -77,7 +78,7 @@ function ItemRow({ item, editable, onChange }: { item: LocalRecord; editable: bo
           </div>
           <input
             key={note}
-            aria-label={`Note: ${str(item.label)}`}
+            aria-label={`Note: ${item.label}`}
             placeholder={answer === "no" ? "What is wrong, and what is being done" : answer === "na" ? "Why it does not apply" : "Note (optional)"}
             defaultValue={note}
             data-testid="readiness-note"
@@ -121,37 +122,26 @@ export function AnswerBadge({ answer }: { answer: ReadinessAnswer | null }) {
 const EDITABLE_STATES = new Set(["planned", "held"]);
 const FINISHED_STATES = new Set(["cleared", "placing", "placed", "signed"]);
 
-export function ReadinessCheck({ placement, project, readiness }: { placement: LocalRecord; project: ProjectRow; readiness: Readiness | undefined }) {
+export function ReadinessCheck({ placement, project, readiness }: { placement: LocalRecord<"placements">; project: ProjectRow; readiness: Readiness | undefined }) {
   const db = useSyncDb();
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const [starting, setStarting] = useState(false);
-  const state = str(placement.state);
+  const state = placement.state;
   const canWrite = mayWrite(project, "checklist.write");
   const editable = canWrite && EDITABLE_STATES.has(state);
   const reviewing = state === "ready" && mayWrite(project, "placement.review");
 
   const start = async () => {
-    setError(null);
     setStarting(true);
-    try {
+    await run(async () => {
       const { id } = await createLocal(db, "checklists", placement.projectId, { placementId: placement.id, kind: "readiness" });
       for (const { itemKey, label } of READINESS_ITEMS) {
         await createLocal(db, "checklist-items", placement.projectId, { checklistId: id, itemKey, label });
       }
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    } finally {
-      setStarting(false);
-    }
+    });
+    setStarting(false);
   };
-  const change = async (item: LocalRecord, patch: Record<string, unknown>) => {
-    setError(null);
-    try {
-      await updateLocal(db, "checklist-items", item.id, patch);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const change = (item: LocalRecord<"checklist-items">, patch: Record<string, unknown>) => run(() => updateLocal(db, "checklist-items", item.id, patch));
 
   if (readiness === undefined) return null;
   const { checklist, items, verdict } = readiness;

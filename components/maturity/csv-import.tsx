@@ -18,7 +18,7 @@ const zones = (projectZone: string): string[] => {
 };
 
 /** Preview → pick columns, unit, zone → check (bad rows listed) → confirm; nothing is stored before the confirm. */
-export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord; project: ProjectRow; onDone: () => void }) {
+export function CsvImport({ sensor, project, onDone }: { sensor: LocalRecord<"temperature-sensors">; project: ProjectRow; onDone: () => void }) {
   const db = useSyncDb();
   const worker = useRef<Worker | null>(null);
   const onPage = useRef<{ table: null | Parameters<typeof answer>[1]["table"] } | null>(null);

@@ -21,7 +21,7 @@ async function loadRecords(db: SyncDb, placementId: string, mixId: string | null
   const breaks: MixBreak[] = [];
   const loggerIds = new Set<string>();
   if (mixId) {
-    const placements = (await db.records("placements").where("mixId").equals(mixId).toArray()).filter((p) => !p.deletedAt);
+    const placements = (await db.typedRecords("placements").where("mixId").equals(mixId).toArray()).filter((p) => !p.deletedAt);
     for (const p of placements) {
       for (const set of await listByParent(db, "specimen-sets", "placementId", p.id)) {
         const sensorId = typeof set.sensorId === "string" ? set.sensorId : null;
@@ -35,13 +35,13 @@ async function loadRecords(db: SyncDb, placementId: string, mixId: string | null
     }
   }
   // The loggers cured with the mix's sets (any placement), with every reading: the calibration's maturities.
-  const loggerSensors = (await db.records("temperature-sensors").bulkGet([...loggerIds])).filter((s): s is LocalRecord => s !== undefined);
+  const loggerSensors = (await db.typedRecords("temperature-sensors").bulkGet([...loggerIds])).filter((s) => s !== undefined);
   const loggerBatches = (await Promise.all(loggerSensors.map((s) => listByParent(db, "sensor-readings", "sensorId", s.id)))).flat();
   return { sensors, batches, breaks, loggers: { sensors: loggerSensors, batches: loggerBatches } };
 }
 
 /** The placement's temperature record and in-place strength estimate, on the phone, offline. */
-export function FieldMaturity({ placement, project, mix }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null }) {
+export function FieldMaturity({ placement, project, mix }: { placement: LocalRecord<"placements">; project: ProjectRow; mix: LocalRecord<"mix-designs"> | null }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const mixId = typeof placement.mixId === "string" ? placement.mixId : null;

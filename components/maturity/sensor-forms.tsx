@@ -4,7 +4,7 @@ import { FileUp, Plus, Thermometer } from "lucide-react";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { FormFooter } from "@/components/field/form-footer";
-import { NowInput, fromLocalInput, num, str, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "@/components/field/common";
+import { NowInput, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "@/components/field/common";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { createLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
@@ -14,7 +14,7 @@ import { CsvImport } from "./csv-import";
 
 type SensorValues = { name: string; location: string; interval: string };
 
-export function SensorForm({ placement, onDone }: { placement: LocalRecord; onDone: () => void }) {
+export function SensorForm({ placement, onDone }: { placement: LocalRecord<"placements">; onDone: () => void }) {
   const db = useSyncDb();
   const [failure, setFailure] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<SensorValues>({ defaultValues: { name: "", location: "", interval: "" } });
@@ -48,7 +48,7 @@ export function SensorForm({ placement, onDone }: { placement: LocalRecord; onDo
 
 type ReadingValues = { at: string; temp: string };
 
-function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord; project: ProjectRow; onDone: () => void }) {
+function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord<"temperature-sensors">; project: ProjectRow; onDone: () => void }) {
   const db = useSyncDb();
   const units = unitSystemOf(project);
   const [failure, setFailure] = useState<string | null>(null);
@@ -75,16 +75,16 @@ function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord; project
   );
 }
 
-export function SensorRow({ sensor, project, canWrite, readings }: { sensor: LocalRecord; project: ProjectRow; canWrite: boolean; readings: number }) {
+export function SensorRow({ sensor, project, canWrite, readings }: { sensor: LocalRecord<"temperature-sensors">; project: ProjectRow; canWrite: boolean; readings: number }) {
   const [mode, setMode] = useState<"idle" | "reading" | "import">("idle");
-  const interval = num(sensor.loggingIntervalMinutes);
+  const interval = sensor.loggingIntervalMinutes;
   return (
-    <li className="rounded-lg border border-ink-200 p-3" data-testid="sensor-row" data-sensor={str(sensor.name)}>
+    <li className="rounded-lg border border-ink-200 p-3" data-testid="sensor-row" data-sensor={sensor.name}>
       <div className="flex flex-wrap items-center gap-2">
         <Thermometer className="h-5 w-5 text-ink-600" aria-hidden="true" />
-        <span className="text-lg font-bold">{str(sensor.name)}</span>
+        <span className="text-lg font-bold">{sensor.name}</span>
         <span className="text-sm text-muted">
-          {[str(sensor.location), interval ? `every ${interval} min` : "hand readings", `${readings} reading${readings === 1 ? "" : "s"}`].filter(Boolean).join(" · ")}
+          {[sensor.location, interval ? `every ${interval} min` : "hand readings", `${readings} reading${readings === 1 ? "" : "s"}`].filter(Boolean).join(" · ")}
         </span>
         {canWrite && mode === "idle" ? (
           <span className="ml-auto flex gap-2">

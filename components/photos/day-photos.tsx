@@ -12,7 +12,7 @@ export function DayPhotos({ projectId, date, timeZone, canEdit }: { projectId: s
   const db = useSyncDb();
   const photos = useLiveQuery(
     async () =>
-      (await db.records("photos").where("projectId").equals(projectId).toArray())
+      (await db.typedRecords("photos").where("projectId").equals(projectId).toArray())
         .filter((p) => !p.deletedAt)
         .filter((p) => {
           const when = new Date(String(p.takenAt ?? p.createdAt ?? ""));

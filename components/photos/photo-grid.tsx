@@ -11,7 +11,7 @@ import { PhotoStateBadge } from "./photo-badge";
 import { PhotoViewer } from "./photo-viewer";
 import { usePhotoSource } from "./use-photo-source";
 
-function Thumb({ photo, blob, progress, onOpen }: { photo: LocalRecord; blob: BlobRow | undefined; progress?: number; onOpen: () => void }) {
+function Thumb({ photo, blob, progress, onOpen }: { photo: LocalRecord<"photos">; blob: BlobRow | undefined; progress?: number; onOpen: () => void }) {
   const source = usePhotoSource(photo, blob, "thumb");
   const badge = photoBadge(photo, blob, progress);
   const caption = typeof photo.caption === "string" && photo.caption ? photo.caption : null;
@@ -40,7 +40,7 @@ function Thumb({ photo, blob, progress, onOpen }: { photo: LocalRecord; blob: Bl
 }
 
 /** A grid of photos (already filtered by the caller); `canEdit` allows caption changes in the viewer. */
-export function PhotoGrid({ photos, canEdit, timeZone, testId }: { photos: LocalRecord[]; canEdit: boolean; timeZone?: string; testId?: string }) {
+export function PhotoGrid({ photos, canEdit, timeZone, testId }: { photos: LocalRecord<"photos">[]; canEdit: boolean; timeZone?: string; testId?: string }) {
   const db = useSyncDb();
   const progress = usePhotoProgress();
   const ids = photos.map((p) => p.id);
@@ -74,5 +74,5 @@ export function PhotoGrid({ photos, canEdit, timeZone, testId }: { photos: Local
 }
 
 /** Newest first would hide the first photo of a pour; the order they were taken reads like the day. */
-export const byTaken = (a: LocalRecord, b: LocalRecord) =>
+export const byTaken = (a: LocalRecord<"photos">, b: LocalRecord<"photos">) =>
   String(a.takenAt ?? a.createdAt ?? "").localeCompare(String(b.takenAt ?? b.createdAt ?? ""));

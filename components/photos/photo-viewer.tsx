@@ -27,7 +27,7 @@ export function PhotoViewer({
   timeZone,
   onClose,
 }: {
-  photo: LocalRecord;
+  photo: LocalRecord<"photos">;
   blob: BlobRow | undefined;
   progress?: number;
   canEdit: boolean;

@@ -13,11 +13,11 @@ import { AddPhoto } from "./add-photo";
 import { byTaken, PhotoGrid } from "./photo-grid";
 
 /** The photos of one record, on this device (synced or taken here), in the order they were taken. */
-export function useRecordPhotos(recordType: string, recordId: string): LocalRecord[] | undefined {
+export function useRecordPhotos(recordType: string, recordId: string): LocalRecord<"photos">[] | undefined {
   const db = useSyncDb();
   return useLiveQuery(
     async () =>
-      (await db.records("photos").where("[recordType+recordId]").equals([recordType, recordId]).toArray()).filter((p) => !p.deletedAt).sort(byTaken),
+      (await db.typedRecords("photos").where("[recordType+recordId]").equals([recordType, recordId]).toArray()).filter((p) => !p.deletedAt).sort(byTaken),
     [db, recordType, recordId],
   );
 }
@@ -26,7 +26,7 @@ export function useRecordPhotos(recordType: string, recordId: string): LocalReco
  * Whether this person may add photos here: "photo.add" on the project (owners only view), and not
  * on a signed placement (a later photo goes with an amendment).
  */
-export function canAddPhotos(project: ProjectRow | undefined, placement?: LocalRecord | null): boolean {
+export function canAddPhotos(project: ProjectRow | undefined, placement?: LocalRecord<"placements"> | null): boolean {
   const role = (project?.role ?? null) as ProjectRole | null;
   return !!role && can({ isAdmin: false }, "photo.add", role) && placement?.state !== "signed";
 }

@@ -45,7 +45,7 @@ function useObjectUrl(data: Blob | ArrayBuffer | null | undefined, type: string)
 export type PhotoSource = { src: string | null; from: "storage" | "device" | null; fullOnDevice: boolean };
 
 /** The picture to show: `size` "thumb" prefers the small local thumbnail when not from storage. */
-export function usePhotoSource(photo: LocalRecord, blob: BlobRow | undefined, size: "thumb" | "full"): PhotoSource {
+export function usePhotoSource(photo: LocalRecord<"photos">, blob: BlobRow | undefined, size: "thumb" | "full"): PhotoSource {
   const online = useOnline();
   const stored = Boolean(photo.storedAt);
   const [remote, setRemote] = useState<{ id: string; url: string | null } | null>(null);

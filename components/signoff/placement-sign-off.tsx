@@ -4,7 +4,7 @@
 // everyone sees the signed record. `project` carries the member's own role.
 import { FileSignature } from "lucide-react";
 import { useState } from "react";
-import { Section, mayWrite, num } from "@/components/field/common";
+import { Section, mayWrite } from "@/components/field/common";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
@@ -15,7 +15,7 @@ import { SignOffDialog } from "./lazy-sign-off-dialog";
 import { SignedRecord } from "./signed-record";
 import { signOffUrl } from "./use-sign-off";
 
-export function PlacementSignOff({ placement, project, mix }: { placement: LocalRecord; project: ProjectRow; mix: LocalRecord | null }) {
+export function PlacementSignOff({ placement, project, mix }: { placement: LocalRecord<"placements">; project: ProjectRow; mix: LocalRecord<"mix-designs"> | null }) {
   const summary = usePlacementSummary(placement, project, mix);
   const requestSync = useRequestSync();
   const [open, setOpen] = useState(false);
@@ -24,7 +24,7 @@ export function PlacementSignOff({ placement, project, mix }: { placement: Local
 
   if (placement.state === "signed") return <SignedRecord placement={placement} project={project} />;
   if (placement.state !== "placed" || !mayWrite(project, "placement.sign")) return null;
-  const version = num(placement.version) ?? 0;
+  const version = placement.version ?? 0;
   return (
     <Section title="Sign-off" testId="placement-sign-off">
       {justSigned ? (

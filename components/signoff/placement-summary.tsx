@@ -5,7 +5,7 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { RECONCILE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
-import { num, str, unitSystemOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/common";
 import { fieldFindings, placementFindings } from "@/components/field/findings-model";
 import { readFieldRecords } from "@/components/field/use-findings";
 import { GOVERNS, attention } from "@/lib/checks";
@@ -47,7 +47,7 @@ function countRaised(titles: string[]): { label: string; count: number }[] {
   return [...counts].map(([label, count]) => ({ label, count }));
 }
 
-async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow): Promise<PlacementSummary> {
+async function summarize(db: SyncDb, placement: LocalRecord<"placements">, project: ProjectRow): Promise<PlacementSummary> {
   const [deliveries, tests, sets, observations, curing, lists] = await Promise.all([
     listByParent(db, "deliveries", "placementId", placement.id),
     listByParent(db, "field-tests", "placementId", placement.id),
@@ -57,26 +57,26 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
     listByParent(db, "checklists", "placementId", placement.id),
   ]);
   const checklists = [];
-  const items: LocalRecord[] = [];
+  const items: LocalRecord<"checklist-items">[] = [];
   for (const list of lists) {
     const rows = await listByParent(db, "checklist-items", "checklistId", list.id);
     items.push(...rows);
-    checklists.push({ kind: str(list.kind), answered: rows.filter((r) => r.answer).length, total: rows.length, no: rows.filter((r) => r.answer === "no").length });
+    checklists.push({ kind: list.kind, answered: rows.filter((r) => r.answer).length, total: rows.length, no: rows.filter((r) => r.answer === "no").length });
   }
   const own = [placement, ...deliveries, ...tests, ...sets, ...observations, ...curing, ...lists, ...items];
   const ids = new Set(own.map((r) => r.id));
   // Photos are synced records: count every device's, not only the blobs this device holds.
   const [conflicts, photos] = await Promise.all([
     db.conflicts.filter((c) => ids.has(c.recordId)).toArray(),
-    db.records("photos").where("recordId").anyOf([...ids]).filter((p) => !p.deletedAt).toArray(),
+    db.typedRecords("photos").where("recordId").anyOf([...ids]).filter((p) => !p.deletedAt).toArray(),
   ]);
   const records = await readFieldRecords(db, project);
   const raised = attention(placementFindings(records, fieldFindings(records, new Date()), placement.id));
   return {
     trucks: deliveries.length,
     rejectedTrucks: deliveries.filter((d) => d.status === "rejected").length,
-    volumeM3: deliveries.filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (num(d.volumeM3) ?? 0), 0),
-    waterAddedTrucks: deliveries.filter((d) => (num(d.waterAddedL) ?? 0) > 0).length,
+    volumeM3: deliveries.filter((d) => d.status !== "rejected").reduce((sum, d) => sum + (d.volumeM3 ?? 0), 0),
+    waterAddedTrucks: deliveries.filter((d) => (d.waterAddedL ?? 0) > 0).length,
     tests: tests.length,
     raised: countRaised(raised.map((f) => f.title)),
     flagged: {
@@ -96,7 +96,7 @@ async function summarize(db: SyncDb, placement: LocalRecord, project: ProjectRow
   };
 }
 
-export function usePlacementSummary(placement: LocalRecord, project: ProjectRow, mix: LocalRecord | null): PlacementSummary | undefined {
+export function usePlacementSummary(placement: LocalRecord<"placements">, project: ProjectRow, mix: LocalRecord<"mix-designs"> | null): PlacementSummary | undefined {
   const db = useSyncDb();
   // The mix is read with the project's records; the parameter stays so a changed mix re-counts.
   return useLiveQuery(() => summarize(db, placement, project), [db, placement, project, mix]);

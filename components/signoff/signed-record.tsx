@@ -35,7 +35,7 @@ function HashLine({ hash, matches }: { hash: string; matches: boolean }) {
 }
 
 /** Late edits this device made to records of the signed placement: kept by the server, not applied. */
-function LateEdits({ placement }: { placement: LocalRecord }) {
+function LateEdits({ placement }: { placement: LocalRecord<"placements"> }) {
   const db = useSyncDb();
   const edits = useLiveQuery(async () => {
     const children = await Promise.all(
@@ -54,7 +54,7 @@ function LateEdits({ placement }: { placement: LocalRecord }) {
 }
 
 /** The signed placement's sign-off, verification and amendments. `project` is the member's own role. */
-export function SignedRecord({ placement, project }: { placement: LocalRecord; project: ProjectRow }) {
+export function SignedRecord({ placement, project }: { placement: LocalRecord<"placements">; project: ProjectRow }) {
   const online = useOnline();
   const verification = useVerification(project.id, placement.id, online);
   const [adding, setAdding] = useState(false);

@@ -13,7 +13,7 @@ import { createLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { placementName } from "./visit-model";
 
-export function AddFinding({ visit, placements }: { visit: LocalRecord; placements: LocalRecord[] }) {
+export function AddFinding({ visit, placements }: { visit: LocalRecord<"site-visits">; placements: LocalRecord<"placements">[] }) {
   const db = useSyncDb();
   const empty = { description: "", location: "", severity: "major", requirement: "", actionRequired: "", dueDate: "", placementId: "" };
   const [v, setV] = useState(empty);

@@ -9,7 +9,8 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { formatDateTime, str, writeErrorOf } from "@/components/field/common";
+import { formatDateTime } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { FindingState } from "@/lib/records/enums";
@@ -22,66 +23,62 @@ import { placementName } from "./visit-model";
 
 const NEEDS_LABEL = { response: "What was done to correct it", reason: "Why it is reopened" } as const;
 
-export function FindingCard({ finding, project, placements = [] }: { finding: LocalRecord; project: ProjectRow; placements?: LocalRecord[] }) {
+export function FindingCard({ finding, project, placements = [] }: { finding: LocalRecord<"findings">; project: ProjectRow; placements?: LocalRecord<"placements">[] }) {
   const db = useSyncDb();
-  const state = str(finding.state) as FindingState;
+  const state = finding.state as FindingState;
   const moves = allowedMoves("findings", state, (project.role ?? null) as ProjectRole | null);
   const [active, setActive] = useState<string | null>(null);
   const [text, setText] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   const move = moves.find((m) => m.to === active);
 
-  const submit = async (to: string) => {
-    const m = moves.find((x) => x.to === to);
-    setError(null);
-    try {
+  const submit = (to: string) =>
+    run(async () => {
+      const m = moves.find((x) => x.to === to);
       const arg = m?.needs === "response" ? { response: text.trim() } : m?.needs === "reason" ? { reason: text.trim() } : { note: text.trim() || undefined };
       await transitionSiteRecordLocal(db, "findings", finding.id, { to, ...arg });
       setActive(null);
       setText("");
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
 
   return (
     <li id={`finding-${finding.id}`} className="rounded border border-ink-200 p-3" data-testid="finding">
       <div className="flex flex-wrap items-center gap-2">
-        <span className="font-bold text-ink-950">{str(finding.description)}</span>
+        <span className="font-bold text-ink-950">{finding.description}</span>
         <StateBadge kind="finding" code={state} testId="finding-state" />
-        <StateBadge kind="finding-severity" code={str(finding.severity)} testId="finding-severity" />
+        <StateBadge kind="finding-severity" code={finding.severity} testId="finding-severity" />
       </div>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
         {finding.placementId ? (
           <>
             <dt className="text-muted">Placement</dt>
             <dd data-testid="finding-placement-name">
-              <Link href={`/field/placement?id=${str(finding.placementId)}`} className="font-semibold text-lichen-800 underline">
+              <Link href={`/field/placement?id=${finding.placementId}`} className="font-semibold text-lichen-800 underline">
                 {placementName(placements.find((p) => p.id === finding.placementId))}
               </Link>
             </dd>
           </>
         ) : null}
         <dt className="text-muted">Where</dt>
-        <dd>{str(finding.location) || "—"}</dd>
+        <dd>{finding.location || "—"}</dd>
         <dt className="text-muted">Requirement</dt>
-        <dd>{str(finding.requirement) || "—"}</dd>
+        <dd>{finding.requirement || "—"}</dd>
         <dt className="text-muted">Action required</dt>
-        <dd>{str(finding.actionRequired) || "—"}</dd>
+        <dd>{finding.actionRequired || "—"}</dd>
         <dt className="text-muted">By</dt>
-        <dd>{finding.dueDate ? calendarDateText(str(finding.dueDate)) : "—"}</dd>
+        <dd>{finding.dueDate ? calendarDateText(finding.dueDate) : "—"}</dd>
         {finding.response ? (
           <>
             <dt className="text-muted">Correction</dt>
             <dd data-testid="finding-response">
-              {str(finding.response)} <span className="text-muted">({formatDateTime(finding.answeredAt, project.timeZone)})</span>
+              {finding.response} <span className="text-muted">({formatDateTime(finding.answeredAt, project.timeZone)})</span>
             </dd>
           </>
         ) : null}
         {finding.reopenReason && state === "open" ? (
           <>
             <dt className="text-muted">Reopened</dt>
-            <dd>{str(finding.reopenReason)}</dd>
+            <dd>{finding.reopenReason}</dd>
           </>
         ) : null}
       </dl>

@@ -9,7 +9,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";
-import { writeErrorOf } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { createLocal, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { preselectedProject, projectToday, visitProjects } from "./visit-model";
@@ -20,7 +20,7 @@ export function NewVisit({ projects, shownId }: { projects: ProjectRow[]; shownI
   const writable = visitProjects(projects);
   const [open, setOpen] = useState(false);
   const [projectId, setProjectId] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const { error, run } = useDeviceWrite();
   if (writable.length === 0) return null;
   if (!open) {
     return (
@@ -35,17 +35,13 @@ export function NewVisit({ projects, shownId }: { projects: ProjectRow[]; shownI
       </Button>
     );
   }
-  const start = async () => {
-    const project = writable.find((p) => p.id === projectId);
-    if (!project) return setError("Choose the project this visit is on.");
-    setError(null);
-    try {
+  const start = () =>
+    run(async () => {
+      const project = writable.find((p) => p.id === projectId);
+      if (!project) throw new Error("Choose the project this visit is on.");
       const { id } = await createLocal(db, "site-visits", project.id, { visitDate: projectToday(project.timeZone) });
       router.push(`/field/visit?id=${id}`);
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+    });
   return (
     <form
       className="card flex w-full min-w-0 flex-col gap-3 p-4 sm:w-96"

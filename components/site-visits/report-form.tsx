@@ -13,7 +13,7 @@ import { updateLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { REPORT_FIELDS, reportPatch, reportValues, type ReportValues } from "./visit-model";
 
-export function ReportView({ visit, timeZone }: { visit: LocalRecord; timeZone: string }) {
+export function ReportView({ visit, timeZone }: { visit: LocalRecord<"site-visits">; timeZone: string }) {
   const v = reportValues(visit, timeZone);
   const onSite = v.arrived || v.left ? `${v.arrived || "—"} to ${v.left || "—"}` : "—";
   return (
@@ -34,7 +34,7 @@ export function ReportView({ visit, timeZone }: { visit: LocalRecord; timeZone: 
   );
 }
 
-export function ReportForm({ visit, timeZone }: { visit: LocalRecord; timeZone: string }) {
+export function ReportForm({ visit, timeZone }: { visit: LocalRecord<"site-visits">; timeZone: string }) {
   const db = useSyncDb();
   const [values, setValues] = useState<ReportValues>(() => reportValues(visit, timeZone));
   const { error, run } = useDeviceWrite();

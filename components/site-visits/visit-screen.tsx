@@ -9,7 +9,8 @@ import { useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { Section, formatDay, num, str, useProject, writeErrorOf } from "@/components/field/common";
+import { Section, formatDay, useProject } from "@/components/field/common";
+import { useDeviceWrite } from "@/components/field/use-device-write";
 import { SignOffDialog } from "@/components/signoff/lazy-sign-off-dialog";
 import type { ProjectRole } from "@/lib/auth/roles";
 import type { SiteVisitState } from "@/lib/records/enums";
@@ -22,24 +23,17 @@ import { AddFinding } from "./add-finding";
 import { FindingCard } from "./finding-card";
 import { ReportForm, ReportView } from "./report-form";
 
-function SubmitAndSign({ visit, project, findings }: { visit: LocalRecord; project: ProjectRow; findings: LocalRecord[] }) {
+function SubmitAndSign({ visit, project, findings }: { visit: LocalRecord<"site-visits">; project: ProjectRow; findings: LocalRecord<"findings">[] }) {
   const db = useSyncDb();
   const requestSync = useRequestSync();
   const [open, setOpen] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const state = str(visit.state) as SiteVisitState;
+  const { error, run } = useDeviceWrite();
+  const state = visit.state as SiteVisitState;
   const role = (project.role ?? null) as ProjectRole | null;
   const moves = allowedMoves("site-visits", state, role);
   const outstanding = findings.filter((f) => isOutstanding(f.state));
-  const version = num(visit.version) ?? 0;
-  const move = async (to: string) => {
-    setError(null);
-    try {
-      await transitionSiteRecordLocal(db, "site-visits", visit.id, { to });
-    } catch (e) {
-      setError(writeErrorOf(e).message);
-    }
-  };
+  const version = visit.version ?? 0;
+  const move = (to: string) => run(() => transitionSiteRecordLocal(db, "site-visits", visit.id, { to }));
   if (state === "signed") {
     return (
       <Notice tone="success" title="Signed" testId="visit-signed">
@@ -73,7 +67,7 @@ function SubmitAndSign({ visit, project, findings }: { visit: LocalRecord; proje
         summary={
           <div className="text-sm">
             <p>
-              Visit of {formatDay(str(visit.visitDate))}: {findings.length} finding{findings.length === 1 ? "" : "s"}, {outstanding.length} still open or answered.
+              Visit of {formatDay(visit.visitDate)}: {findings.length} finding{findings.length === 1 ? "" : "s"}, {outstanding.length} still open or answered.
             </p>
             {outstanding.length ? <p className="mt-1">The signed report lists them as open; they are closed after re-inspection.</p> : null}
           </div>
@@ -113,7 +107,7 @@ export function VisitScreen() {
       </>
     );
   }
-  const state = str(visit.state) as SiteVisitState;
+  const state = visit.state as SiteVisitState;
   const inspector = project.role === "inspector";
   const editable = inspector && state === "draft";
   return (
@@ -121,14 +115,14 @@ export function VisitScreen() {
       <div>
         {back}
         <div className="flex flex-wrap items-center gap-2" data-testid="visit-title">
-          <h1 className="text-2xl font-bold tracking-tight text-ink-950">Site visit {formatDay(str(visit.visitDate))}</h1>
+          <h1 className="text-2xl font-bold tracking-tight text-ink-950">Site visit {formatDay(visit.visitDate)}</h1>
           <StateBadge kind="site-visit" code={state} testId="visit-state" />
         </div>
         <p className="text-muted">{project.name}</p>
       </div>
       <Section title="Report" testId="visit-report">
         {editable ? (
-          <ReportForm key={`${visit.id}-${num(visit.version)}`} visit={visit} timeZone={project.timeZone} />
+          <ReportForm key={`${visit.id}-${visit.version}`} visit={visit} timeZone={project.timeZone} />
         ) : (
           <ReportView visit={visit} timeZone={project.timeZone} />
         )}

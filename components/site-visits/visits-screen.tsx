@@ -6,7 +6,7 @@ import { useLiveQuery } from "dexie-react-hooks";
 import { ChevronRight } from "lucide-react";
 import Link from "next/link";
 import { PageHeader } from "@/components/ui/page-header";
-import { formatDay, str, useFieldContext, useProjects } from "@/components/field/common";
+import { formatDay, useFieldContext, useProjects } from "@/components/field/common";
 import { isOutstanding } from "@/lib/site-visits/lifecycle";
 import { StateBadge } from "@/components/ui/state-badge";
 import { FINDING_STATE_WORDS, textClassOf } from "@/lib/ui/vocabulary";
@@ -31,7 +31,7 @@ export function VisitsScreen() {
         out.push({ visit, project, outstanding });
       }
     }
-    return out.sort((a, b) => str(b.visit.visitDate).localeCompare(str(a.visit.visitDate)));
+    return out.sort((a, b) => b.visit.visitDate.localeCompare(a.visit.visitDate));
   }, [db, key]);
 
   return (
@@ -54,11 +54,11 @@ export function VisitsScreen() {
               <Link href={`/field/visit?id=${visit.id}`} className="card flex items-center gap-3 p-4 hover:bg-ink-50" data-testid="visit-link">
                 <div className="min-w-0 flex-1">
                   <p className="flex flex-wrap items-center gap-2 text-lg font-bold text-ink-950">
-                    {formatDay(str(visit.visitDate))} <StateBadge kind="site-visit" code={str(visit.state)} size="sm" testId="visit-state" />
+                    {formatDay(visit.visitDate)} <StateBadge kind="site-visit" code={visit.state} size="sm" testId="visit-state" />
                   </p>
                   <p className="text-sm text-muted">
                     {project.name}
-                    {str(visit.areasInspected) ? ` · ${str(visit.areasInspected)}` : ""}
+                    {visit.areasInspected ? ` · ${visit.areasInspected}` : ""}
                   </p>
                   {outstanding > 0 ? <p className={`mt-1 font-semibold ${textClassOf("finding", "open")}`}>{outstanding} {FINDING_STATE_WORDS.open.label.toLowerCase()} finding{outstanding === 1 ? "" : "s"}</p> : null}
                 </div>

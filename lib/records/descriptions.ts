@@ -35,6 +35,11 @@ export type RecordDescription = {
    * choices of a single field. Free text is never merged (SYNC.md: no last-writer-wins on text).
    */
   readonly mergeable: readonly string[];
+  /**
+   * Fields only the server writes that a create leaves empty without a default of their own (a hold
+   * reason): they type the device's record (lib/sync/client/local-record.ts), nothing more.
+   */
+  readonly serverWritten?: z.ZodObject;
 };
 
 const placement = { field: "placementId", type: "placements" } as const satisfies ParentLink;
@@ -55,6 +60,7 @@ export const RECORD_DESCRIPTIONS = {
     create: s.placementCreateSchema,
     update: s.placementUpdateSchema,
     serverDefaults: s.placementDefaults,
+    serverWritten: s.placementServerWritten,
     mergeable: ["plannedStart", "plannedVolumeM3", "leastDimensionMm"],
   },
   deliveries: {

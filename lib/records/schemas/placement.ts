@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ELEMENT_TYPES, PLACEMENT_STATES } from "@/lib/records/enums";
-import { choice, clientId, instant, measure, optionalText, recordId, requiredText } from "./fields";
+import { choice, clientId, instant, measure, optionalText, recordId, requiredText, serverOwned } from "./fields";
 
 export const placementFields = {
   element: requiredText("Element", 120),
@@ -34,4 +34,11 @@ export const placementDefaults = z.object({
   leastDimensionMm: placementFields.leastDimensionMm.default(null),
   plannedVolumeM3: placementFields.plannedVolumeM3.default(null),
   mixId: placementFields.mixId.default(null),
+});
+
+/** Fields only the workflow writes (a hold, the sign-off), as the device stores them; null until then. */
+export const placementServerWritten = z.object({
+  holdReason: serverOwned.text(),
+  signedAt: serverOwned.instant(),
+  signedBy: serverOwned.id(),
 });

@@ -10,18 +10,15 @@
 // Tombstones (`deletedAt` set) are kept as rows; screens read through lib/sync/client/queries.ts,
 // which leaves them out.
 import Dexie, { type Table } from "dexie";
-import type { ConflictSummary, Cursor, MutationName, SyncedRecord, SyncProject } from "@/lib/sync/protocol";
+import type { ConflictSummary, Cursor, MutationName, SyncProject } from "@/lib/sync/protocol";
+import type { LocalRecord } from "./local-record";
 import { LOCAL_RECORD_TYPES, storeSpec, tableNameOf, type RecordType } from "./record-types";
 
 export { DEVICE_DB_NAME, DeviceDb, getDeviceDb, type DeviceIdentity, type StoredIdentity, type StoredPin } from "./device-db";
 
 export const USER_DB_PREFIX = "placewright-user-";
 
-/** A record as stored on the device. `version` is the version the server last acknowledged (0: never). */
-export type LocalRecord = SyncedRecord & {
-  pending: 0 | 1;
-  serverCopy: SyncedRecord | null;
-};
+export type { LocalFields, LocalRecord, LocalRecordBase } from "./local-record";
 
 export type OutboxState = "pending" | "sending" | "failed";
 
@@ -133,8 +130,17 @@ export class SyncDb extends Dexie {
     });
   }
 
-  /** The table of a record type. */
+  /** The table of a record type, loose rows: for the generic sync code (pull, push, replay, merge). */
   records(type: RecordType): Table<LocalRecord, string> {
+    return this.table(tableNameOf(type));
+  }
+
+  /**
+   * The same table with its rows typed by the type's schema, for reads on the screens. Dexie does not
+   * check rows against a type, so this is where the loose row becomes the typed one; the write
+   * functions (mutate.ts) validate with the same schema, and the server sends its own rows.
+   */
+  typedRecords<T extends RecordType>(type: T): Table<LocalRecord<T>, string> {
     return this.table(tableNameOf(type));
   }
 

@@ -4,23 +4,23 @@ import type { ConflictRow, LocalRecord, OutboxEntry, ProjectRow, SyncDb } from "
 import { getMeta } from "./db";
 import type { ParentField, RecordType } from "./record-types";
 
-const live = (row: LocalRecord | undefined): row is LocalRecord => !!row && !row.deletedAt;
+const live = <R extends LocalRecord>(row: R | undefined): row is R => !!row && !row.deletedAt;
 
 /** One record, or undefined when it does not exist or was deleted. */
-export async function getRecord(db: SyncDb, type: RecordType, id: string | null | undefined): Promise<LocalRecord | undefined> {
+export async function getRecord<T extends RecordType>(db: SyncDb, type: T, id: string | null | undefined): Promise<LocalRecord<T> | undefined> {
   if (!id) return undefined;
-  const row = await db.records(type).get(id);
+  const row = await db.typedRecords(type).get(id);
   return live(row) ? row : undefined;
 }
 
 /** The records of a project (not deleted). */
-export async function listByProject(db: SyncDb, type: RecordType, projectId: string): Promise<LocalRecord[]> {
-  return db.records(type).where("projectId").equals(projectId).filter((row) => !row.deletedAt).toArray();
+export async function listByProject<T extends RecordType>(db: SyncDb, type: T, projectId: string): Promise<LocalRecord<T>[]> {
+  return db.typedRecords(type).where("projectId").equals(projectId).filter((row) => !row.deletedAt).toArray();
 }
 
 /** The records hanging off a parent: deliveries of a placement, crew lines of a diary entry … */
-export async function listByParent(db: SyncDb, type: RecordType, field: ParentField, parentId: string): Promise<LocalRecord[]> {
-  return db.records(type).where(field).equals(parentId).filter((row) => !row.deletedAt).toArray();
+export async function listByParent<T extends RecordType>(db: SyncDb, type: T, field: ParentField, parentId: string): Promise<LocalRecord<T>[]> {
+  return db.typedRecords(type).where(field).equals(parentId).filter((row) => !row.deletedAt).toArray();
 }
 
 export async function listProjects(db: SyncDb): Promise<ProjectRow[]> {
