@@ -35,7 +35,7 @@ export default async function AdminPeoplePage() {
                   <td className="px-3 py-2 font-semibold">{i.name}</td>
                   <td className="break-all px-3 py-2">{i.email}</td>
                   <td className="px-3 py-2">
-                    Invitation not yet accepted
+                    Invited, not yet accepted
                     {i.projectName ? <span className="block text-muted">{i.projectName}{i.role ? `, ${ROLE_LABELS[i.role]}` : ""}</span> : null}
                   </td>
                   <td className="px-3 py-2" />
