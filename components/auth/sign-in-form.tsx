@@ -1,19 +1,18 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { safeCallbackPath } from "@/lib/auth/callback-url";
-import { emailField } from "@/lib/users/schemas";
+import { lazyResolver } from "@/lib/ui/lazy-resolver";
+import type { LinkValues, PasswordValues } from "./sign-in-schemas";
 
-const passwordForm = z.object({ email: emailField, password: z.string().min(1, "Enter your password.") });
-const linkForm = z.object({ email: emailField });
+const passwordResolver = lazyResolver<PasswordValues>(() => import("./sign-in-schemas").then((m) => m.passwordResolver));
+const linkResolver = lazyResolver<LinkValues>(() => import("./sign-in-schemas").then((m) => m.linkResolver));
 
 export function SignInForm() {
   const router = useRouter();
@@ -23,8 +22,8 @@ export function SignInForm() {
   const [error, setError] = useState<string | null>(params.get("error") ? "Sign-in failed. Try again." : null);
   const [linkSent, setLinkSent] = useState<string | null>(null);
 
-  const pw = useForm<z.infer<typeof passwordForm>>({ resolver: zodResolver(passwordForm) });
-  const link = useForm<z.infer<typeof linkForm>>({ resolver: zodResolver(linkForm) });
+  const pw = useForm<PasswordValues>({ resolver: passwordResolver });
+  const link = useForm<LinkValues>({ resolver: linkResolver });
 
   const onPassword = pw.handleSubmit(async (values) => {
     setError(null);
