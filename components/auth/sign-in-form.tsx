@@ -1,6 +1,5 @@
 "use client";
 
-import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -27,6 +26,8 @@ export function SignInForm() {
 
   const onPassword = pw.handleSubmit(async (values) => {
     setError(null);
+    // next-auth's client (about 14 KB) loads on submit: the page itself needs none of it.
+    const { signIn } = await import("next-auth/react");
     const result = await signIn("password", { ...values, redirect: false });
     if (!result || result.error) {
       setError(result?.error && result.error !== "CredentialsSignin" ? result.error : "Sign-in failed. Try again.");

@@ -1,13 +1,14 @@
 "use client";
 
-// zod/v4/core holds the one global config that zod's full API reads too; importing `z` here would
-// ship all of zod on every page, including those that validate nothing.
-import { config as zodConfig } from "zod/v4/core";
 import { ServiceWorkerRegistration } from "./service-worker";
 
 // zod's fast path probes `new Function`, which the Content-Security-Policy forbids (no eval):
-// validate without it on the device.
-zodConfig({ jitless: true });
+// validate without it on the device. zod keeps its one global config on globalThis (so that every
+// copy of zod shares it; zod/v4/core/core.js): seeding it here costs nothing, where importing zod's
+// config() would ship about 5 KB of zod to every page, and all of zod with `z`.
+// tests/unit/zod-jitless.test.ts fails if a zod upgrade moves it.
+const zodGlobal = globalThis as { __zod_globalConfig?: { jitless?: boolean } };
+Object.assign((zodGlobal.__zod_globalConfig ??= {}), { jitless: true });
 
 /** What every page needs; the session and query cache are in signed-in-providers.tsx. */
 export function Providers({ children }: { children: React.ReactNode }) {

@@ -14,11 +14,13 @@ export function WhenVisible({
   placeholder,
   margin = "200px",
   className,
+  testId,
 }: {
   children: React.ReactNode;
   placeholder: React.ReactNode;
   margin?: string;
   className?: string;
+  testId?: string;
 }) {
   const ref = useRef<HTMLDivElement>(null);
   const [near, setNear] = useState(false);
@@ -32,7 +34,7 @@ export function WhenVisible({
     return () => observer.disconnect();
   }, [near, margin]);
   return (
-    <div ref={ref} className={className}>
+    <div ref={ref} className={className} data-testid={testId}>
       {near ? children : placeholder}
     </div>
   );
