@@ -1,4 +1,5 @@
 import { redirect } from "next/navigation";
+import { SignedInProviders } from "@/components/providers/signed-in-providers";
 import { AppShell } from "@/components/shell/app-shell";
 import { getSessionUser } from "@/lib/auth/session";
 import { readableProjects } from "@/lib/projects/readable";
@@ -8,8 +9,10 @@ export default async function SignedInLayout({ children }: { children: React.Rea
   if (!user) redirect("/signin");
   const projects = await readableProjects(user);
   return (
-    <AppShell user={user} projects={projects}>
-      {children}
-    </AppShell>
+    <SignedInProviders>
+      <AppShell user={user} projects={projects}>
+        {children}
+      </AppShell>
+    </SignedInProviders>
   );
 }

@@ -1,33 +1,46 @@
 "use client";
 
-import { zodResolver } from "@hookform/resolvers/zod";
-import { signIn } from "next-auth/react";
 import { useRouter, useSearchParams } from "next/navigation";
-import { useState } from "react";
+import { Suspense, useState } from "react";
 import { useForm } from "react-hook-form";
-import { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { safeCallbackPath } from "@/lib/auth/callback-url";
-import { emailField } from "@/lib/users/schemas";
+import { lazyResolver } from "@/lib/ui/lazy-resolver";
+import type { LinkValues, PasswordValues } from "./sign-in-schemas";
 
-const passwordForm = z.object({ email: emailField, password: z.string().min(1, "Enter your password.") });
-const linkForm = z.object({ email: emailField });
+const passwordResolver = lazyResolver<PasswordValues>(() => import("./sign-in-schemas").then((m) => m.passwordResolver));
+const linkResolver = lazyResolver<LinkValues>(() => import("./sign-in-schemas").then((m) => m.linkResolver));
+
+/** The notice for `?error=` (a failed sign-in link). It alone reads the query, in its own Suspense
+ * boundary, so the prerendered page carries the form itself (the largest paint) without waiting for scripts. */
+function ErrorFromLink() {
+  const params = useSearchParams();
+  return params.get("error") ? <Notice tone="danger" title="Sign-in failed. Try again." testId="signin-error" /> : null;
+}
+
+/** Where to go after signing in; read when the form is sent, so the page needs no query to render. */
+function callbackPath(): string {
+  return safeCallbackPath(new URLSearchParams(window.location.search).get("callbackUrl"));
+}
 
 export function SignInForm() {
   const router = useRouter();
-  const params = useSearchParams();
-  const callbackUrl = safeCallbackPath(params.get("callbackUrl"));
   const [mode, setMode] = useState<"password" | "link">("password");
-  const [error, setError] = useState<string | null>(params.get("error") ? "Sign-in failed. Try again." : null);
+  const [error, setError] = useState<string | null>(null);
+  const [tried, setTried] = useState(false);
   const [linkSent, setLinkSent] = useState<string | null>(null);
 
-  const pw = useForm<z.infer<typeof passwordForm>>({ resolver: zodResolver(passwordForm) });
-  const link = useForm<z.infer<typeof linkForm>>({ resolver: zodResolver(linkForm) });
+  const pw = useForm<PasswordValues>({ resolver: passwordResolver });
+  const link = useForm<LinkValues>({ resolver: linkResolver });
 
   const onPassword = pw.handleSubmit(async (values) => {
     setError(null);
+    setTried(true);
+    const callbackUrl = callbackPath();
+    // next-auth's client (about 14 KB) loads on submit: the page itself needs none of it.
+    const { signIn } = await import("next-auth/react");
     const result = await signIn("password", { ...values, redirect: false });
     if (!result || result.error) {
       setError(result?.error && result.error !== "CredentialsSignin" ? result.error : "Sign-in failed. Try again.");
@@ -39,6 +52,8 @@ export function SignInForm() {
 
   const onLink = link.handleSubmit(async (values) => {
     setError(null);
+    setTried(true);
+    const callbackUrl = callbackPath();
     const res = await fetch("/api/sign-in-link", {
       method: "POST",
       headers: { "content-type": "application/json" },
@@ -67,6 +82,7 @@ export function SignInForm() {
             onClick={() => {
               setMode(m);
               setError(null);
+              setTried(true);
             }}
             className={`min-h-touch rounded-md text-sm font-semibold ${mode === m ? "bg-white text-ink-950 shadow" : "text-ink-700"}`}
           >
@@ -77,7 +93,11 @@ export function SignInForm() {
 
       {error ? (
         <Notice tone="danger" title={error} testId="signin-error" />
-      ) : null}
+      ) : tried ? null : (
+        <Suspense>
+          <ErrorFromLink />
+        </Suspense>
+      )}
 
       {mode === "password" ? (
         <form onSubmit={onPassword} className="flex flex-col gap-4" noValidate>

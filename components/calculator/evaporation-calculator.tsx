@@ -1,11 +1,11 @@
 "use client";
 
 import clsx from "clsx";
-import dynamic from "next/dynamic";
 import { Scale } from "lucide-react";
 import { useState } from "react";
 import type { UnitSystem } from "@/lib/concrete";
 import { EvaporationGuidance } from "./evaporation-guidance";
+import { RateChart } from "./rate-chart";
 import {
   DEFAULT_DRAFTS,
   isExample,
@@ -23,10 +23,6 @@ import { EvaporationResult, ResultStrip } from "./evaporation-result";
 import { MeasureField } from "./measure-field";
 // recharts loads after the first paint (the result and guidance above it do not need it); the
 // placeholder keeps the chart's height so nothing moves when it arrives.
-const RateChart = dynamic(() => import("./rate-chart").then((m) => m.RateChart), {
-  ssr: false,
-  loading: () => <div className="h-80 w-full sm:h-88" aria-hidden="true" />,
-});
 import { useHydrated, useUnitSystem } from "./use-unit-system";
 
 /** A draft and the unit system it was typed in; shown converted when the user switches systems. */

@@ -1,19 +1,15 @@
 "use client";
 
 import { useId } from "react";
-import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, XAxis, YAxis } from "recharts";
+import dynamic from "next/dynamic";
 import { unitLabel, type UnitSystem } from "@/lib/concrete";
 import { chartSummary, type ChartPoint } from "./evaporation-chart-model";
-import { formatRate, riskThresholds } from "./evaporation-model";
-import { paletteHex } from "@/lib/ui/palette";
+import { riskThresholds } from "./evaporation-model";
+import { WhenVisible } from "@/components/ui/when-visible";
 
-// Palette values from tailwind.config.ts: SVG strokes need literal colours.
-const INK_900 = paletteHex("ink-900");
-const INK_600 = paletteHex("ink-600");
-const INK_200 = paletteHex("ink-200");
-const LICHEN_600 = paletteHex("lichen-600");
-const CAUTION_700 = paletteHex("caution-700");
-const DANGER_700 = paletteHex("danger-700");
+// recharts loads when the chart comes near the screen (below the form on a phone); the box below
+// keeps the drawing's height meanwhile, so nothing moves when it arrives.
+const RatePlot = dynamic(() => import("./rate-plot"), { ssr: false });
 
 // Evenly spaced round ticks from 0 past `top`: multiples of `unit`, at most seven of them.
 function roundTicks(top: number, unit: number): number[] {
@@ -58,69 +54,20 @@ export function RateChart({
       </p>
       {/* The summary below says everything the drawing shows, so the drawing is hidden from screen readers. */}
       <div aria-hidden="true" className="mt-2 h-56 w-full sm:h-64">
-        <LineChart
-          responsive
-          style={{ width: "100%", height: "100%" }}
-          data={points}
-          margin={{ top: 12, right: 16, bottom: 22, left: 4 }}
-          accessibilityLayer={false}
-        >
-          <CartesianGrid stroke={INK_200} strokeDasharray="3 3" vertical={false} />
-          <XAxis
-            dataKey="wind"
-            type="number"
-            domain={[0, xTop]}
-            ticks={xTicks}
-            stroke={INK_600}
-            tick={{ fill: INK_600, fontSize: 12 }}
-            label={{ value: `Wind (${speedUnit})`, position: "insideBottom", offset: -14, fill: INK_600, fontSize: 12 }}
+        <WhenVisible placeholder={null} className="h-full w-full">
+          <RatePlot
+            points={points}
+            currentWind={currentWind}
+            currentRate={currentRate}
+            cautionAt={cautionAt}
+            highAt={highAt}
+            xTop={xTop}
+            xTicks={xTicks}
+            yTop={yTop}
+            yTicks={yTicks}
+            speedUnit={speedUnit}
           />
-          <YAxis
-            type="number"
-            domain={[0, yTop]}
-            ticks={yTicks}
-            width={44}
-            stroke={INK_600}
-            tick={{ fill: INK_600, fontSize: 12 }}
-            tickFormatter={(value: number) => value.toFixed(2)}
-          />
-          <ReferenceLine
-            y={highAt}
-            stroke={DANGER_700}
-            strokeWidth={2}
-            strokeDasharray="6 4"
-            label={{ value: `High ${formatRate(highAt)}`, position: "insideTopRight", fill: DANGER_700, fontSize: 12 }}
-          />
-          <ReferenceLine
-            y={cautionAt}
-            stroke={CAUTION_700}
-            strokeWidth={2}
-            strokeDasharray="2 4"
-            label={{
-              value: `Caution ${formatRate(cautionAt)}`,
-              position: "insideTopRight",
-              fill: CAUTION_700,
-              fontSize: 12,
-            }}
-          />
-          <Line
-            type="linear"
-            dataKey="rate"
-            stroke={LICHEN_600}
-            strokeWidth={3}
-            dot={false}
-            isAnimationActive={false}
-          />
-          <ReferenceDot
-            x={Math.min(currentWind, xTop)}
-            y={currentRate}
-            r={7}
-            fill={INK_900}
-            stroke="#ffffff"
-            strokeWidth={2}
-            ifOverflow="extendDomain"
-          />
-        </LineChart>
+        </WhenVisible>
       </div>
       <figcaption id={summaryId} className="mt-1 text-sm text-ink-800">
         {chartSummary(points, unitSystem, lowBleed)}

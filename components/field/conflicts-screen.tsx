@@ -72,7 +72,7 @@ function ConflictCard({ conflict }: { conflict: ConflictRow }) {
         {placementId ? (
           <>
             {" "}
-            <Link className="font-semibold text-lichen-800 underline" href={`/field/placement?id=${placementId}`}>
+            <Link className="font-semibold text-lichen-800 underline" href={`/field/placement?id=${placementId}`} prefetch={false}>
               Open the placement
             </Link>
           </>

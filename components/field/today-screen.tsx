@@ -127,6 +127,7 @@ export function TodayScreen() {
                     {i === 0 ? <h2 className="mt-2 text-sm font-bold uppercase tracking-wide text-ink-600 md:col-span-2">{day === "today" ? "Today" : "Tomorrow"}</h2> : null}
                     <Link
                       href={`/field/placement?id=${placement.id}`}
+                      prefetch={false} // the placement screen's code loads on the tap, not with Today
                       data-testid="field-placement-link"
                       className="card flex items-center gap-3 p-4 hover:bg-ink-50"
                     >

@@ -7,6 +7,7 @@ import { FormFooter } from "./form-footer";
 import { useLiveQuery } from "dexie-react-hooks";
 import { ClipboardCheck, CloudSun, Plus } from "lucide-react";
 import dynamic from "next/dynamic";
+import { WhenVisible } from "@/components/ui/when-visible";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { FindingNotice, SeverityChip } from "@/components/findings/finding-notice";
@@ -27,7 +28,8 @@ import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";
 
-// recharts loads on demand (day-chart-plot.tsx): it is not needed for the first paint.
+// recharts loads on demand (day-chart-plot.tsx), when the chart comes near the screen: it is not
+// needed for the first paint.
 const DayChartPlot = dynamic(() => import("./day-chart-plot"), { ssr: false });
 
 type Values = { observedAt: string; airTemp: string; rh: string; wind: string; concreteTemp: string; sun: string };
@@ -126,7 +128,9 @@ function DayChart({ points, units, highAt }: { points: { time: string; rate: num
     <figure className="m-0 mt-3" data-testid="weather-chart" aria-label={`Evaporation rate through the day, ${unitLabel("evaporationRate", units)}`}>
       <figcaption className="text-sm font-semibold">Evaporation rate by reading ({unitLabel("evaporationRate", units)})</figcaption>
       <div aria-hidden="true" className="h-44 w-full">
-        <DayChartPlot points={points} top={Number(top.toFixed(units === "SI" ? 2 : 3))} high={highAt} />
+        <WhenVisible placeholder={null} className="h-full w-full">
+          <DayChartPlot points={points} top={Number(top.toFixed(units === "SI" ? 2 : 3))} high={highAt} />
+        </WhenVisible>
       </div>
     </figure>
   );

@@ -2,14 +2,16 @@
 
 import dynamic from "next/dynamic";
 import { Notice } from "@/components/ui/notice";
+import { WhenVisible } from "@/components/ui/when-visible";
 import { formatStrength, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/concrete";
 import { CalibrationPoints } from "./calibration-points";
 import { MATURITY_CAUTIONS, chartSeries, estimateText, targetText, type MaturityView } from "@/lib/maturity/view";
 
-// recharts is heavy: the chart loads on demand, in the browser only.
+// recharts is heavy: the chart loads in the browser only, when it comes near the screen.
+const chartPlaceholder = <div className="h-64 w-full animate-pulse rounded-lg bg-ink-50" aria-hidden="true" />;
 const MaturityChart = dynamic(() => import("./maturity-chart").then((m) => m.MaturityChart), {
   ssr: false,
-  loading: () => <div className="h-64 w-full animate-pulse rounded-lg bg-ink-50" aria-hidden="true" />,
+  loading: () => chartPlaceholder,
 });
 
 /** The estimate now, the time to the target, the chart, the findings and the cautions: field and office alike. */
@@ -62,7 +64,9 @@ export function MaturitySummary({
         </p>
       ) : null}
       {calibration ? <CalibrationPoints points={calibration.points} unit={view.unit} units={units} /> : null}
-      <MaturityChart series={chartSeries(view)} unit={view.unit} units={units} timeZone={timeZone} />
+      <WhenVisible placeholder={chartPlaceholder} testId="maturity-chart-box">
+        <MaturityChart series={chartSeries(view)} unit={view.unit} units={units} timeZone={timeZone} />
+      </WhenVisible>
       {view.findings.length > 0 ? (
         <ul className="flex flex-col gap-2" data-testid="maturity-findings">
           {view.findings.map((f) => (

@@ -30,6 +30,9 @@ export function BottomNav({
         <Link
           key={href}
           href={href}
+          // No prefetch: in view on every screen, it would fetch every other screen's code with the
+          // first load. Offline, the service worker answers the click from its precache.
+          prefetch={false}
           data-testid={testIdPrefix ? `${testIdPrefix}${itemLabel.toLowerCase().replace(/\s+/g, "-")}` : undefined}
           aria-current={isActive(href) ? "page" : undefined}
           className={clsx(

@@ -92,6 +92,7 @@ export function SyncStatus() {
       {state.conflicts > 0 ? (
         <Link
           href="/field/conflicts"
+          prefetch={false}
           data-testid="sync-conflicts"
           className="inline-flex min-h-touch items-center gap-1.5 rounded-md bg-danger-50 px-2 text-sm font-semibold text-danger-800"
         >

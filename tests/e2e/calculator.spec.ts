@@ -117,6 +117,9 @@ test.describe("evaporation calculator", () => {
   });
 
   test("opens and computes offline once the service worker has it", async ({ page, context }) => {
+    // Phone size: the chart sits below the form, so its drawing (recharts) is not loaded online here
+    // and must come from the service worker's precache when the offline page scrolls to it.
+    await page.setViewportSize({ width: 390, height: 844 });
     const calc = new CalculatorPage(page);
     await calc.open();
     await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
@@ -140,6 +143,8 @@ test.describe("evaporation calculator", () => {
       await second.field("Air temperature").fill("70");
       await expect(second.rate).not.toHaveText("0.29");
       await expect(second.page.locator("body")).not.toContainText("NaN");
+      await second.page.getByTestId("evap-chart").scrollIntoViewIfNeeded();
+      await expect(second.page.getByTestId("evap-chart").locator("svg").first()).toBeVisible();
     } finally {
       await context.setOffline(false);
     }
@@ -154,6 +159,8 @@ test.describe("evaporation calculator", () => {
     ] as const) {
       await page.setViewportSize(size);
       await calc.open();
+      // The drawing loads when the chart comes near the screen (below the form on a phone).
+      await page.getByTestId("evap-chart").scrollIntoViewIfNeeded();
       await expect(page.getByTestId("evap-chart").locator("svg").first()).toBeVisible();
       const width = await page.evaluate(() => document.documentElement.scrollWidth);
       expect(width, `no sideways scrolling at ${name} size`).toBeLessThanOrEqual(size.width);

@@ -81,6 +81,9 @@ test("field screens work offline, sync every record once, and resolve a conflict
   await expect(placement.deliveries()).toHaveCount(2);
   await placement.addHotWindyObservation({ air: "35", rh: "15", wind: "40", concrete: "35" });
   await placement.startHotChecklist();
+  // Its day chart draws offline: recharts loads when the chart nears the screen, from the precache.
+  await page.getByTestId("weather-chart").scrollIntoViewIfNeeded();
+  await expect(page.getByTestId("weather-chart").locator("svg").first()).toBeVisible();
   await page.getByTestId("weather-watch").scrollIntoViewIfNeeded();
   await page.screenshot({ path: ".data/screenshots/field-placement-weather-offline-screen.png" });
   await page.getByTestId("deliveries").scrollIntoViewIfNeeded();

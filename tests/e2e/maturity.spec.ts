@@ -51,6 +51,8 @@ test("maturity: readings and a CSV offline on the phone, the same estimate in th
   await expect(panel.getByTestId("maturity-estimate")).toContainText("psi", { timeout: 60_000 });
   await expect(panel.getByTestId("maturity-target")).toContainText("Expected");
   await expect(panel.getByTestId("maturity-cautions")).toContainText("ASTM C1074 asks that the estimate be confirmed");
+  // The chart's drawing loads when it comes near the screen.
+  await panel.getByTestId("maturity-chart-box").scrollIntoViewIfNeeded();
   await expect(panel.getByTestId("maturity-chart")).toBeVisible();
 
   // Offline: a hand reading at each sensor after the logger record ended.

@@ -1,13 +1,9 @@
 import type { Metadata } from "next";
-import { Suspense } from "react";
 import { SignInForm } from "@/components/auth/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
 export default function SignInPage() {
-  return (
-    <Suspense>
-      <SignInForm />
-    </Suspense>
-  );
+  // The form reads the query only inside its own Suspense boundaries, so it is prerendered.
+  return <SignInForm />;
 }
