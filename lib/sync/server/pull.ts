@@ -10,7 +10,7 @@
 // statement across the record tables. PostgreSQL builds the records' JSON; the answer is assembled
 // as text around it (pullBody), so a page costs no JavaScript object per record.
 import type { PoolClient, QueryConfig } from "pg";
-import { getPool } from "@/db";
+import { getReadPool } from "@/db";
 import { decodeRow } from "@/db/json-rows";
 import { conflicts, projects, syncClients } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/options";
@@ -54,13 +54,16 @@ async function readOverview(runner: Runner, user: SessionUser, request: PullRequ
 
 /** The body of the pull's answer (a PullResponse as JSON), the records' JSON as PostgreSQL built it. */
 export async function pullBody(user: SessionUser, request: PullRequest): Promise<string> {
-  const pool = getPool();
+  const pool = getReadPool();
   const first = await readOverview({ query: (q: QueryConfig) => pool.query(q) } as Runner, user, request);
   if (first.changed.length === 0) return assemble(first, [], false);
 
   const client = await pool.connect();
   try {
-    await client.query("begin isolation level repeatable read read only");
+    // The generic plan from the first execution: the page statement spans every record table, and
+    // planning it anew (PostgreSQL's custom plans, the first five runs on a connection) cost more
+    // than running it. Its generic plan reads each table's change index and fetches rows by key.
+    await client.query("begin isolation level repeatable read read only; set local plan_cache_mode = force_generic_plan");
     const overview = await readOverview(client, user, request);
     const limit = request.limit ?? MAX_CHANGES_PER_PULL;
     const pages: string[] = [];
