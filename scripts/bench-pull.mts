@@ -11,6 +11,7 @@
 // a paged pull keeps memory flat whatever the project's size. Everything created is deleted.
 // It refuses a database whose name has neither "test" nor "bench" in it unless --force is given.
 import { randomUUID } from "node:crypto";
+import os from "node:os";
 import { performance } from "node:perf_hooks";
 import pg from "pg";
 
@@ -113,6 +114,7 @@ async function rawRead() {
   return { seconds: (performance.now() - start) / 1000, rows, bytes };
 }
 
+const loadAtStart = os.loadavg()[0];
 try {
   await seed();
   const pulls: Awaited<ReturnType<typeof fullPull>>[] = [];
@@ -129,6 +131,7 @@ try {
   console.log(`  full first pull (pullBody, ${pulls[0].pages} pages, ${mb(pulls[0].bytes)} JSON): ${pullSeconds.toFixed(2)} s, ${Math.round(records / pullSeconds).toLocaleString("en-US")} records/s`);
   console.log(`  raw SELECT + JSON.stringify (pg, ${mb(raws[0].bytes)} JSON):      ${rawSeconds.toFixed(2)} s, ${Math.round(records / rawSeconds).toLocaleString("en-US")} records/s`);
   console.log(`  heap in use after a pull page, largest seen: ${mb(Math.max(...pulls.map((p) => p.heapPeak)))}`);
+  console.log(`  machine load (1-minute average) at start ${loadAtStart.toFixed(2)}, at end ${os.loadavg()[0].toFixed(2)}, on ${os.availableParallelism()} cores`);
   console.log(`pull ÷ raw ratio ${(rawSeconds / pullSeconds).toFixed(2)} (1.00 = as fast as the raw read)`);
 } finally {
   await plain.end().catch(() => undefined);
