@@ -55,8 +55,11 @@ async function readOverview(runner: Runner, user: SessionUser, request: PullRequ
 /** The body of the pull's answer (a PullResponse as JSON), the records' JSON as PostgreSQL built it. */
 export async function pullBody(user: SessionUser, request: PullRequest): Promise<string> {
   const pool = getReadPool();
-  const first = await readOverview({ query: (q: QueryConfig) => pool.query(q) } as Runner, user, request);
-  if (first.changed.length === 0) return assemble(first, [], false);
+  // A first pull (no cursor) reads pages; any other asks first whether anything changed.
+  if (request.cursor !== null) {
+    const first = await readOverview({ query: (q: QueryConfig) => pool.query(q) } as Runner, user, request);
+    if (first.changed.length === 0) return assemble(first, [], false);
+  }
 
   const client = await pool.connect();
   try {
