@@ -37,6 +37,8 @@ export const envSchema = z.object({
   DATABASE_URL: url(["postgres:", "postgresql:"]),
   /** Connections per app instance (PostgreSQL's max_connections is shared by every instance and the worker). */
   DATABASE_POOL_MAX: int(1, 200, 10),
+  /** Connections per app instance kept for short reads (session check, sync pull: db/index.ts readDb), beside DATABASE_POOL_MAX. */
+  DATABASE_READ_POOL_MAX: int(1, 200, 4),
   /** A statement running longer is cancelled by PostgreSQL; 0 turns the limit off. */
   DATABASE_STATEMENT_TIMEOUT_MS: int(0, 3_600_000, 30_000),
   NEXTAUTH_SECRET: z.string().min(16, "must be at least 16 characters (use a long random value)"),
@@ -66,7 +68,7 @@ export type Config = ReturnType<typeof shape>;
 
 function shape(env: z.output<typeof envSchema>) {
   return {
-    database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX, statementTimeoutMs: env.DATABASE_STATEMENT_TIMEOUT_MS },
+    database: { url: env.DATABASE_URL, poolMax: env.DATABASE_POOL_MAX, readPoolMax: env.DATABASE_READ_POOL_MAX, statementTimeoutMs: env.DATABASE_STATEMENT_TIMEOUT_MS },
     auth: { secret: env.NEXTAUTH_SECRET },
     origin: (env.APP_ORIGIN ?? env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, ""),
     mail: { smtpUrl: env.SMTP_URL, from: env.MAIL_FROM },

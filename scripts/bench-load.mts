@@ -16,6 +16,7 @@
 import { spawn } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import net from "node:net";
+import os from "node:os";
 import path from "node:path";
 import { encode } from "next-auth/jwt";
 import { runLoad } from "./bench/load-run.ts";
@@ -150,6 +151,7 @@ try {
   let turn = 0;
   const nextDevice = () => devices[turn++ % devices.length];
 
+  const loadAtStart = os.loadavg()[0];
   const health = await runLoad(base, connections, "GET /api/health (baseline)", phase, () => ({ method: "GET", path: "/api/health" }));
   const emptyPull = await runLoad(base, connections, "POST /api/sync/pull, nothing new", phase, () => {
     const d = nextDevice();
@@ -176,6 +178,7 @@ try {
     console.log(`${r.route.padEnd(38)} ${String(r.requests).padStart(7)} ${r.seconds.toFixed(1).padStart(6)} ${r.perSecond.toFixed(1).padStart(8)} ${r.meanMs.toFixed(0).padStart(8)} ${String(r.errors).padStart(7)} ${String(r.p50).padStart(7)} ${String(r.p95).padStart(7)} ${String(r.p99).padStart(7)} ${String(r.cannonP50).padStart(7)} ${String(r.cannonP99).padStart(7)}`);
   }
   for (const r of rows) for (const [why, count] of r.reasons) console.log(`  ${r.route}: ${count} × ${why}`);
+  console.log(`machine load (1-minute average) when the runs began ${loadAtStart.toFixed(2)}, when they ended ${os.loadavg()[0].toFixed(2)}, on ${os.availableParallelism()} cores (every process here shares them)`);
   console.log(`\nempty incremental pull ÷ health route (requests/s): ${(emptyPull.perSecond / health.perSecond).toFixed(2)} (target ≥ 0.5)`);
   console.log(`errors in all: ${rows.reduce((n, r) => n + r.errors, 0)} (target 0); p99 pull ${pull.p99} ms (target ≤ 150), push ${push.p99} ms (target ≤ 300)`);
 } catch (error) {

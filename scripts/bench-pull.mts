@@ -1,8 +1,8 @@
 // npm run bench:pull [-- --records=10000] [--rounds=3] [--force]
 // A device's full first pull of a large project (lib/sync/server/pull.ts) beside a baseline
 // measured in the same run:
-// 1. pull: pullChanges from no cursor, page after page until hasMore is false, each answer turned
-//    into JSON as the route sends it;
+// 1. pull: pullBody (the JSON text the route sends) from no cursor, page after page until hasMore is
+//    false; each answer is parsed afterwards, outside the timing, for its cursor and its count;
 // 2. baseline: the same rows read with plain `SELECT * … WHERE project_id = $1` per record table
 //    through `pg` in one read-only transaction, and JSON.stringify of the result.
 // The project holds 100 placements, and deliveries and curing readings up to --records rows
@@ -11,6 +11,7 @@
 // a paged pull keeps memory flat whatever the project's size. Everything created is deleted.
 // It refuses a database whose name has neither "test" nor "bench" in it unless --force is given.
 import { randomUUID } from "node:crypto";
+import os from "node:os";
 import { performance } from "node:perf_hooks";
 import pg from "pg";
 
@@ -35,7 +36,7 @@ const { closeDb, db } = await import("../db/index.ts");
 const { deleteBenchRows } = await import("./bench/cleanup.ts");
 const { memberships, projects, users } = await import("../db/schema/index.ts");
 const { SYNC_SCHEMA_VERSION } = await import("../lib/sync/protocol.ts");
-const { pullChanges } = await import("../lib/sync/server/pull.ts");
+const { pullBody } = await import("../lib/sync/server/pull.ts");
 const { RECORD_TYPES, getRecordDef } = await import("../lib/records/registry.ts");
 const { getTableName } = await import("drizzle-orm");
 
@@ -83,18 +84,20 @@ async function fullPull() {
   let bytes = 0;
   let pages = 0;
   let heapPeak = 0;
-  const start = performance.now();
+  let seconds = 0;
   for (;;) {
-    const page = await pullChanges(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, cursor });
-    const body = JSON.stringify(page);
+    const start = performance.now();
+    const body = await pullBody(sessionUser, { clientId, schemaVersion: SYNC_SCHEMA_VERSION, cursor });
+    seconds += (performance.now() - start) / 1000;
+    heapPeak = Math.max(heapPeak, process.memoryUsage().heapUsed);
+    const page = JSON.parse(body) as { changes: unknown[]; cursor: Record<string, number>; hasMore: boolean };
     bytes += body.length;
     rows += page.changes.length;
     pages += 1;
-    heapPeak = Math.max(heapPeak, process.memoryUsage().heapUsed);
     cursor = page.cursor;
     if (!page.hasMore) break;
   }
-  return { seconds: (performance.now() - start) / 1000, rows, bytes, pages, heapPeak };
+  return { seconds, rows, bytes, pages, heapPeak };
 }
 
 async function rawRead() {
@@ -111,6 +114,7 @@ async function rawRead() {
   return { seconds: (performance.now() - start) / 1000, rows, bytes };
 }
 
+const loadAtStart = os.loadavg()[0];
 try {
   await seed();
   const pulls: Awaited<ReturnType<typeof fullPull>>[] = [];
@@ -124,9 +128,10 @@ try {
   const pullSeconds = median(pulls.map((p) => p.seconds));
   const rawSeconds = median(raws.map((r) => r.seconds));
   console.log(`database ${databaseName}; one project of ${records.toLocaleString("en-US")} records; ${rounds} rounds, medians`);
-  console.log(`  full first pull (pullChanges, ${pulls[0].pages} pages, ${mb(pulls[0].bytes)} JSON): ${pullSeconds.toFixed(2)} s, ${Math.round(records / pullSeconds).toLocaleString("en-US")} records/s`);
+  console.log(`  full first pull (pullBody, ${pulls[0].pages} pages, ${mb(pulls[0].bytes)} JSON): ${pullSeconds.toFixed(2)} s, ${Math.round(records / pullSeconds).toLocaleString("en-US")} records/s`);
   console.log(`  raw SELECT + JSON.stringify (pg, ${mb(raws[0].bytes)} JSON):      ${rawSeconds.toFixed(2)} s, ${Math.round(records / rawSeconds).toLocaleString("en-US")} records/s`);
   console.log(`  heap in use after a pull page, largest seen: ${mb(Math.max(...pulls.map((p) => p.heapPeak)))}`);
+  console.log(`  machine load (1-minute average) at start ${loadAtStart.toFixed(2)}, at end ${os.loadavg()[0].toFixed(2)}, on ${os.availableParallelism()} cores`);
   console.log(`pull ÷ raw ratio ${(rawSeconds / pullSeconds).toFixed(2)} (1.00 = as fast as the raw read)`);
 } finally {
   await plain.end().catch(() => undefined);

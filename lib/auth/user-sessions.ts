@@ -1,7 +1,7 @@
 // Server-side session state behind the next-auth JWT (db/schema/sessions.ts): the cookie names a
 // row; the row says whether it still counts. Checked on every request by lib/auth/session.ts.
 import { and, eq, sql } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readDb, type Executor } from "@/db";
 import { accountSettings, DEFAULT_IDLE_TIMEOUT_MINUTES, userSessions, users } from "@/db/schema";
 import type { UserRow } from "@/lib/users/queries";
 
@@ -27,8 +27,8 @@ export async function openSession(userId: string, userAgent?: string | null): Pr
  */
 export async function userOfLiveSession(sessionId: string, userId: string): Promise<UserRow | null> {
   if (!UUID.test(sessionId) || !UUID.test(userId)) return null;
-  // One statement: this runs on every request.
-  const [row] = await db
+  // One statement: this runs on every request (on the read pool, so writers waiting on locks never delay it).
+  const [row] = await readDb
     .select({
       user: users,
       live: sql<boolean>`(${userSessions.revokedAt} is null and ${userSessions.sessionVersion} = ${users.sessionVersion}
@@ -41,7 +41,7 @@ export async function userOfLiveSession(sessionId: string, userId: string): Prom
     .leftJoin(accountSettings, eq(accountSettings.id, 1))
     .where(and(eq(userSessions.id, sessionId), eq(users.id, userId)));
   if (!row?.live) return null;
-  if (row.staleTouch) await db.update(userSessions).set({ lastSeenAt: sql`now()` }).where(eq(userSessions.id, sessionId));
+  if (row.staleTouch) await readDb.update(userSessions).set({ lastSeenAt: sql`now()` }).where(eq(userSessions.id, sessionId));
   return row.user;
 }
 

@@ -15,10 +15,15 @@ type Reader = Pick<SessionUser, "id" | "isAdmin">;
  * one the user may not read is refused, not ignored.
  */
 export async function readableProjects(user: Reader, requested?: string[], tx: Executor = db): Promise<UserProject[]> {
-  const mine = (await listUserProjects(user.id, tx)).filter((p) => can(user, "project.read", p.role));
+  const mine = readableAmong(user, await listUserProjects(user.id, tx));
   if (!requested || requested.length === 0) return mine;
   const byId = new Map(mine.map((p) => [p.id, p]));
   const refused = requested.filter((id) => !byId.has(id.toLowerCase()));
   if (refused.length) throw forbidden("You are not a member of every project you asked for.");
   return [...new Set(requested.map((id) => id.toLowerCase()))].map((id) => byId.get(id)!);
+}
+
+/** Of a user's memberships (listUserProjects' rows, or a statement built on userProjectsQuery), the readable ones. */
+export function readableAmong<P extends { role: UserProject["role"] }>(user: Reader, memberships: P[]): P[] {
+  return memberships.filter((p) => can(user, "project.read", p.role));
 }

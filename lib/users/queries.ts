@@ -30,6 +30,14 @@ export type UserProject = {
 
 /** The projects a user is a member of, with their role on each. */
 export async function listUserProjects(userId: string, tx: Executor = db): Promise<UserProject[]> {
+  return userProjectsQuery(userId, tx);
+}
+
+/**
+ * listUserProjects' statement, not yet run: the sync pull embeds it in its one statement, beside the
+ * change counters, the device's row and the open conflicts (lib/sync/server/pull-sql.ts).
+ */
+export function userProjectsQuery(userId: string, tx: Executor = db) {
   return tx
     .select({
       id: projects.id,

@@ -21,7 +21,7 @@ function problems(env: Record<string, string | undefined>): string {
 describe("configuration", () => {
   it("accepts the minimum and fills the documented defaults", () => {
     const c = parseConfig(GOOD);
-    expect(c.database).toEqual({ url: GOOD.DATABASE_URL, poolMax: 10, statementTimeoutMs: 30_000 });
+    expect(c.database).toEqual({ url: GOOD.DATABASE_URL, poolMax: 10, readPoolMax: 4, statementTimeoutMs: 30_000 });
     expect(c.digest).toEqual({ worker: true, pollSeconds: 10 });
     expect(c.s3.endpoint).toBeUndefined(); // AWS S3 itself
     expect(c.origin).toBe("http://localhost:3000");
@@ -59,6 +59,8 @@ describe("configuration", () => {
     expect(c.database.poolMax).toBe(25);
     expect(c.database.statementTimeoutMs).toBe(0); // 0: no limit (PostgreSQL's statement_timeout semantics)
     expect(problems({ ...GOOD, DATABASE_POOL_MAX: "0" })).toContain("DATABASE_POOL_MAX must be at least 1");
+    expect(parseConfig({ ...GOOD, DATABASE_READ_POOL_MAX: "6" }).database.readPoolMax).toBe(6);
+    expect(problems({ ...GOOD, DATABASE_READ_POOL_MAX: "0" })).toContain("DATABASE_READ_POOL_MAX must be at least 1");
   });
 
   it("reads switches as true/false and on/off only", () => {
