@@ -3,26 +3,12 @@
 // day as on a day that already holds 500 trucks of the same placement, since new trucks are judged
 // on their own and their days are not read again [common practice: count round trips, do not guess].
 import { randomUUID } from "node:crypto";
-import pg from "pg";
 import { describe, expect, it } from "vitest";
 import { SYNC_SCHEMA_VERSION, type Mutation } from "@/lib/sync/protocol";
 import { pushMutations } from "@/lib/sync/server/push";
 import { projectWithTeam } from "./helpers";
 import { validBody } from "./record-fixtures";
-
-async function counted<T>(run: () => Promise<T>): Promise<{ value: T; statements: number }> {
-  const original = pg.Client.prototype.query;
-  let statements = 0;
-  pg.Client.prototype.query = function (this: pg.Client, ...args: unknown[]) {
-    statements += 1;
-    return (original as (...a: unknown[]) => unknown).apply(this, args);
-  } as typeof original;
-  try {
-    return { value: await run(), statements };
-  } finally {
-    pg.Client.prototype.query = original;
-  }
-}
+import { countStatements as counted } from "./statement-count";
 
 describe("sync push cost", () => {
   it("a push of 100 trucks sends the same few statements on an empty day and on a day of 500 trucks", async () => {
