@@ -62,7 +62,7 @@ function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord<"tempera
     setFailure(null);
     try {
       const tempC = toSI("temperature", f.temp, units);
-      // The project's wall clock (lib/time/zone through common.tsx), whatever zone the phone is set to.
+      // The project's wall clock (lib/time/zone through components/field/project-time.ts), whatever zone the phone is set to.
       const when = fromLocalInput(f.at, project.timeZone);
       await createLocal(db, "sensor-readings", sensor.projectId, { sensorId: sensor.id, source: "manual", readings: [[when ?? "", tempC]] });
       onDone();
