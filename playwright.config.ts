@@ -4,7 +4,7 @@ const port = Number(process.env.APP_PORT ?? 3100);
 const baseURL = process.env.PLAYWRIGHT_BASE_URL ?? `http://localhost:${port}`;
 process.env.PLAYWRIGHT_JSON_OUTPUT_NAME ??= ".data/test-run/playwright.json";
 // PLAYWRIGHT_PAIR=1: the same build as two instances behind the round-robin proxy on the app port
-// (scripts/serve-pair.mjs); the offline and sign-in suites and tests/e2e/pair.spec.ts run against it.
+// (scripts/serve-pair.mjs); the offline and sign-in suites and tests/e2e/pair/ run against it.
 const pair = process.env.PLAYWRIGHT_PAIR === "1";
 process.env.PAIR_PORTS ??= `${port + 200},${port + 201}`;
 const serve = pair
@@ -14,8 +14,8 @@ const serve = pair
 export default defineConfig({
   testDir: "tests",
   ...(pair
-    ? { testMatch: ["e2e/field-offline.spec.ts", "e2e/sign-in.spec.ts", "e2e/pair.spec.ts"] }
-    : { testMatch: ["e2e/**/*.spec.ts", "security/**/*.spec.ts"], testIgnore: ["e2e/pair.spec.ts"] }),
+    ? { testMatch: ["e2e/field-offline.spec.ts", "e2e/sign-in.spec.ts", "e2e/pair/**/*.spec.ts"] }
+    : { testMatch: ["e2e/**/*.spec.ts", "security/**/*.spec.ts"], testIgnore: ["e2e/pair/**/*.spec.ts"] }),
   outputDir: ".data/test-run/playwright-artifacts",
   workers: 1,
   fullyParallel: false,

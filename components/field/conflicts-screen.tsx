@@ -12,7 +12,8 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { dismissRejection, getRecord, isLocalRecordType, listConflicts, localDef, resolveConflictLocal, type ConflictRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
-import { formatDateTime, useProjects } from "./common";
+import { useProjects } from "./field-project";
+import { formatDateTime } from "./project-time";
 import { useDeviceWrite } from "./use-device-write";
 
 const META = new Set(["id", "projectId", "version", "changeSeq", "deletedAt", "createdAt", "updatedAt", "createdBy", "updatedBy", "pending", "serverCopy"]);

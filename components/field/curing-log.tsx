@@ -14,7 +14,14 @@ import { formatLength, formatTemperature } from "@/lib/concrete";
 import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, Section, mayWrite, Verdict, byTime, formatDateTime, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { mayWrite, unitSystemOf } from "./field-project";
+import { formatDateTime, fromLocalInput, toLocalInput } from "./project-time";
+import { toSI, unitLabel } from "./unit-inputs";
+import { byTime } from "./record-fields";
+import { writeErrorOf } from "./write-error";
+import { Verdict } from "./verdict-badges";
+import { NowInput } from "./now-input";
+import { Section } from "./section";
 import { findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 

@@ -2,7 +2,7 @@
 import { FindingNotice } from "@/components/findings/finding-notice";
 import { GOVERNS, toCheckProject, type Finding } from "@/lib/checks";
 import type { ProjectRow } from "@/lib/sync/client";
-import { Verdict } from "./common";
+import { Verdict } from "./verdict-badges";
 
 type Times = { batchedAt: string | null; dischargeFinishedAt: string | null; status: string };
 

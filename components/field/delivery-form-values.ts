@@ -1,7 +1,7 @@
 // The truck form's values: what a stored ticket shows in the inputs (project units, project clock).
 import type { UnitSystem } from "@/lib/concrete";
 import type { LocalRecord } from "@/lib/sync/client";
-import { fromSI } from "./common";
+import { fromSI } from "./unit-inputs";
 import { clockOf } from "./delivery-times";
 
 export type Values = {

@@ -10,7 +10,11 @@ import { createLocal, updateLocal, type LocalRecord, type ProjectRow } from "@/l
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { DELIVERY_STATUS_WORDS } from "@/lib/ui/vocabulary";
-import { NowInput, formatDay, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { unitSystemOf } from "./field-project";
+import { formatDay } from "./project-time";
+import { toSI, unitLabel } from "./unit-inputs";
+import { writeErrorOf } from "./write-error";
+import { NowInput } from "./now-input";
 import { DeliveryChecks } from "./delivery-checks";
 import { AcceptOrReject, NotClearedQuestion } from "./delivery-decisions";
 import { changedFields, resolveTicketTimes, type TicketTimeName } from "./delivery-times";

@@ -16,7 +16,10 @@ import { formatTemperature } from "@/lib/concrete";
 import { createLocal, deleteLocal, listByParent, listByProject, updateLocal, type LocalRecord, type ProjectRow, type RecordType } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { Section, addDays, mayWrite, dateInZone, unitSystemOf, useFieldContext, useProjects, writeErrorOf } from "./common";
+import { mayWrite, unitSystemOf, useFieldContext, useProjects } from "./field-project";
+import { addDays, dateInZone } from "./project-time";
+import { writeErrorOf } from "./write-error";
+import { Section } from "./section";
 import { calendarDateText } from "@/lib/time/zone";
 
 type EntryValues = { weatherSummary: string; workDone: string; safetyNotes: string };

@@ -19,7 +19,7 @@ import { finishPendingSignOut } from "@/lib/sync/client/erase";
 import { useOfflineAccess } from "@/lib/sync/client/use-offline-access";
 import { PinUnlock, SignInToOpen } from "./device-lock";
 import { ProjectPicker } from "@/components/ui/project-picker";
-import { FieldContext, useProjects } from "./common";
+import { FieldContext, useProjects } from "./field-project";
 
 const NAV = [
   { href: "/field/today", label: "Today", icon: CalendarDays },

@@ -13,7 +13,11 @@ import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/
 import { writeTx } from "@/lib/sync/client/mutate";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { NowInput, fromLocalInput, parseNumber, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { unitSystemOf } from "./field-project";
+import { fromLocalInput, toLocalInput } from "./project-time";
+import { parseNumber, toSI, unitLabel } from "./unit-inputs";
+import { writeErrorOf } from "./write-error";
+import { NowInput } from "./now-input";
 import { VerdictLine, verdictsOf, type Results } from "./field-test-verdicts";
 import { draftFindings } from "./findings-model";
 import { FormFooter } from "./form-footer";

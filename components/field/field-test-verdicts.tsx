@@ -3,7 +3,8 @@ import { toCheckMix, toCheckProject, type Finding } from "@/lib/checks";
 import { airRangeFor, maxTemperatureFor, slumpRangeFor } from "@/lib/checks/field-tests";
 import { formatLength, type UnitSystem } from "@/lib/concrete";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";
-import { Verdict, unitLabel } from "./common";
+import { unitLabel } from "./unit-inputs";
+import { Verdict } from "./verdict-badges";
 
 export type Results = { slumpMm?: number; airPct?: number; concreteTempC?: number };
 type Verdicts = { slump?: { ok: boolean; range: string }; air?: { ok: boolean; range: string }; temperature?: { ok: boolean; range: string } };

@@ -11,7 +11,11 @@ import { ELEMENT_TYPE_LABELS } from "@/lib/ui/vocabulary";
 import { createLocal, listByProject, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
-import { Section, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { unitSystemOf } from "./field-project";
+import { fromLocalInput, toLocalInput } from "./project-time";
+import { toSI, unitLabel } from "./unit-inputs";
+import { writeErrorOf } from "./write-error";
+import { Section } from "./section";
 
 type Values = {
   element: string;

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import { writeErrorOf } from "./common";
+import { writeErrorOf } from "./write-error";
 
 /** A save on this device: clears the last error, runs the write, and keeps its message when it fails. */
 export function useDeviceWrite() {

@@ -23,7 +23,13 @@ import { createLocal, listByParent, type LocalRecord, type ProjectRow } from "@/
 import { useSyncDb } from "@/lib/sync/client/react";
 import { useDirtyGuard } from "@/lib/ui/dirty-forms";
 import { useDeviceWrite } from "./use-device-write";
-import { NowInput, Section, mayWrite, byTime, formatDateTime, formatTime, fromLocalInput, parseNumber, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "./common";
+import { mayWrite, unitSystemOf } from "./field-project";
+import { formatDateTime, formatTime, fromLocalInput, toLocalInput } from "./project-time";
+import { parseNumber, toSI, unitLabel } from "./unit-inputs";
+import { byTime } from "./record-fields";
+import { writeErrorOf } from "./write-error";
+import { NowInput } from "./now-input";
+import { Section } from "./section";
 import { draftFindings, findingsFor } from "./findings-model";
 import type { FieldFindings } from "./use-findings";
 import { Checklist, COLD_ITEMS, HOT_ITEMS } from "./weather-checklist";

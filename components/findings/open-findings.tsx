@@ -6,7 +6,7 @@ import { calendarDateText } from "@/lib/time/zone";
 import { useLiveQuery } from "dexie-react-hooks";
 import Link from "next/link";
 import { Notice } from "@/components/ui/notice";
-import { Section } from "@/components/field/common";
+import { Section } from "@/components/field/section";
 import { StateBadge } from "@/components/ui/state-badge";
 import { isOutstanding } from "@/lib/site-visits/lifecycle";
 import { listByProject, type LocalRecord } from "@/lib/sync/client";

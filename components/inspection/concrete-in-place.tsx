@@ -3,7 +3,7 @@
 // How much concrete a placement already has, in the project's units: a hold on work with trucks on it
 // stops the rest of the pour, not what is already in the forms, and the people deciding need the figure.
 import { useLiveQuery } from "dexie-react-hooks";
-import { unitSystemOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/field-project";
 import { formatVolume } from "@/lib/concrete";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";

@@ -3,7 +3,7 @@
 // A held placement says so at the top of its screen, in words, with the inspector's reason, so the
 // superintendent sees it before anything else (and before any truck is called).
 import clsx from "clsx";
-import { mayWrite } from "@/components/field/common";
+import { mayWrite } from "@/components/field/field-project";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { PLACEMENT_MOVE_WORDS, PLACEMENT_STATE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";

@@ -1,7 +1,9 @@
 "use client";
 
 import { useEffect, useRef, useState } from "react";
-import { formatDateTime, unitSystemOf, writeErrorOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/field-project";
+import { formatDateTime } from "@/components/field/project-time";
+import { writeErrorOf } from "@/components/field/write-error";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { Select } from "@/components/ui/select";

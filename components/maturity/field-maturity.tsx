@@ -3,7 +3,8 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { Plus } from "lucide-react";
 import { useMemo, useState } from "react";
-import { Section, mayWrite, unitSystemOf } from "@/components/field/common";
+import { mayWrite, unitSystemOf } from "@/components/field/field-project";
+import { Section } from "@/components/field/section";
 import { Button } from "@/components/ui/button";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";

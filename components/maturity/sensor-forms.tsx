@@ -4,7 +4,11 @@ import { FileUp, Plus, Thermometer } from "lucide-react";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { FormFooter } from "@/components/field/form-footer";
-import { NowInput, fromLocalInput, toLocalInput, toSI, unitLabel, unitSystemOf, writeErrorOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/field-project";
+import { fromLocalInput, toLocalInput } from "@/components/field/project-time";
+import { toSI, unitLabel } from "@/components/field/unit-inputs";
+import { writeErrorOf } from "@/components/field/write-error";
+import { NowInput } from "@/components/field/now-input";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { createLocal, type LocalRecord, type ProjectRow } from "@/lib/sync/client";
@@ -58,7 +62,7 @@ function ReadingForm({ sensor, project, onDone }: { sensor: LocalRecord<"tempera
     setFailure(null);
     try {
       const tempC = toSI("temperature", f.temp, units);
-      // The project's wall clock (lib/time/zone through common.tsx), whatever zone the phone is set to.
+      // The project's wall clock (lib/time/zone through components/field/project-time.ts), whatever zone the phone is set to.
       const when = fromLocalInput(f.at, project.timeZone);
       await createLocal(db, "sensor-readings", sensor.projectId, { sensorId: sensor.id, source: "manual", readings: [[when ?? "", tempC]] });
       onDone();

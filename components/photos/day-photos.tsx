@@ -4,7 +4,7 @@
 // time zone, whatever record they belong to.
 import { useLiveQuery } from "dexie-react-hooks";
 import { Images } from "lucide-react";
-import { dateInZone } from "@/components/field/common";
+import { dateInZone } from "@/components/field/project-time";
 import { useSyncDb } from "@/lib/sync/client/react";
 import { byTaken, PhotoGrid } from "./photo-grid";
 

@@ -5,7 +5,8 @@
 import { useQueryClient } from "@tanstack/react-query";
 import { FilePenLine } from "lucide-react";
 import { useState } from "react";
-import { formatDateTime, mayWrite } from "@/components/field/common";
+import { mayWrite } from "@/components/field/field-project";
+import { formatDateTime } from "@/components/field/project-time";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { callApi } from "@/lib/api/client";

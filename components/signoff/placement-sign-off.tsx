@@ -4,7 +4,8 @@
 // everyone sees the signed record. `project` carries the member's own role.
 import { FileSignature } from "lucide-react";
 import { useState } from "react";
-import { Section, mayWrite } from "@/components/field/common";
+import { mayWrite } from "@/components/field/field-project";
+import { Section } from "@/components/field/section";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import type { LocalRecord, ProjectRow } from "@/lib/sync/client";

@@ -5,7 +5,7 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { VocabularyIcon } from "@/components/ui/state-badge";
 import { RECONCILE_WORDS, SEVERITY_WORDS, TONES } from "@/lib/ui/vocabulary";
-import { unitSystemOf } from "@/components/field/common";
+import { unitSystemOf } from "@/components/field/field-project";
 import { fieldFindings, placementFindings } from "@/components/field/findings-model";
 import { readFieldRecords } from "@/components/field/use-findings";
 import { GOVERNS, attention } from "@/lib/checks";

@@ -1,6 +1,6 @@
 // Who signed, as what and when, with the drawn signature: shown the same way for a sign-off and
 // for a signed amendment. Plain text, never inputs.
-import { formatDateTime } from "@/components/field/common";
+import { formatDateTime } from "@/components/field/project-time";
 import { ROLE_LABELS, type ProjectRole } from "@/lib/auth/roles";
 import type { SignOffRow } from "./use-sign-off";
 

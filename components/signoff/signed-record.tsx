@@ -6,7 +6,9 @@
 import { useLiveQuery } from "dexie-react-hooks";
 import { FilePenLine, Printer, ShieldAlert, ShieldCheck, WifiOff } from "lucide-react";
 import { useState } from "react";
-import { Section, formatDateTime, mayWrite } from "@/components/field/common";
+import { mayWrite } from "@/components/field/field-project";
+import { formatDateTime } from "@/components/field/project-time";
+import { Section } from "@/components/field/section";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { listByParent, type LocalRecord, type ProjectRow } from "@/lib/sync/client";

@@ -9,7 +9,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { formatDateTime } from "@/components/field/common";
+import { formatDateTime } from "@/components/field/project-time";
 import { useDeviceWrite } from "@/components/field/use-device-write";
 import { canAddPhotos, RecordPhotos } from "@/components/photos/record-photos";
 import type { ProjectRole } from "@/lib/auth/roles";

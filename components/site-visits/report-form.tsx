@@ -7,7 +7,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { formatDay } from "@/components/field/common";
+import { formatDay } from "@/components/field/project-time";
 import { useDeviceWrite } from "@/components/field/use-device-write";
 import { updateLocal, type LocalRecord } from "@/lib/sync/client";
 import { useSyncDb } from "@/lib/sync/client/react";

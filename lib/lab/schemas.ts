@@ -1,18 +1,12 @@
 // Query strings of the lab routes, one schema each (messages for a site user).
 import { z } from "zod";
+import { oneOrMoreOf } from "@/lib/list-query";
 
 export const LAB_STATUSES = ["due", "overdue", "tested"] as const;
 
 export const queueQuerySchema = z.object({
   projectId: z.guid({ error: "Project must be an id" }).optional(),
-  status: z
-    .string({ error: "Status must be text" })
-    .transform((v) => v.split(",").map((s) => s.trim()).filter(Boolean))
-    .refine((list) => list.every((s) => (LAB_STATUSES as readonly string[]).includes(s)), {
-      message: `Status must be one or more of: ${LAB_STATUSES.join(", ")}`,
-    })
-    .transform((list) => list as (typeof LAB_STATUSES)[number][])
-    .optional(),
+  status: oneOrMoreOf("Status", LAB_STATUSES).optional(),
 });
 
 export const acceptanceQuerySchema = z.object({

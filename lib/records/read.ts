@@ -4,7 +4,8 @@ import { z } from "zod";
 import { db } from "@/db";
 import { parseOrThrow } from "@/lib/validation";
 import { invalidInput, notFound } from "@/lib/errors";
-import { PLACEMENT_STATES, type PlacementState } from "@/lib/records/enums";
+import { flag, oneOrMoreOf } from "@/lib/list-query";
+import { PLACEMENT_STATES } from "@/lib/records/enums";
 import { accessIn, authorizeIn, permit } from "@/lib/auth/access";
 import { assertUuid } from "./guards";
 import { column, getRecordDef, type RecordDef } from "./registry";
@@ -17,20 +18,11 @@ const dateOrInstant = (label: string) =>
     error: `${label} must be a date (2026-11-09) or a date and time with its offset`,
   });
 
-const flag = z.enum(["0", "1", "true", "false"], { error: "Use 1 or 0" }).transform((v) => v === "1" || v === "true");
-
 /** Query-string filters of a list. Query values are strings, so numbers are coerced here. */
 export const listQuerySchema = z.object({
   from: dateOrInstant("From").optional(),
   to: dateOrInstant("To").optional(),
-  state: z
-    .string({ error: "State must be text" })
-    .transform((v) => v.split(",").map((part) => part.trim()).filter(Boolean))
-    .refine((states) => states.every((state) => (PLACEMENT_STATES as readonly string[]).includes(state)), {
-      message: `State must be one or more of: ${PLACEMENT_STATES.join(", ")}`,
-    })
-    .transform((states) => states as PlacementState[])
-    .optional(),
+  state: oneOrMoreOf("State", PLACEMENT_STATES).optional(),
   limit: z.coerce
     .number({ error: "Limit must be a number" })
     .int("Limit must be a whole number")
@@ -38,7 +30,7 @@ export const listQuerySchema = z.object({
     .max(MAX_PAGE, `Limit must be between 1 and ${MAX_PAGE}`)
     .optional(),
   cursor: z.string().max(200, "The cursor is not valid").optional(),
-  includeDeleted: flag.optional(),
+  includeDeleted: flag("Include deleted").optional(),
   placementId: z.guid({ error: "Placement must be an id" }).optional(),
   checklistId: z.guid({ error: "Checklist must be an id" }).optional(),
   specimenSetId: z.guid({ error: "Specimen set must be an id" }).optional(),

@@ -5,7 +5,7 @@
 // write (lib/findings, table check_findings): late trucks, revolutions over an ordered limit, loads
 // with water added at the site, out-of-tolerance tests, the highest evaporation finding, and "has
 // warnings" (any caution or warning of the placement, or of its day: cold or hot weather). No rule
-// is written here; tests/integration/review.test.ts compares the columns with lib/checks.
+// is written here; tests/integration/review/figures.test.ts compares the columns with lib/checks.
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";

@@ -2,9 +2,10 @@
 // strings; lists (projects, states) are comma-separated. Client-safe: no database imports.
 import { z } from "zod";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
+import { commaList, flag, fromDay, MAX_LIST_PAGE_SIZE, oneOrMoreOf, orderedRange, orderedRangeMessage, pageParam, pageSizeParam, sortDir, toDay } from "@/lib/list-query";
 
 export const REVIEW_PAGE_SIZES = [25, 50, 100, 200] as const;
-export const MAX_REVIEW_PAGE_SIZE = 200;
+export const MAX_REVIEW_PAGE_SIZE = MAX_LIST_PAGE_SIZE;
 /** The longest date range a diary list may span (it makes one row per project and day). */
 export const MAX_DIARY_RANGE_DAYS = 366;
 
@@ -32,85 +33,49 @@ export type DiarySort = (typeof DIARY_SORTS)[number];
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-const csv = (label: string) =>
-  z
-    .string({ error: `${label} must be text` })
-    .transform((v) => v.split(",").map((part) => part.trim()).filter(Boolean));
-
-const projectsParam = csv("Projects")
+const projectsParam = commaList("Projects")
   .refine((ids) => ids.every((id) => UUID.test(id)), { message: "Projects must be project ids separated by commas" })
   .refine((ids) => ids.length <= 100, { message: "Choose at most 100 projects" });
 
-const day = (label: string) => z.iso.date({ error: `${label} must be a date like 2026-11-09` });
-
-const flag = (label: string) =>
-  z.enum(["0", "1", "true", "false"], { error: `${label} must be 1 or 0` }).transform((v) => v === "1" || v === "true");
-
-const page = z.coerce
-  .number({ error: "Page must be a number" })
-  .int("Page must be a whole number")
-  .min(1, "Page must be 1 or more")
-  .max(100_000, "Page is too large")
-  .default(1);
-
-const pageSize = z.coerce
-  .number({ error: "Page size must be a number" })
-  .int("Page size must be a whole number")
-  .min(1, `Page size must be between 1 and ${MAX_REVIEW_PAGE_SIZE}`)
-  .max(MAX_REVIEW_PAGE_SIZE, `Page size must be between 1 and ${MAX_REVIEW_PAGE_SIZE}`)
-  .default(50);
-
-const dir = z.enum(["asc", "desc"], { error: "Direction must be asc or desc" });
 const format = z.enum(["json", "csv"], { error: "Format must be json or csv" }).default("json");
 /** CSV only: the chosen columns, in order (checked against the column list by the export). */
-const columns = csv("Columns").refine((keys) => keys.length <= 30, { message: "Too many columns" });
-
-/** A comma-separated list of states, each one of `states`. */
-const statesOf = <S extends string>(states: readonly S[]) =>
-  csv("State")
-    .refine((values) => values.every((v) => (states as readonly string[]).includes(v)), {
-      message: `State must be one or more of: ${states.join(", ")}`,
-    })
-    .transform((values) => values as S[]);
-
-const ordered = <T extends { from?: string; to?: string }>(q: T) => !q.from || !q.to || q.from <= q.to;
-const orderMessage = { message: "The start date must not be after the end date", path: ["from"] };
+const columns = commaList("Columns").refine((keys) => keys.length <= 30, { message: "Too many columns" });
 
 export const placementListQuery = z
   .object({
     projects: projectsParam.optional(),
-    from: day("From").optional(),
-    to: day("To").optional(),
-    state: statesOf(PLACEMENT_STATES).optional(),
+    from: fromDay.optional(),
+    to: toDay.optional(),
+    state: oneOrMoreOf("State", PLACEMENT_STATES).optional(),
     hasWarnings: flag("Has warnings").optional(),
     sort: z.enum(PLACEMENT_SORTS, { error: `Sort must be one of: ${PLACEMENT_SORTS.join(", ")}` }).default("date"),
-    dir: dir.default("desc"),
-    page,
-    pageSize,
+    dir: sortDir.default("desc"),
+    page: pageParam,
+    pageSize: pageSizeParam,
     format,
     columns: columns.optional(),
     /** CSV only: "project" (default) the screen's units and rounding; "si" the stored SI values, unrounded. */
     units: z.enum(["project", "si"], { error: "Units must be project or si" }).default("project"),
   })
   .strict()
-  .refine(ordered, orderMessage);
+  .refine(orderedRange, orderedRangeMessage);
 export type PlacementListQuery = z.output<typeof placementListQuery>;
 
 export const diaryListQuery = z
   .object({
     projects: projectsParam.optional(),
-    from: day("From").optional(),
-    to: day("To").optional(),
-    state: statesOf(DIARY_STATES).optional(),
+    from: fromDay.optional(),
+    to: toDay.optional(),
+    state: oneOrMoreOf("State", DIARY_STATES).optional(),
     sort: z.enum(DIARY_SORTS, { error: `Sort must be one of: ${DIARY_SORTS.join(", ")}` }).default("date"),
-    dir: dir.default("desc"),
-    page,
-    pageSize,
+    dir: sortDir.default("desc"),
+    page: pageParam,
+    pageSize: pageSizeParam,
     format,
     columns: columns.optional(),
   })
   .strict()
-  .refine(ordered, orderMessage)
+  .refine(orderedRange, orderedRangeMessage)
   .refine(
     (q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 < MAX_DIARY_RANGE_DAYS,
     { message: `Choose a range of at most ${MAX_DIARY_RANGE_DAYS} days`, path: ["to"] },

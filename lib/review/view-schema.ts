@@ -2,19 +2,16 @@
 // Client-safe: no database imports.
 import { z } from "zod";
 import { PLACEMENT_STATES } from "@/lib/records/enums";
+import { fromDay, orderedRange, orderedRangeMessage, sortDir, toDay } from "@/lib/list-query";
 import { DIARY_COLUMNS, PLACEMENT_COLUMNS } from "./columns";
 import { DIARY_SORTS, DIARY_STATES, PLACEMENT_SORTS, REVIEW_PAGE_SIZES } from "./query-schemas";
 
 const keysOf = <T extends readonly { key: string }[]>(cols: T) => cols.map((c) => c.key) as [T[number]["key"], ...T[number]["key"][]];
 
-const day = z.iso.date({ error: "Dates must look like 2026-11-09" });
 const projects = z.array(z.guid({ error: "Projects must be project ids" }), { error: "Projects must be a list" }).max(100, "Choose at most 100 projects");
 const pageSize = z
   .number({ error: "Page size must be a number" })
   .refine((n) => (REVIEW_PAGE_SIZES as readonly number[]).includes(n), { message: `Page size must be one of ${REVIEW_PAGE_SIZES.join(", ")}` });
-const dir = z.enum(["asc", "desc"], { error: "Direction must be asc or desc" });
-const ordered = (f: { from?: string; to?: string }) => !f.from || !f.to || f.from <= f.to;
-const orderMessage = { message: "The start date must not be after the end date", path: ["from"] };
 
 const columns = <T extends [string, ...string[]]>(keys: T) =>
   z
@@ -27,18 +24,18 @@ export const placementViewSchema = z
     list: z.literal("placements"),
     columns: columns(keysOf(PLACEMENT_COLUMNS)),
     sort: z.enum(PLACEMENT_SORTS, { error: `Sort must be one of: ${PLACEMENT_SORTS.join(", ")}` }),
-    dir,
+    dir: sortDir,
     pageSize,
     filters: z
       .object({
         projects: projects.optional(),
-        from: day.optional(),
-        to: day.optional(),
+        from: fromDay.optional(),
+        to: toDay.optional(),
         state: z.array(z.enum(PLACEMENT_STATES, { error: `State must be one of: ${PLACEMENT_STATES.join(", ")}` })).optional(),
         hasWarnings: z.boolean({ error: "Has warnings must be true or false" }).optional(),
       })
       .strict()
-      .refine(ordered, orderMessage),
+      .refine(orderedRange, orderedRangeMessage),
   })
   .strict();
 
@@ -47,17 +44,17 @@ export const diaryViewSchema = z
     list: z.literal("diaries"),
     columns: columns(keysOf(DIARY_COLUMNS)),
     sort: z.enum(DIARY_SORTS, { error: `Sort must be one of: ${DIARY_SORTS.join(", ")}` }),
-    dir,
+    dir: sortDir,
     pageSize,
     filters: z
       .object({
         projects: projects.optional(),
-        from: day.optional(),
-        to: day.optional(),
+        from: fromDay.optional(),
+        to: toDay.optional(),
         state: z.array(z.enum(DIARY_STATES, { error: `State must be one of: ${DIARY_STATES.join(", ")}` })).optional(),
       })
       .strict()
-      .refine(ordered, orderMessage),
+      .refine(orderedRange, orderedRangeMessage),
   })
   .strict();
 

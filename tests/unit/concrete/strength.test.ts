@@ -14,16 +14,7 @@ import {
   strengthTest,
 } from "../../../lib/concrete/strength";
 import { ft2ToM2, inToMm, lbfToKN, mpaToPsi, yd3ToM3 } from "../../../lib/concrete/units";
-
-function fieldOf(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (error) {
-    expect(error).toBeInstanceOf(ConcreteInputError);
-    return (error as ConcreteInputError).field;
-  }
-  throw new Error("expected a ConcreteInputError");
-}
+import { fieldOf } from "./helpers";
 
 describe("cylinderStrengthMPa (ASTM C39)", () => {
   it("150 mm at 530.1 kN → 30.0 MPa [computed from f = P / (π d²/4)]", () => {
