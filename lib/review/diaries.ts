@@ -11,6 +11,7 @@ import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
 import { readableProjects } from "@/lib/projects/readable";
 import { uuidArray } from "./access";
+import { allOf, emptyPage, pageOf } from "./page";
 import { MAX_DIARY_RANGE_DAYS, type DiaryListQuery, type DiaryReviewRow, type DiarySort, type ReviewPage } from "./query-schemas";
 
 const SORT_SQL: Record<DiarySort, string> = {
@@ -112,22 +113,12 @@ function toRow(r: Raw): DiaryReviewRow {
 
 export async function listReviewDiaries(user: SessionUser, q: DiaryListQuery, tx: Executor = db): Promise<ReviewPage<DiaryReviewRow>> {
   const projects = await readableProjects(user, q.projects, tx);
-  if (projects.length === 0) return { rows: [], total: 0, page: q.page, pageSize: q.pageSize };
-  const offset = (q.page - 1) * q.pageSize;
-  const result = await tx.execute(sql`
-    with f as (${filteredSet(projects.map((p) => p.id), q)}),
-    n as (select count(*)::int as total from f)
-    select n.total, pg.* from n left join lateral (
-      select * from f order by ${orderBy(q)} limit ${q.pageSize} offset ${offset}
-    ) pg on true`);
-  const raw = result.rows as Raw[];
-  const total = raw.length ? Number(raw[0].total) : 0;
-  return { rows: raw.filter((r) => r.project_id !== null).map(toRow), total, page: q.page, pageSize: q.pageSize };
+  if (projects.length === 0) return emptyPage(q);
+  return pageOf(tx, filteredSet(projects.map((p) => p.id), q), orderBy(q), q, (r: Raw) => r.project_id !== null, toRow);
 }
 
 export async function allReviewDiaries(user: SessionUser, q: DiaryListQuery, limit: number, tx: Executor = db): Promise<DiaryReviewRow[]> {
   const projects = await readableProjects(user, q.projects, tx);
   if (projects.length === 0) return [];
-  const result = await tx.execute(sql`select f.* from (${filteredSet(projects.map((p) => p.id), q)}) f order by ${orderBy(q)} limit ${limit}`);
-  return (result.rows as Raw[]).map(toRow);
+  return allOf(tx, filteredSet(projects.map((p) => p.id), q), orderBy(q), limit, toRow);
 }

@@ -11,6 +11,7 @@ import { db, type Executor } from "@/db";
 import type { SessionUser } from "@/lib/auth/options";
 import { readableProjects } from "@/lib/projects/readable";
 import { uuidArray } from "./access";
+import { allOf, emptyPage, pageOf } from "./page";
 import type { EvaporationRiskLevel, PlacementListQuery, PlacementReviewRow, PlacementSort, ReviewPage } from "./query-schemas";
 
 // Whitelisted sort expressions over the columns of the filtered set (never user text in SQL).
@@ -161,24 +162,13 @@ function toRow(r: Raw): PlacementReviewRow {
 /** One page of the list and the total count of matching rows, in one statement. */
 export async function listReviewPlacements(user: SessionUser, q: PlacementListQuery, tx: Executor = db): Promise<ReviewPage<PlacementReviewRow>> {
   const projects = await readableProjects(user, q.projects, tx);
-  if (projects.length === 0) return { rows: [], total: 0, page: q.page, pageSize: q.pageSize };
-  const offset = (q.page - 1) * q.pageSize;
-  const result = await tx.execute(sql`
-    with f as (${filteredAndWarned(projects.map((p) => p.id), q)}),
-    n as (select count(*)::int as total from f)
-    select n.total, pg.* from n left join lateral (
-      select * from f order by ${orderBy(q)} limit ${q.pageSize} offset ${offset}
-    ) pg on true`);
-  const raw = result.rows as Raw[];
-  const total = raw.length ? Number(raw[0].total) : 0;
-  return { rows: raw.filter((r) => r.id !== null).map(toRow), total, page: q.page, pageSize: q.pageSize };
+  if (projects.length === 0) return emptyPage(q);
+  return pageOf(tx, filteredAndWarned(projects.map((p) => p.id), q), orderBy(q), q, (r: Raw) => r.id !== null, toRow);
 }
 
 /** Every matching row in the list's order, for an export (bounded: at most `limit` rows). */
 export async function allReviewPlacements(user: SessionUser, q: PlacementListQuery, limit: number, tx: Executor = db): Promise<PlacementReviewRow[]> {
   const projects = await readableProjects(user, q.projects, tx);
   if (projects.length === 0) return [];
-  const result = await tx.execute(sql`
-    select 0 as total, f.* from (${filteredAndWarned(projects.map((p) => p.id), q)}) f order by ${orderBy(q)} limit ${limit}`);
-  return (result.rows as Raw[]).map(toRow);
+  return allOf(tx, filteredAndWarned(projects.map((p) => p.id), q), orderBy(q), limit, toRow);
 }

@@ -5,10 +5,11 @@
 import { randomUUID } from "node:crypto";
 import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, expect } from "vitest";
-import { db, getPool } from "@/db";
+import { db } from "@/db";
 import * as placementsRoute from "@/app/api/review/placements/route";
 import { refreshProject } from "@/lib/findings/store";
 import { addMembership, callRoute, createProject, createUser, type TestUser } from "../helpers";
+import { countStatements } from "../statement-count";
 
 export const BULK = 5000;
 export let office: TestUser;
@@ -46,23 +47,10 @@ export async function insertRow(table: string, values: Record<string, unknown>) 
   await db.execute(sql.raw(`insert into ${table} (${keys.join(",")}) values (${keys.map((k) => literal(values[k])).join(",")})`));
 }
 
-/** Counts the statements sent through the pool while `fn` runs. */
+/** Counts the statements sent to PostgreSQL while `fn` runs, on every pool. */
 export async function countQueries<T>(fn: () => Promise<T>): Promise<{ result: T; queries: number; texts: string[] }> {
-  const pool = getPool();
-  const original = pool.query;
-  let queries = 0;
-  const texts: string[] = [];
-  pool.query = function (this: unknown, ...args: unknown[]) {
-    queries += 1;
-    const first = args[0] as string | { text?: string };
-    texts.push(typeof first === "string" ? first : (first?.text ?? ""));
-    return (original as (...a: unknown[]) => unknown).apply(this, args);
-  } as typeof pool.query;
-  try {
-    return { result: await fn(), queries, texts };
-  } finally {
-    pool.query = original;
-  }
+  const { value, statements, texts } = await countStatements(fn);
+  return { result: value, queries: statements, texts };
 }
 
 export const list = (user: TestUser | null, query: Record<string, string>) =>
