@@ -19,19 +19,25 @@ const columns = <T extends [string, ...string[]]>(keys: T) =>
     .min(1, "Show at least one column")
     .refine((cols) => new Set(cols).size === cols.length, { message: "A column is listed twice" });
 
+const oneOf = <T extends readonly [string, ...string[]]>(name: string, values: T) => z.enum(values, { error: `${name} must be one of: ${values.join(", ")}` });
+
+/** What every saved view holds besides its filters, and the filters every list has. */
+const viewOf = <L extends string, C extends [string, ...string[]], S extends readonly [string, ...string[]]>(list: L, columnKeys: C, sorts: S) => ({
+  list: z.literal(list),
+  columns: columns(columnKeys),
+  sort: oneOf("Sort", sorts),
+  dir: sortDir,
+  pageSize,
+});
+const dayRange = { projects: projects.optional(), from: fromDay.optional(), to: toDay.optional() };
+
 export const placementViewSchema = z
   .object({
-    list: z.literal("placements"),
-    columns: columns(keysOf(PLACEMENT_COLUMNS)),
-    sort: z.enum(PLACEMENT_SORTS, { error: `Sort must be one of: ${PLACEMENT_SORTS.join(", ")}` }),
-    dir: sortDir,
-    pageSize,
+    ...viewOf("placements", keysOf(PLACEMENT_COLUMNS), PLACEMENT_SORTS),
     filters: z
       .object({
-        projects: projects.optional(),
-        from: fromDay.optional(),
-        to: toDay.optional(),
-        state: z.array(z.enum(PLACEMENT_STATES, { error: `State must be one of: ${PLACEMENT_STATES.join(", ")}` })).optional(),
+        ...dayRange,
+        state: z.array(oneOf("State", PLACEMENT_STATES)).optional(),
         hasWarnings: z.boolean({ error: "Has warnings must be true or false" }).optional(),
       })
       .strict()
@@ -41,18 +47,9 @@ export const placementViewSchema = z
 
 export const diaryViewSchema = z
   .object({
-    list: z.literal("diaries"),
-    columns: columns(keysOf(DIARY_COLUMNS)),
-    sort: z.enum(DIARY_SORTS, { error: `Sort must be one of: ${DIARY_SORTS.join(", ")}` }),
-    dir: sortDir,
-    pageSize,
+    ...viewOf("diaries", keysOf(DIARY_COLUMNS), DIARY_SORTS),
     filters: z
-      .object({
-        projects: projects.optional(),
-        from: fromDay.optional(),
-        to: toDay.optional(),
-        state: z.array(z.enum(DIARY_STATES, { error: `State must be one of: ${DIARY_STATES.join(", ")}` })).optional(),
-      })
+      .object({ ...dayRange, state: z.array(oneOf("State", DIARY_STATES)).optional() })
       .strict()
       .refine(orderedRange, orderedRangeMessage),
   })
