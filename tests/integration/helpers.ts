@@ -1,10 +1,11 @@
 // Helpers for integration tests: real database rows, real session cookies, real route handlers.
 import { randomUUID } from "node:crypto";
-import { sql } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import { NextRequest } from "next/server";
 import { encode } from "next-auth/jwt";
 import { db } from "@/db";
 import { memberships, projects, users } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
 import type { ProjectRole } from "@/lib/auth/roles";
 import { openSession } from "@/lib/auth/user-sessions";
 
@@ -33,6 +34,15 @@ export async function addMembership(userId: string, projectId: string, role: Pro
 }
 
 /** A project with one member per role, plus an outsider who belongs to another project. */
+/** A project with its team, and an inspector of another project; both inspectors sign with `password`. */
+export async function projectWithSigningInspectors(password: string) {
+  const setup = await projectWithTeam();
+  const other = await projectWithTeam();
+  const hash = await hashPassword(password);
+  await db.update(users).set({ passwordHash: hash }).where(inArray(users.id, [setup.team.inspector.id, other.team.inspector.id]));
+  return { setup, otherInspector: other.team.inspector };
+}
+
 export async function projectWithTeam() {
   const project = await createProject();
   const team = {} as Record<ProjectRole, TestUser>;

@@ -2,14 +2,13 @@ import { randomUUID } from "node:crypto";
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { conflicts, deliveries, placements, signOffs, users } from "@/db/schema";
+import { conflicts, deliveries, placements, signOffs } from "@/db/schema";
 import { POST as signRoute, GET as verifyRoute } from "@/app/api/projects/[projectId]/placements/[id]/sign-off/route";
 import { POST as amendRoute } from "@/app/api/projects/[projectId]/placements/[id]/amendments/route";
 import { GET as auditRoute } from "@/app/api/projects/[projectId]/audit/[recordId]/route";
-import { hashPassword } from "@/lib/auth/password";
 import { transitionPlacement } from "@/lib/placements/transition";
 import { createRecord, updateRecord } from "@/lib/records/write";
-import { callRoute, projectWithTeam } from "./helpers";
+import { callRoute, projectWithSigningInspectors, projectWithTeam } from "./helpers";
 import { validBody } from "./record-fixtures";
 
 const PASSWORD = "inspector-password-1";
@@ -20,12 +19,7 @@ let s: Setup;
 let otherInspector: Setup["team"]["inspector"];
 
 beforeAll(async () => {
-  s = await projectWithTeam();
-  const hash = await hashPassword(PASSWORD);
-  await db.update(users).set({ passwordHash: hash }).where(eq(users.id, s.team.inspector.id));
-  const other = await projectWithTeam();
-  otherInspector = other.team.inspector;
-  await db.update(users).set({ passwordHash: hash }).where(eq(users.id, otherInspector.id));
+  ({ setup: s, otherInspector } = await projectWithSigningInspectors(PASSWORD));
 });
 
 async function placedPlacement() {

@@ -8,10 +8,9 @@ import { beforeAll, expect } from "vitest";
 import { POST as signRoute } from "@/app/api/projects/[projectId]/site-visits/[id]/sign-off/route";
 import { POST as pushRoute } from "@/app/api/sync/push/route";
 import { db } from "@/db";
-import { findings, siteVisits, users } from "@/db/schema";
-import { hashPassword } from "@/lib/auth/password";
+import { findings, siteVisits } from "@/db/schema";
 import { SYNC_SCHEMA_VERSION, type Mutation } from "@/lib/sync/protocol";
-import { callRoute, projectWithTeam, type TestUser } from "../helpers";
+import { callRoute, projectWithSigningInspectors, projectWithTeam, type TestUser } from "../helpers";
 import { validBody } from "../record-fixtures";
 
 export const PASSWORD = "inspector-password-7";
@@ -67,11 +66,6 @@ export async function submit(visitId: string) {
 /** A project with its team and an inspector of another project, both inspectors with PASSWORD, made before the calling file's tests. */
 export function setUpSiteVisits() {
   beforeAll(async () => {
-    s = await projectWithTeam();
-    const hash = await hashPassword(PASSWORD);
-    await db.update(users).set({ passwordHash: hash }).where(eq(users.id, s.team.inspector.id));
-    const other = await projectWithTeam();
-    otherInspector = other.team.inspector;
-    await db.update(users).set({ passwordHash: hash }).where(eq(users.id, otherInspector.id));
+    ({ setup: s, otherInspector } = await projectWithSigningInspectors(PASSWORD));
   });
 }
