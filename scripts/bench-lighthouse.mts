@@ -15,6 +15,7 @@ const email = option("email", "sam.super@example.test");
 const password = option("password", "placewright-demo");
 const port = Number(option("debug-port", "9333"));
 
+// --why also prints the scripts that kept the main thread busiest on each page.
 // One Chromium with a remote-debugging port: Playwright signs in, Lighthouse drives the same browser.
 const browser = await chromium.launch({
   executablePath: "/usr/bin/chromium",
@@ -55,8 +56,12 @@ try {
     const score = (key: string) => Math.round((c?.[key]?.score ?? 0) * 100);
     const ok = score("performance") >= 95 && score("accessibility") === 100;
     console.log(`${name.padEnd(20)} ${String(score("performance")).padStart(5)} ${String(score("accessibility")).padStart(5)} ${String(score("best-practices")).padStart(5)}  ${ok ? "ok" : "below"}`);
-    // What an accessibility score below 100 is made of: each failed audit and the elements it names.
     const audits = result?.lhr.audits ?? {};
+    // What a performance score is made of: the metrics it weighs, as Lighthouse rounds them.
+    const metric = (id: string) => audits[id]?.displayValue ?? "n/a";
+    console.log(`    FCP ${metric("first-contentful-paint")}, LCP ${metric("largest-contentful-paint")}, TBT ${metric("total-blocking-time")}, CLS ${metric("cumulative-layout-shift")}, SI ${metric("speed-index")}`);
+    if (process.argv.includes("--why")) explain(audits);
+    // What an accessibility score below 100 is made of: each failed audit and the elements it names.
     for (const ref of c?.accessibility?.auditRefs ?? []) {
       const audit = audits[ref.id];
       if (!audit || ref.weight === 0 || audit.score === null || audit.score === 1) continue;
@@ -67,4 +72,11 @@ try {
   }
 } finally {
   await browser.close();
+}
+
+/** --why: the scripts that kept the main thread busiest. */
+function explain(audits: Record<string, { details?: unknown }>) {
+  type Items = { items?: { url?: string; total?: number; scripting?: number }[] };
+  const bootup = ((audits["bootup-time"]?.details as Items | undefined)?.items ?? []).slice(0, 6);
+  for (const item of bootup) console.log(`    script ${Math.round(item.scripting ?? 0)} ms of ${Math.round(item.total ?? 0)} ms: ${item.url}`);
 }
