@@ -2,6 +2,7 @@
 
 import { useLiveQuery } from "dexie-react-hooks";
 import { ChevronRight, Plus } from "lucide-react";
+import dynamic from "next/dynamic";
 import Link from "next/link";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -20,10 +21,15 @@ import { addDays, dateInZone, formatDateTime } from "./project-time";
 import { byTime } from "./record-fields";
 import { CautionBadge } from "./verdict-badges";
 import { fieldFindings, placementFindings } from "./findings-model";
-import { PlanPlacementForm } from "./plan-placement-form";
 import { readFieldRecords } from "./use-findings";
 import { formatInstant } from "@/lib/time/zone";
 
+// The planning form (and react-hook-form with it) loads when "Plan a placement" is tapped, not with
+// Today; the service worker precaches its chunk, so it opens offline too.
+const PlanPlacementForm = dynamic(() => import("./plan-placement-form").then((m) => m.PlanPlacementForm), {
+  ssr: false,
+  loading: () => <p className="text-muted">Opening the form…</p>,
+});
 
 type Row = { placement: LocalRecord<"placements">; project: ProjectRow; day: "today" | "tomorrow"; warnings: string[]; cold: Finding[] };
 
